@@ -1,0 +1,79 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { redirect } from "next/navigation";
+import { ageOf } from "@/app/_components/relative-age";
+import { requirePageAccess } from "@/server/auth/access";
+import { seesWholeFleet } from "@/server/auth/roles";
+import { formatShipTime } from "@/server/format/hours";
+import { listAccessibleVessels } from "@/server/vessels/queries";
+
+export const metadata: Metadata = { title: "Vessels" };
+
+const STALE_MS = 36 * 3_600_000;
+
+export default async function VesselsPage() {
+  const access = await requirePageAccess();
+  const vessels = await listAccessibleVessels(access);
+  if (vessels.length === 1 && !seesWholeFleet(access.role)) redirect(`/vessels/${vessels[0]!.id}/hour-log`);
+  const now = new Date();
+
+  return (
+    <main>
+      <h1 className="mb-4 text-lg font-bold">Vessels</h1>
+      {vessels.length === 0 ? (
+        <div className="panel p-6 text-ink-600 dark:text-ink-300">
+          <p className="font-medium">No vessel is assigned to you yet.</p>
+          <p>Ask your company administrator to assign you to your vessel.</p>
+        </div>
+      ) : (
+        <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+          {vessels.map((v) => {
+            const stale = !v.lastReadingAt || now.getTime() - v.lastReadingAt.getTime() > STALE_MS;
+            return (
+              <li key={v.id} className="panel p-4">
+                <div className="flex items-baseline justify-between gap-2">
+                  <h2 className="text-base font-semibold">
+                    <Link href={`/vessels/${v.id}/hour-log`} className="hover:underline">
+                      {v.name}
+                    </Link>
+                  </h2>
+                  <span className="font-mono text-xs text-ink-500">
+                    {v.code} · IMO {v.imoNumber}
+                  </span>
+                </div>
+                <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 text-ink-600 dark:text-ink-300">
+                  <dt>Counters</dt>
+                  <dd>{v.counters}</dd>
+                  <dt>Last reading</dt>
+                  <dd>
+                    {v.lastReadingAt ? (
+                      <>
+                        {formatShipTime(v.lastReadingAt, v.timeZone)}{" "}
+                        <span className={stale ? "font-semibold text-alarm-600 dark:text-alarm-300" : "text-ink-500"}>
+                          ({ageOf(v.lastReadingAt, now)}
+                          {stale ? ", overdue" : ""})
+                        </span>
+                      </>
+                    ) : (
+                      <span className="font-semibold text-alarm-600">none yet</span>
+                    )}
+                  </dd>
+                  <dt>Ship’s time zone</dt>
+                  <dd>{v.timeZone}</dd>
+                </dl>
+                <div className="mt-3 flex gap-2">
+                  <Link href={`/vessels/${v.id}/hour-log`} className="btn-quiet">
+                    Hour log
+                  </Link>
+                  <Link href={`/vessels/${v.id}/register`} className="btn-quiet">
+                    Machinery register
+                  </Link>
+                </div>
+              </li>
+            );
+          })}
+        </ul>
+      )}
+    </main>
+  );
+}

@@ -1,0 +1,39 @@
+"use client";
+
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { fetchJson } from "@/app/_components/fetch-json";
+import { queryKeys } from "@/app/_components/query-keys";
+import type { HourLogView, ReadingBatchInput, ReadingBatchResult, ReadingHistory } from "@/server/readings/contract";
+
+export function useHourLog(vesselId: string) {
+  return useQuery({
+    queryKey: queryKeys.hourLog(vesselId),
+    queryFn: () => fetchJson<HourLogView>(`/api/vessels/${vesselId}/hour-log`),
+  });
+}
+
+export function useReadingHistory(vesselId: string, counterId: string | undefined, days = 90) {
+  return useQuery({
+    queryKey: queryKeys.readingHistory(vesselId, counterId ?? "", days),
+    queryFn: () =>
+      fetchJson<ReadingHistory>(`/api/vessels/${vesselId}/readings?counterId=${counterId}&days=${days}`),
+    enabled: Boolean(counterId),
+  });
+}
+
+export function useSaveReadings(vesselId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (batch: ReadingBatchInput) =>
+      fetchJson<ReadingBatchResult>(`/api/vessels/${vesselId}/readings`, {
+        method: "POST",
+        body: JSON.stringify(batch),
+      }),
+    onSuccess: async () => {
+      await Promise.all([
+        client.invalidateQueries({ queryKey: queryKeys.hourLog(vesselId) }),
+        client.invalidateQueries({ queryKey: queryKeys.readings(vesselId) }),
+      ]);
+    },
+  });
+}

@@ -1,0 +1,16 @@
+import type { Metadata } from "next";
+import { requirePageVessel } from "@/server/auth/access";
+import { HourLog } from "./_components/hour-log";
+
+export const metadata: Metadata = { title: "Hour log" };
+
+export default async function HourLogPage({ params }: { params: Promise<{ vesselId: string }> }) {
+  const { vesselId } = await params;
+  const { vessel } = await requirePageVessel(vesselId);
+  return (
+    <main>
+      <h1 className="sr-only">Hour log of {vessel.name}</h1>
+      <HourLog vesselId={vessel.id} />
+    </main>
+  );
+}

@@ -1,0 +1,42 @@
+import type { Metadata } from "next";
+import { redirect } from "next/navigation";
+import { KeelsonMark } from "@/app/_components/keelson-mark";
+import { getAccess } from "@/server/auth/access";
+import { demoSignIns } from "@/server/auth/demo";
+import { SignInForm } from "./sign-in-form";
+
+export const metadata: Metadata = { title: "Sign in" };
+
+export default async function SignInPage() {
+  if (await getAccess()) redirect("/");
+  const demo = demoSignIns();
+  return (
+    <main className="mx-auto flex min-h-screen max-w-md flex-col justify-center px-4 py-10">
+      <div className="mb-6 flex items-center gap-2">
+        <KeelsonMark className="h-9 w-9" />
+        <div>
+          <h1 className="text-xl font-bold tracking-tight">Keelson</h1>
+          <p className="text-ink-500 dark:text-ink-400">Planned maintenance for the engine department</p>
+        </div>
+      </div>
+      <div className="panel p-6">
+        <SignInForm />
+      </div>
+      {demo && (
+        <section aria-labelledby="demo-heading" className="mt-6 text-ink-600 dark:text-ink-300">
+          <h2 id="demo-heading" className="label">
+            Demo sign-ins · password <code className="font-mono normal-case">{demo.password}</code>
+          </h2>
+          <ul className="grid gap-0.5">
+            {demo.users.map((u) => (
+              <li key={u.email} className="flex justify-between gap-3">
+                <code className="font-mono">{u.email}</code>
+                <span>{u.label}</span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
+    </main>
+  );
+}

@@ -1,0 +1,88 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { z } from "zod";
+import { authClient } from "@/app/_components/auth-client";
+
+const SignInInput = z.object({
+  email: z.email({ message: "Enter your e-mail address, e.g. name@company.com." }),
+  password: z.string().min(1, { message: "Enter your password." }),
+});
+type SignInInput = z.infer<typeof SignInInput>;
+
+export function SignInForm() {
+  const router = useRouter();
+  const [failure, setFailure] = useState<string | null>(null);
+  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(SignInInput) });
+  const { errors, isSubmitting } = formState;
+
+  async function onSubmit(values: SignInInput) {
+    setFailure(null);
+    const { error } = await authClient.signIn.email(values);
+    if (error) {
+      setFailure(
+        error.status === 401 || error.code === "INVALID_EMAIL_OR_PASSWORD"
+          ? "That e-mail and password do not match an account."
+          : (error.message ?? "Sign-in failed. Try again."),
+      );
+      return;
+    }
+    router.replace("/");
+    router.refresh();
+  }
+
+  return (
+    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+      <div>
+        <label htmlFor="email" className="label">
+          E-mail
+        </label>
+        <input
+          id="email"
+          type="email"
+          autoComplete="username"
+          autoFocus
+          className="field"
+          aria-invalid={errors.email ? true : undefined}
+          aria-describedby={errors.email ? "email-error" : undefined}
+          {...register("email")}
+        />
+        {errors.email && (
+          <p id="email-error" className="field-error">
+            {errors.email.message}
+          </p>
+        )}
+      </div>
+      <div>
+        <label htmlFor="password" className="label">
+          Password
+        </label>
+        <input
+          id="password"
+          type="password"
+          autoComplete="current-password"
+          className="field"
+          aria-invalid={errors.password ? true : undefined}
+          aria-describedby={errors.password ? "password-error" : undefined}
+          {...register("password")}
+        />
+        {errors.password && (
+          <p id="password-error" className="field-error">
+            {errors.password.message}
+          </p>
+        )}
+      </div>
+      {failure && (
+        <p role="alert" className="rounded-md bg-alarm-50 px-3 py-2 text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300">
+          {failure}
+        </p>
+      )}
+      <button type="submit" className="btn-primary w-full py-2" disabled={isSubmitting}>
+        {isSubmitting ? "Signing in…" : "Sign in"}
+      </button>
+    </form>
+  );
+}

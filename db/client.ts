@@ -1,0 +1,33 @@
+import { drizzle } from "drizzle-orm/node-postgres";
+import { Pool } from "pg";
+import * as schema from "./schema";
+
+export function databaseUrl(): string {
+  const url = process.env.DATABASE_URL;
+  if (!url) throw new Error("DATABASE_URL is not set (scripts/start.sh and scripts/test.sh set it)");
+  return url;
+}
+
+export function createDb(pool: Pool) {
+  return drizzle({ client: pool, schema, casing: "snake_case" });
+}
+
+export type Db = ReturnType<typeof createDb>;
+export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+
+// One pool per process; kept on globalThis so that dev-mode reloads do not open new pools.
+const globalForDb = globalThis as unknown as { keelsonPool?: Pool; keelsonDb?: Db };
+
+export function getDb(): Db {
+  if (!globalForDb.keelsonDb) {
+    globalForDb.keelsonPool = new Pool({ connectionString: databaseUrl(), max: 10 });
+    globalForDb.keelsonDb = createDb(globalForDb.keelsonPool);
+  }
+  return globalForDb.keelsonDb;
+}
+
+export async function closeDb(): Promise<void> {
+  await globalForDb.keelsonPool?.end();
+  globalForDb.keelsonPool = undefined;
+  globalForDb.keelsonDb = undefined;
+}

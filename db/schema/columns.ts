@@ -1,0 +1,4 @@
+import { numeric } from "drizzle-orm/pg-core";
+
+/** Hours are kept as numeric(12,1) — tenths of an hour, never a float column. */
+export const hours = () => numeric({ precision: 12, scale: 1, mode: "number" });

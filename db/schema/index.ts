@@ -1,0 +1,4 @@
+export * from "./auth";
+export * from "./machinery";
+export * from "./readings";
+export * from "./tenancy";

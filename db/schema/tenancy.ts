@@ -1,0 +1,75 @@
+// The tenant (company), who belongs to it with which role, and its vessels.
+import { sql } from "drizzle-orm";
+import { check, index, pgEnum, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { user } from "./auth";
+
+export const memberRole = pgEnum("member_role", [
+  "admin",
+  "superintendent",
+  "chief-engineer",
+  "engineer",
+  "viewer",
+]);
+
+export const company = pgTable("company", {
+  id: uuid().primaryKey().defaultRandom(),
+  name: text().notNull(),
+  slug: text().notNull().unique(),
+  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+});
+
+export const membership = pgTable(
+  "membership",
+  {
+    companyId: uuid()
+      .notNull()
+      .references(() => company.id, { onDelete: "cascade" }),
+    userId: text()
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    role: memberRole().notNull(),
+    rank: text(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique().on(t.companyId, t.userId), index().on(t.userId)],
+);
+
+export const vessel = pgTable(
+  "vessel",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: uuid()
+      .notNull()
+      .references(() => company.id, { onDelete: "cascade" }),
+    name: text().notNull(),
+    imoNumber: text().notNull(),
+    code: text().notNull(),
+    timeZone: text().notNull(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    retiredAt: timestamp({ withTimezone: true }),
+  },
+  (t) => [
+    unique().on(t.companyId, t.code),
+    unique().on(t.companyId, t.imoNumber),
+    index().on(t.companyId, t.name),
+    check("vessel_imo_format", sql`${t.imoNumber} ~ '^[0-9]{7}$'`),
+    check("vessel_code_format", sql`${t.code} ~ '^[A-Z0-9]{2,6}$'`),
+  ],
+);
+
+export const vesselAssignment = pgTable(
+  "vessel_assignment",
+  {
+    companyId: uuid()
+      .notNull()
+      .references(() => company.id, { onDelete: "cascade" }),
+    vesselId: uuid()
+      .notNull()
+      .references(() => vessel.id, { onDelete: "cascade" }),
+    userId: text()
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique().on(t.companyId, t.userId, t.vesselId), index().on(t.companyId, t.vesselId)],
+);

@@ -1,0 +1,159 @@
+// Seeds the demo scenario once: a second run finds the demo company and changes nothing.
+import { randomUUID } from "node:crypto";
+import { TZDate } from "@date-fns/tz";
+import { addDays, format } from "date-fns";
+import { hashPassword } from "better-auth/crypto";
+import { eq } from "drizzle-orm";
+import { closeDb, getDb } from "../client";
+import * as s from "../schema";
+import { instantOfShipTime } from "../../server/format/hours";
+import { refreshRunningRates } from "../../server/scheduling/recompute";
+import { dailyHours, seededRandom, voyagePattern } from "./readings";
+import { componentsFor, countersFor, DEMO_PASSWORD, demoCompany, demoUsers, demoVessels } from "./scenario";
+
+const DAYS = 365;
+const READING_CLOCK = "09:00";
+
+export async function seedDemo(now = new Date()): Promise<"created" | "present"> {
+  const db = getDb();
+  const [existing] = await db.select().from(s.company).where(eq(s.company.slug, demoCompany.slug));
+  if (existing) return "present";
+
+  await db.transaction(async (tx) => {
+    const [co] = await tx.insert(s.company).values(demoCompany).returning();
+    const companyId = co!.id;
+    const vesselIds = new Map<string, string>();
+
+    for (const v of demoVessels) {
+      const [row] = await tx
+        .insert(s.vessel)
+        .values({ companyId, name: v.name, code: v.code, imoNumber: v.imoNumber, timeZone: v.timeZone })
+        .returning();
+      const vesselId = row!.id;
+      vesselIds.set(v.code, vesselId);
+
+      const counters = countersFor(v);
+      const counterIds = new Map<string, string>();
+      for (const [i, c] of counters.entries()) {
+        const [cr] = await tx
+          .insert(s.counter)
+          .values({ companyId, vesselId, name: c.name, plannedHoursPerDay: c.plannedHoursPerDay, sortOrder: i })
+          .returning();
+        counterIds.set(c.key, cr!.id);
+      }
+
+      const componentIds = new Map<string, string>();
+      for (const [i, c] of componentsFor(v).entries()) {
+        const [cr] = await tx
+          .insert(s.component)
+          .values({
+            companyId,
+            vesselId,
+            code: c.code,
+            name: c.name,
+            parentId: c.parent ? componentIds.get(c.parent) : null,
+            counterId: c.counter ? counterIds.get(c.counter) : null,
+            critical: c.critical ?? false,
+            classItemRef: c.classItemRef ?? null,
+            maker: c.maker ?? null,
+            model: c.model ?? null,
+            sortOrder: i,
+          })
+          .returning();
+        componentIds.set(c.code, cr!.id);
+      }
+
+      await seedReadings(tx, companyId, vesselId, v, counters, counterIds, now);
+    }
+
+    const passwordHash = await hashPassword(DEMO_PASSWORD);
+    for (const u of demoUsers) {
+      const userId = randomUUID();
+      await tx.insert(s.user).values({ id: userId, name: u.name, email: u.email, emailVerified: true, role: "user" });
+      await tx.insert(s.account).values({
+        id: randomUUID(),
+        accountId: userId,
+        providerId: "credential",
+        userId,
+        password: passwordHash,
+      });
+      await tx.insert(s.membership).values({ companyId, userId, role: u.role, rank: u.rank ?? null });
+      for (const code of u.vessels) {
+        await tx.insert(s.vesselAssignment).values({ companyId, userId, vesselId: vesselIds.get(code)! });
+      }
+    }
+  });
+  // What the worker would write after the readings: the running rate of every counter.
+  const [co] = await db.select().from(s.company).where(eq(s.company.slug, demoCompany.slug));
+  for (const v of await db.select().from(s.vessel).where(eq(s.vessel.companyId, co!.id))) {
+    await refreshRunningRates(db, co!.id, v.id, now);
+  }
+  return "created";
+}
+
+type SeedTx = Parameters<Parameters<ReturnType<typeof getDb>["transaction"]>[0]>[0];
+
+/** A year of daily readings at 09:00 ship's time, the last on the ship's day before `now`. */
+async function seedReadings(
+  tx: SeedTx,
+  companyId: string,
+  vesselId: string,
+  v: (typeof demoVessels)[number],
+  counters: ReturnType<typeof countersFor>,
+  counterIds: Map<string, string>,
+  now: Date,
+) {
+  const random = seededRandom(v.seed);
+  const atSea = voyagePattern(DAYS + 1, random);
+  const today = new TZDate(now, v.timeZone);
+  const firstDay = addDays(today, -DAYS);
+  const rows: (typeof s.reading.$inferInsert)[] = [];
+
+  for (const c of counters) {
+    const counterId = counterIds.get(c.key)!;
+    const generatorIndex = c.duty === "generator" ? Number(c.key.slice(2)) - 1 : 0;
+    const replacementDay = v.meterReplacement?.counter === c.key ? DAYS - v.meterReplacement.daysAgo : -1;
+    let total = c.start;
+    let segment = 1;
+    let offset = 0;
+    for (let day = 0; day < DAYS; day++) {
+      const shipDay = format(addDays(firstDay, day), "yyyy-MM-dd");
+      const readAt = instantOfShipTime(shipDay, READING_CLOCK, v.timeZone);
+      if (day > 0) total = Math.round((total + dailyHours(c, generatorIndex, v.generators, day, atSea[day]!, random)) * 10) / 10;
+      if (day === replacementDay) {
+        // The old meter was read at 09:00 and the new one fitted straight after, showing 0.0 h.
+        segment = 2;
+        offset = total;
+        await tx.insert(s.counterSegment).values({
+          companyId,
+          counterId,
+          segment: 2,
+          startedAt: readAt,
+          startMeter: 0,
+          offsetHours: offset,
+          reason: "Hour meter failed; replaced with a new meter (demo)",
+        });
+        rows.push({ companyId, vesselId, counterId, readAt, segment: 1, meterValue: total, totalHours: total });
+        continue;
+      }
+      rows.push({
+        companyId,
+        vesselId,
+        counterId,
+        readAt,
+        segment,
+        meterValue: Math.round((total - offset) * 10) / 10,
+        totalHours: total,
+      });
+    }
+    await tx.insert(s.counterSegment).values({ companyId, counterId, segment: 1, startedAt: instantOfShipTime(format(firstDay, "yyyy-MM-dd"), "00:00", v.timeZone), startMeter: c.start, offsetHours: 0 });
+    if (segment === 2) await tx.update(s.counter).set({ currentSegment: 2 }).where(eq(s.counter.id, counterId));
+  }
+  for (let i = 0; i < rows.length; i += 2000) await tx.insert(s.reading).values(rows.slice(i, i + 2000));
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+  const result = await seedDemo();
+  console.log(result === "created" ? "[keelson] demo data seeded" : "[keelson] demo data already present");
+  await closeDb();
+}

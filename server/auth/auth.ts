@@ -1,0 +1,48 @@
+import "server-only";
+import { betterAuth } from "better-auth";
+import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { nextCookies } from "better-auth/next-js";
+import { admin } from "better-auth/plugins";
+import { getDb } from "@/db/client";
+import * as schema from "@/db/schema";
+
+const baseURL = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000";
+
+export const auth = betterAuth({
+  baseURL,
+  secret: process.env.BETTER_AUTH_SECRET,
+  trustedOrigins: [baseURL, baseURL.replace("127.0.0.1", "localhost")],
+  database: drizzleAdapter(getDb(), {
+    provider: "pg",
+    schema: {
+      user: schema.user,
+      session: schema.session,
+      account: schema.account,
+      verification: schema.verification,
+    },
+  }),
+  emailAndPassword: {
+    enabled: true,
+    // Accounts are created by the company administrator, never by self sign-up.
+    disableSignUp: true,
+    minPasswordLength: 10,
+  },
+  session: {
+    expiresIn: 60 * 60 * 24 * 14,
+    updateAge: 60 * 60 * 24,
+    cookieCache: { enabled: true, maxAge: 60 },
+  },
+  advanced: {
+    useSecureCookies: baseURL.startsWith("https://"),
+  },
+  // Sign-in attempts are limited per address; the test suite, which signs in dozens of users
+  // from one address within seconds, switches the limit off.
+  rateLimit: {
+    enabled: process.env.KEELSON_AUTH_RATE_LIMIT !== "off",
+    window: 60,
+    max: 100,
+    customRules: { "/sign-in/email": { window: 60, max: 10 } },
+  },
+  telemetry: { enabled: false },
+  plugins: [admin(), nextCookies()],
+});

@@ -1,0 +1,34 @@
+// Roles and what each may do. Pure: used by the access door and by the UI to hide controls.
+
+export const ROLES = ["admin", "superintendent", "chief-engineer", "engineer", "viewer"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABEL: Record<Role, string> = {
+  admin: "Company administrator",
+  superintendent: "Technical superintendent",
+  "chief-engineer": "Chief engineer",
+  engineer: "Engineer",
+  viewer: "Viewer",
+};
+
+export type Permission =
+  | "vessel:read"
+  | "readings:write"
+  | "register:edit"
+  | "company:manage";
+
+const GRANTS: Record<Permission, readonly Role[]> = {
+  "vessel:read": ROLES,
+  "readings:write": ["engineer", "chief-engineer"],
+  "register:edit": ["chief-engineer", "admin"],
+  "company:manage": ["admin"],
+};
+
+export function can(role: Role, permission: Permission): boolean {
+  return GRANTS[permission].includes(role);
+}
+
+/** Office roles see every vessel of the company; seagoing roles and viewers see their assignments. */
+export function seesWholeFleet(role: Role): boolean {
+  return role === "admin" || role === "superintendent";
+}

@@ -1,0 +1,41 @@
+// How Keelson writes hours, dates and times: one place, used by messages, pages and e-mail.
+import { TZDate } from "@date-fns/tz";
+import { format } from "date-fns";
+
+const hoursFormat = new Intl.NumberFormat("en-GB", { minimumFractionDigits: 0, maximumFractionDigits: 1 });
+
+/** 12431.5 → "12,431.5 h" */
+export function formatHours(value: number): string {
+  return `${hoursFormat.format(value)} h`;
+}
+
+/** An instant as the ship's clock shows it: "3 May 2026 12:00". */
+export function formatShipTime(instant: Date, timeZone: string): string {
+  return format(new TZDate(instant, timeZone), "d MMM yyyy HH:mm");
+}
+
+export function formatShipDate(instant: Date, timeZone: string): string {
+  return format(new TZDate(instant, timeZone), "d MMM yyyy");
+}
+
+/** The ship's day (YYYY-MM-DD) of an instant. */
+export function shipDay(instant: Date, timeZone: string): string {
+  return format(new TZDate(instant, timeZone), "yyyy-MM-dd");
+}
+
+/** The ship's clock time (HH:mm) of an instant. */
+export function shipClock(instant: Date, timeZone: string): string {
+  return format(new TZDate(instant, timeZone), "HH:mm");
+}
+
+/** The instant of a ship's day and clock time in the vessel's time zone. */
+export function instantOfShipTime(day: string, clock: string, timeZone: string): Date {
+  const [y, m, d] = day.split("-").map(Number) as [number, number, number];
+  const [hh, mm] = clock.split(":").map(Number) as [number, number];
+  return new Date(new TZDate(y, m - 1, d, hh, mm, 0, timeZone).getTime());
+}
+
+/** "UTC+08:00" for an instant in a time zone. */
+export function utcOffsetLabel(instant: Date, timeZone: string): string {
+  return `UTC${format(new TZDate(instant, timeZone), "xxx")}`;
+}

@@ -1,0 +1,90 @@
+import "server-only";
+import type { z } from "zod";
+import { type Access, findAccessibleVessel, loadAccess, type VesselRef } from "@/server/auth/access";
+import { can, type Permission } from "@/server/auth/roles";
+import { AppError, fieldErrorsFromZod, invalidInput, problemResponse } from "./problem";
+
+type Schema = z.ZodType;
+type Parsed<S> = S extends z.ZodType ? z.output<S> : undefined;
+
+type Options<B, Q> = {
+  /** What the signed-in user's role must allow. */
+  permission: Permission;
+  /** Whether the route has a `[vesselId]` segment the user must be allowed to open. */
+  vessel?: boolean;
+  body?: B;
+  query?: Q;
+};
+
+export type HandlerContext<B, Q> = {
+  request: Request;
+  access: Access;
+  vessel: VesselRef;
+  params: Record<string, string>;
+  body: Parsed<B>;
+  query: Parsed<Q>;
+};
+
+type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
+
+/**
+ * The one access door for route handlers: resolves the signed-in user, their company and role,
+ * the vessel of the route (another company's or an unassigned vessel is 404), checks the role's
+ * permission, and parses query and body with the zod contract before the handler runs.
+ */
+export function withAccess<B extends Schema | undefined = undefined, Q extends Schema | undefined = undefined>(
+  options: Options<B, Q>,
+  handler: (ctx: HandlerContext<B, Q>) => Promise<unknown>,
+) {
+  return async (request: Request, context: RouteContext): Promise<Response> => {
+    try {
+      const access = await loadAccess(request.headers);
+      if (!access) throw new AppError("unauthenticated", "Sign in to continue.");
+
+      const params = Object.fromEntries(
+        Object.entries((await context.params) ?? {}).map(([k, v]) => [k, String(v)]),
+      );
+      let vessel: VesselRef | null = null;
+      if (options.vessel) {
+        vessel = await findAccessibleVessel(access, params.vesselId ?? "");
+        if (!vessel) throw new AppError("not-found", "No such vessel.");
+      }
+      if (!can(access.role, options.permission)) {
+        throw new AppError("forbidden", "Your role does not allow this action.");
+      }
+
+      const query = options.query
+        ? parseWith(options.query, Object.fromEntries(new URL(request.url).searchParams), "query")
+        : undefined;
+      const body = options.body ? parseWith(options.body, await readJson(request), "") : undefined;
+
+      const result = await handler({
+        request,
+        access,
+        vessel: vessel as VesselRef,
+        params,
+        body: body as Parsed<B>,
+        query: query as Parsed<Q>,
+      });
+      return result instanceof Response ? result : Response.json(result);
+    } catch (error) {
+      return problemResponse(error);
+    }
+  };
+}
+
+function parseWith(schema: Schema, input: unknown, prefix: string): unknown {
+  const result = schema.safeParse(input);
+  if (!result.success) throw invalidInput(fieldErrorsFromZod(result.error, prefix));
+  return result.data;
+}
+
+async function readJson(request: Request): Promise<unknown> {
+  const text = await request.text();
+  if (!text.trim()) throw invalidInput([{ field: "(body)", message: "The request has no body." }]);
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw invalidInput([{ field: "(body)", message: "The request body is not valid JSON." }]);
+  }
+}

@@ -1,0 +1,241 @@
+import "server-only";
+import { and, asc, eq, gte, inArray, isNull, sql } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { component, counter, reading, user } from "@/db/schema";
+import type { Access, VesselRef } from "@/server/auth/access";
+import { can } from "@/server/auth/roles";
+import { instantOfShipTime, shipDay } from "@/server/format/hours";
+import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
+import type { HourLogView, ReadingBatch, ReadingBatchResult, ReadingHistory } from "./contract";
+import { dailyRunningHours } from "./daily";
+import { isInFuture, readingProblem, round1 } from "./rules";
+
+export async function loadHourLog(access: Access, vessel: VesselRef, now = new Date()): Promise<HourLogView> {
+  const db = getDb();
+  const scope = and(eq(counter.companyId, access.company.id), eq(counter.vesselId, vessel.id), isNull(counter.retiredAt));
+  const counters = await db
+    .select({
+      id: counter.id,
+      name: counter.name,
+      segment: counter.currentSegment,
+      plannedHoursPerDay: counter.plannedHoursPerDay,
+      runningRate: counter.runningRate,
+      rateBasis: counter.rateBasis,
+      lastAt: sql<Date | null>`last.read_at`,
+      lastMeter: sql<string | null>`last.meter_value`,
+      lastTotal: sql<string | null>`last.total_hours`,
+      lastBy: sql<string | null>`last.entered_by_name`,
+    })
+    .from(counter)
+    .leftJoin(
+      sql`lateral (
+        select r.read_at, r.meter_value, r.total_hours, u.name as entered_by_name
+        from ${reading} r left join ${user} u on u.id = r.entered_by
+        where r.company_id = ${counter.companyId} and r.counter_id = ${counter.id} and r.segment = ${counter.currentSegment}
+        order by r.read_at desc limit 1
+      ) last`,
+      sql`true`,
+    )
+    .where(scope)
+    .orderBy(asc(counter.sortOrder), asc(counter.name));
+
+  const users = await db
+    .select({ counterId: component.counterId, code: component.code, name: component.name })
+    .from(component)
+    .where(and(eq(component.companyId, access.company.id), eq(component.vesselId, vessel.id)))
+    .orderBy(asc(component.code));
+
+  return {
+    vessel: { id: vessel.id, name: vessel.name, code: vessel.code, timeZone: vessel.timeZone },
+    now: now.toISOString(),
+    canWrite: can(access.role, "readings:write"),
+    counters: counters.map((c) => ({
+      id: c.id,
+      name: c.name,
+      segment: c.segment,
+      plannedHoursPerDay: c.plannedHoursPerDay,
+      rate: c.runningRate === null ? null : { hoursPerDay: c.runningRate, basis: c.rateBasis ?? "planned" },
+      components: users.filter((u) => u.counterId === c.id).map(({ code, name }) => ({ code, name })),
+      last:
+        c.lastAt === null
+          ? null
+          : {
+              readAt: new Date(c.lastAt).toISOString(),
+              meterValue: Number(c.lastMeter),
+              totalHours: Number(c.lastTotal),
+              enteredBy: c.lastBy,
+            },
+    })),
+  };
+}
+
+type NeighbourRow = {
+  id: string;
+  name: string;
+  segment: number;
+  started_at: Date | null;
+  start_meter: string | null;
+  offset_hours: string | null;
+  prev_at: Date | null;
+  prev_meter: string | null;
+  next_at: Date | null;
+  next_meter: string | null;
+  same_meter: string | null;
+};
+
+/**
+ * Stores a day's readings all at once or not at all. The counters are locked for the length of
+ * the transaction, so two engineers saving at the same moment are checked one after the other.
+ */
+export async function saveReadingBatch(
+  access: Access,
+  vessel: VesselRef,
+  batch: ReadingBatch,
+  now = new Date(),
+): Promise<ReadingBatchResult> {
+  const readAt = instantOfShipTime(batch.shipDay, batch.time, vessel.timeZone);
+  if (isInFuture(readAt, now)) {
+    throw invalidInput([
+      {
+        field: "time",
+        message: `${batch.shipDay} ${batch.time} ship's time is in the future: the ship's day is ${shipDay(now, vessel.timeZone)}.`,
+      },
+    ]);
+  }
+
+  const errors: FieldError[] = [];
+  const seen = new Map<string, number>();
+  batch.entries.forEach((entry, row) => {
+    const first = seen.get(entry.counterId);
+    if (first !== undefined) {
+      errors.push({ field: `entries.${row}.counterId`, row, message: `This counter is already entered in row ${first + 1}.` });
+    } else seen.set(entry.counterId, row);
+  });
+  if (errors.length) throw invalidInput(errors);
+
+  const ids = batch.entries.map((e) => e.counterId);
+  return getDb().transaction(async (tx) => {
+    const owned = await tx
+      .select({ id: counter.id })
+      .from(counter)
+      .where(
+        and(
+          eq(counter.companyId, access.company.id),
+          eq(counter.vesselId, vessel.id),
+          isNull(counter.retiredAt),
+          inArray(counter.id, ids),
+        ),
+      )
+      .orderBy(counter.id)
+      .for("update");
+    const ownedIds = new Set(owned.map((o) => o.id));
+
+    const context = ownedIds.size
+      ? await tx.execute<NeighbourRow>(sql`
+          select c.id, c.name, c.current_segment as segment,
+                 s.started_at, s.start_meter, s.offset_hours,
+                 p.read_at as prev_at, p.meter_value as prev_meter,
+                 n.read_at as next_at, n.meter_value as next_meter,
+                 e.meter_value as same_meter
+          from ${counter} c
+          left join counter_segment s on s.counter_id = c.id and s.segment = c.current_segment
+          left join lateral (select read_at, meter_value from ${reading} r
+                             where r.counter_id = c.id and r.segment = c.current_segment and r.read_at < ${readAt}
+                             order by r.read_at desc limit 1) p on true
+          left join lateral (select read_at, meter_value from ${reading} r
+                             where r.counter_id = c.id and r.segment = c.current_segment and r.read_at > ${readAt}
+                             order by r.read_at asc limit 1) n on true
+          left join lateral (select meter_value from ${reading} r
+                             where r.counter_id = c.id and r.read_at = ${readAt} limit 1) e on true
+          where c.company_id = ${access.company.id} and c.id in ${[...ownedIds]}
+        `)
+      : { rows: [] as NeighbourRow[] };
+    const byId = new Map(context.rows.map((r) => [r.id, r]));
+
+    const rows: (typeof reading.$inferInsert)[] = [];
+    batch.entries.forEach((entry, row) => {
+      const c = byId.get(entry.counterId);
+      if (!c) {
+        errors.push({ field: `entries.${row}.counterId`, row, message: `There is no such counter on ${vessel.name}.` });
+        return;
+      }
+      const segmentStart =
+        c.started_at && c.segment > 1 ? { readAt: new Date(c.started_at), meterValue: Number(c.start_meter) } : null;
+      const previous = c.prev_at ? { readAt: new Date(c.prev_at), meterValue: Number(c.prev_meter) } : segmentStart;
+      const problem = readingProblem(
+        {
+          name: c.name,
+          segmentStartedAt: c.segment > 1 && c.started_at ? new Date(c.started_at) : null,
+          previous,
+          next: c.next_at ? { readAt: new Date(c.next_at), meterValue: Number(c.next_meter) } : null,
+          existingAtSameInstant: c.same_meter !== null ? { readAt, meterValue: Number(c.same_meter) } : null,
+        },
+        entry.value,
+        readAt,
+        vessel.timeZone,
+      );
+      if (problem) {
+        errors.push({ field: `entries.${row}.value`, row, message: `${c.name}: ${problem}` });
+        return;
+      }
+      rows.push({
+        companyId: access.company.id,
+        vesselId: vessel.id,
+        counterId: c.id,
+        readAt,
+        segment: c.segment,
+        meterValue: entry.value,
+        totalHours: round1(entry.value + Number(c.offset_hours ?? 0)),
+        enteredBy: access.user.id,
+        remark: entry.remark || null,
+      });
+    });
+    if (errors.length) throw invalidInput(errors);
+
+    await tx.insert(reading).values(rows);
+    return { saved: rows.length, readAt: readAt.toISOString() };
+  });
+}
+
+export async function readingHistory(
+  access: Access,
+  vessel: VesselRef,
+  counterId: string,
+  days: number,
+  now = new Date(),
+): Promise<ReadingHistory> {
+  const db = getDb();
+  const [found] = await db
+    .select({ id: counter.id, name: counter.name })
+    .from(counter)
+    .where(and(eq(counter.companyId, access.company.id), eq(counter.vesselId, vessel.id), eq(counter.id, counterId)));
+  if (!found) throw new AppError("not-found", "There is no such counter on this vessel.");
+
+  const since = new Date(now.getTime() - days * 86_400_000);
+  // One reading before the window, so the first day of the window has a difference to show.
+  const [before] = await db
+    .select()
+    .from(reading)
+    .where(and(eq(reading.companyId, access.company.id), eq(reading.counterId, counterId), sql`${reading.readAt} < ${since}`))
+    .orderBy(sql`${reading.readAt} desc`)
+    .limit(1);
+  const inWindow = await db
+    .select()
+    .from(reading)
+    .where(and(eq(reading.companyId, access.company.id), eq(reading.counterId, counterId), gte(reading.readAt, since)))
+    .orderBy(asc(reading.readAt));
+  const all = before ? [before, ...inWindow] : inWindow;
+  const sinceDay = shipDay(since, vessel.timeZone);
+
+  return {
+    counter: found,
+    readings: inWindow.map((r) => ({
+      readAt: r.readAt.toISOString(),
+      shipDay: shipDay(r.readAt, vessel.timeZone),
+      meterValue: r.meterValue,
+      totalHours: r.totalHours,
+      segment: r.segment,
+    })),
+    daily: dailyRunningHours(all, vessel.timeZone).filter((d) => d.day >= sinceDay),
+  };
+}

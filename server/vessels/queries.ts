@@ -1,0 +1,41 @@
+import "server-only";
+import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { counter, reading, vessel } from "@/db/schema";
+import type { Access } from "@/server/auth/access";
+
+export type VesselSummary = {
+  id: string;
+  name: string;
+  code: string;
+  imoNumber: string;
+  timeZone: string;
+  counters: number;
+  lastReadingAt: Date | null;
+};
+
+/** The vessels the signed-in user may open, with when each last reported hours. */
+export async function listAccessibleVessels(access: Access): Promise<VesselSummary[]> {
+  if (access.assignedVesselIds?.length === 0) return [];
+  const db = getDb();
+  const rows = await db
+    .select({
+      id: vessel.id,
+      name: vessel.name,
+      code: vessel.code,
+      imoNumber: vessel.imoNumber,
+      timeZone: vessel.timeZone,
+      counters: sql<number>`(select count(*)::int from ${counter} c where c.company_id = ${vessel.companyId} and c.vessel_id = ${vessel.id} and c.retired_at is null)`,
+      lastReadingAt: sql<string | null>`(select max(r.read_at) from ${reading} r where r.company_id = ${vessel.companyId} and r.vessel_id = ${vessel.id})`,
+    })
+    .from(vessel)
+    .where(
+      and(
+        eq(vessel.companyId, access.company.id),
+        isNull(vessel.retiredAt),
+        access.assignedVesselIds ? inArray(vessel.id, access.assignedVesselIds) : undefined,
+      ),
+    )
+    .orderBy(asc(vessel.name));
+  return rows.map((r) => ({ ...r, lastReadingAt: r.lastReadingAt ? new Date(r.lastReadingAt) : null }));
+}

@@ -1,0 +1,84 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { shipClock, shipDay } from "@/server/format/hours";
+import type { Problem } from "@/server/http/problem";
+import type { HourLogView } from "@/server/readings/contract";
+import { closeTestDb, createCompany, type Fixture, PASSWORD } from "../support/fixtures";
+import { api, type Session, signIn } from "../support/http";
+
+let one: Fixture;
+let two: Fixture;
+const sessions: Record<string, Session> = {};
+
+beforeAll(async () => {
+  [one, two] = await Promise.all([createCompany("access-one"), createCompany("access-two")]);
+  for (const role of ["admin", "superintendent", "chief-engineer", "engineer", "viewer"] as const) {
+    sessions[role] = await signIn(one.users[role].email, PASSWORD);
+  }
+});
+afterAll(closeTestDb);
+
+/** Every route handler of the app but better-auth's own, with a valid-looking request. */
+function routes(f: Fixture) {
+  return [
+    { method: "GET", path: `/api/vessels/${f.vesselA.id}/hour-log` },
+    { method: "GET", path: `/api/vessels/${f.vesselA.id}/readings?counterId=${f.counters.main.id}` },
+    { method: "POST", path: `/api/vessels/${f.vesselA.id}/readings`, body: { shipDay: "2026-01-01", time: "09:00", entries: [] } },
+  ];
+}
+
+describe("every route handler refuses anonymous calls", () => {
+  it("with 401 and a problem document", async () => {
+    for (const r of routes(one)) {
+      const res = await api<Problem>(null, r.method, r.path, r.body);
+      expect(res.status, `${r.method} ${r.path}`).toBe(401);
+      expect(res.body.title).toBe("Sign in required");
+    }
+  });
+});
+
+describe("company isolation: another company's ids are not found", () => {
+  it.each(["admin", "superintendent", "chief-engineer", "engineer", "viewer"])("for the %s", async (role) => {
+    for (const r of routes(two)) {
+      const res = await api<Problem>(sessions[role]!, r.method, r.path, r.body);
+      expect(res.status, `${role} ${r.method} ${r.path}`).toBe(404);
+    }
+  });
+});
+
+describe("vessel assignments and roles", () => {
+  it("seagoing users see only their assigned vessel", async () => {
+    for (const role of ["chief-engineer", "engineer", "viewer"]) {
+      const a = await api(sessions[role]!, "GET", `/api/vessels/${one.vesselA.id}/hour-log`);
+      const b = await api(sessions[role]!, "GET", `/api/vessels/${one.vesselB.id}/hour-log`);
+      expect([role, a.status, b.status]).toEqual([role, 200, 404]);
+    }
+  });
+
+  it("office roles see every vessel of the company", async () => {
+    for (const role of ["admin", "superintendent"]) {
+      const b = await api<HourLogView>(sessions[role]!, "GET", `/api/vessels/${one.vesselB.id}/hour-log`);
+      expect(b.status).toBe(200);
+      expect(b.body.canWrite).toBe(false);
+    }
+  });
+
+  it("only engineers and chief engineers write readings", async () => {
+    const now = new Date();
+    const batch = (value: number) => ({
+      shipDay: shipDay(now, one.vesselA.timeZone),
+      time: shipClock(now, one.vesselA.timeZone),
+      entries: [{ counterId: one.counters.gen.id, value }],
+    });
+    for (const role of ["viewer", "superintendent", "admin"]) {
+      const res = await api<Problem>(sessions[role]!, "POST", `/api/vessels/${one.vesselA.id}/readings`, batch(505));
+      expect([role, res.status]).toEqual([role, 403]);
+    }
+    const chief = await api(sessions["chief-engineer"]!, "POST", `/api/vessels/${one.vesselA.id}/readings`, batch(505));
+    expect(chief.status).toBe(201);
+  });
+
+  it("pages send anonymous visitors to sign in", async () => {
+    const res = await api(null, "GET", `/vessels/${one.vesselA.id}/hour-log`);
+    expect(res.status).toBe(307);
+  });
+});
