@@ -5,7 +5,7 @@ const config = [
   ...nextVitals,
   ...nextTs,
   {
-    ignores: [".next/**", ".next-test/**", "node_modules/**", ".data/**", "test-output/**", "bench-output/**", "drizzle/**", "next-env.d.ts"],
+    ignores: [".next/**", ".next-*/**", "node_modules/**", ".data/**", "test-output/**", "bench-output/**", "drizzle/**", "next-env.d.ts"],
   },
   {
     rules: {

@@ -18,9 +18,9 @@ export BETTER_AUTH_URL="$KEELSON_TEST_URL"
 export BETTER_AUTH_SECRET="$(node -e 'console.log(require("crypto").randomBytes(32).toString("hex"))')"
 export KEELSON_DEMO=1
 export KEELSON_AUTH_RATE_LIMIT=off
-export KEELSON_DIST_DIR=".next-test"
+export KEELSON_DIST_DIR="${KEELSON_DIST_DIR:-.next-test}"
 export KEELSON_CRON_MONITOR_SECONDS=2
-export TEST_OUTPUT="$ROOT/test-output"
+export TEST_OUTPUT="${TEST_OUTPUT:-$ROOT/test-output}"
 export NODE_ENV=production
 
 rm -rf "$TEST_OUTPUT"; mkdir -p "$TEST_OUTPUT"
