@@ -11,6 +11,7 @@ export BETTER_AUTH_URL="${BETTER_AUTH_URL:-http://127.0.0.1:$PORT}"
 export KEELSON_DEMO="${KEELSON_DEMO:-1}"
 export NODE_ENV=production
 
+require_free_port "$PORT"
 ensure_node_modules
 ensure_postgres_installed
 pg_up dev "$PGPORT" keelson keelson keelson

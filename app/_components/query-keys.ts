@@ -5,4 +5,6 @@ export const queryKeys = {
     ["vessel", vesselId, "readings", counterId, days] as const,
   readings: (vesselId: string) => ["vessel", vesselId, "readings"] as const,
   register: (vesselId: string) => ["vessel", vesselId, "register"] as const,
+  adminVessels: () => ["admin", "vessels"] as const,
+  adminPeople: () => ["admin", "people"] as const,
 };

@@ -43,6 +43,18 @@ describe("dailyRunningHours (worked examples computed by hand)", () => {
     ]);
   });
 
+  it("a 23-hour ship's day gets at most 23 h (Amsterdam, summer time starts 29 Mar 2026)", () => {
+    // Local midnights 28 Mar (27 Mar 23:00Z) to 30 Mar (29 Mar 22:00Z): 47 h elapsed, ran all of it.
+    const days = dailyRunningHours(
+      [at("2026-03-27T23:00:00Z", 0), at("2026-03-29T22:00:00Z", 47)],
+      "Europe/Amsterdam",
+    );
+    expect(days).toEqual([
+      { day: "2026-03-28", hours: 24 },
+      { day: "2026-03-29", hours: 23 },
+    ]);
+  });
+
   it("gives nothing for a single reading", () => {
     expect(dailyRunningHours([at("2026-03-01T00:00:00Z", 5)], "UTC")).toEqual([]);
   });

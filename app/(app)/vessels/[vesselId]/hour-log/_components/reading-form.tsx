@@ -92,10 +92,14 @@ export function ReadingForm({ view, onShowChart }: Props) {
           <label htmlFor="time" className="label">
             Ship’s time
           </label>
+          {/* A text field, not type=time: the ship's clock is always 24-hour, whatever the tablet's locale. */}
           <input
             id="time"
-            type="time"
-            className="field w-28"
+            inputMode="numeric"
+            placeholder="HH:MM"
+            maxLength={5}
+            autoComplete="off"
+            className="field w-24 tabular-nums"
             aria-invalid={formState.errors.time ? true : undefined}
             {...register("time")}
           />

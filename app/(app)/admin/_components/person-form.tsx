@@ -1,0 +1,153 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { Controller, useForm, useWatch } from "react-hook-form";
+import type { AdminPerson, AdminVessel } from "@/server/admin/contract";
+import { ROLE_LABEL, ROLES, seesWholeFleet } from "@/server/auth/roles";
+import { describedBy, Field } from "./field";
+import { showProblem } from "./form-problem";
+import { EditPersonForm, NewPersonForm, PERSON_FIELDS, type PersonFormInput, type PersonFormValues, randomPassword } from "./person-form-schema";
+import { useCreatePerson, useUpdatePerson } from "./use-admin";
+
+type Props = { person?: AdminPerson; vessels: AdminVessel[]; onDone: (message: string) => void };
+
+export function PersonForm({ person, vessels, onDone }: Props) {
+  const create = useCreatePerson();
+  const update = useUpdatePerson();
+  const [problem, setProblem] = useState<string | null>(null);
+  const { register, handleSubmit, formState, setError, setValue, control } = useForm<PersonFormInput, unknown, PersonFormValues>({
+    resolver: zodResolver(person ? EditPersonForm : NewPersonForm),
+    defaultValues: {
+      name: person?.name ?? "",
+      email: person?.email ?? "",
+      role: person?.role ?? "engineer",
+      rank: person?.rank ?? "",
+      vesselIds: person?.vessels.map((v) => v.id) ?? [],
+      initialPassword: "",
+    },
+  });
+  const { errors, isSubmitting } = formState;
+  const role = useWatch({ control, name: "role" });
+  // Retired vessels are offered only where the person is still assigned to one.
+  const offered = vessels.filter((v) => !v.retiredAt || person?.vessels.some((pv) => pv.id === v.id));
+
+  async function onSubmit({ initialPassword, email, ...values }: PersonFormValues) {
+    setProblem(null);
+    try {
+      if (person) {
+        const saved = await update.mutateAsync({ id: person.id, changes: values });
+        onDone(`${saved.name} saved.`);
+      } else {
+        const saved = await create.mutateAsync({ ...values, email, initialPassword });
+        onDone(`${saved.name} added. Hand over the initial password in person or by phone, never in the same e-mail as the address.`);
+      }
+    } catch (error) {
+      setProblem(showProblem(error, setError, PERSON_FIELDS));
+    }
+  }
+
+  return (
+    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+      <Field id="person-name" label="Name" error={errors.name?.message}>
+        <input id="person-name" className="field" autoComplete="off" {...describedBy("person-name", errors.name?.message)} {...register("name")} />
+      </Field>
+      {person ? (
+        <div>
+          <p className="label">E-mail</p>
+          <p className="py-1.5">{person.email}</p>
+        </div>
+      ) : (
+        <Field id="person-email" label="E-mail" error={errors.email?.message} hint="They sign in with this address.">
+          <input id="person-email" type="email" className="field" autoComplete="off" {...describedBy("person-email", errors.email?.message)} {...register("email")} />
+        </Field>
+      )}
+      <div className="grid grid-cols-2 gap-3">
+        <Field id="person-role" label="Role" error={errors.role?.message}>
+          <select id="person-role" className="field" {...describedBy("person-role", errors.role?.message)} {...register("role")}>
+            {ROLES.map((r) => (
+              <option key={r} value={r}>
+                {ROLE_LABEL[r]}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <Field id="person-rank" label="Rank (optional)" error={errors.rank?.message} hint="e.g. Second engineer">
+          <input id="person-rank" className="field" autoComplete="off" {...describedBy("person-rank", errors.rank?.message)} {...register("rank")} />
+        </Field>
+      </div>
+
+      <fieldset aria-describedby="person-vessels-message">
+        <legend className="label">Vessels</legend>
+        <p id="person-vessels-message" className={errors.vesselIds ? "field-error mt-0 mb-1.5" : "mb-1.5 text-xs text-ink-500 dark:text-ink-400"}>
+          {errors.vesselIds?.message ??
+            (seesWholeFleet(role) ? `A ${ROLE_LABEL[role].toLowerCase()} sees every vessel; ticks here are kept for later.` : "They see only the vessels ticked here.")}
+        </p>
+        <Controller
+          control={control}
+          name="vesselIds"
+          render={({ field }) => (
+            <ul className="grid max-h-56 gap-0.5 overflow-y-auto rounded-md border border-ink-200 p-2 dark:border-ink-800">
+              {offered.length === 0 && <li className="text-ink-500">No vessels yet.</li>}
+              {offered.map((v) => (
+                <li key={v.id}>
+                  <label className="flex items-center gap-2 rounded px-1 py-0.5 hover:bg-ink-50 dark:hover:bg-ink-850">
+                    <input
+                      type="checkbox"
+                      className="h-4 w-4 accent-tide-600"
+                      checked={field.value.includes(v.id)}
+                      onChange={(e) => field.onChange(e.target.checked ? [...field.value, v.id] : field.value.filter((id) => id !== v.id))}
+                    />
+                    <span className="font-medium">{v.name}</span>
+                    <span className="font-mono text-xs text-ink-500">{v.code}</span>
+                    {v.retiredAt && <span className="text-xs text-ink-500">retired</span>}
+                  </label>
+                </li>
+              ))}
+            </ul>
+          )}
+        />
+      </fieldset>
+
+      {!person && (
+        <Field id="person-initialPassword" label="Initial password" error={errors.initialPassword?.message}>
+          <div className="flex gap-2">
+            <input
+              id="person-initialPassword"
+              type="text"
+              spellCheck={false}
+              autoComplete="new-password"
+              className="field font-mono"
+              {...describedBy("person-initialPassword", errors.initialPassword?.message)}
+              {...register("initialPassword")}
+            />
+            <button type="button" className="btn-quiet shrink-0" onClick={() => setValue("initialPassword", randomPassword(), { shouldValidate: true })}>
+              Suggest
+            </button>
+          </div>
+          <PasswordNote />
+        </Field>
+      )}
+
+      {problem && (
+        <p role="alert" className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300">
+          {problem}
+        </p>
+      )}
+      <div>
+        <button type="submit" className="btn-primary" disabled={isSubmitting}>
+          {isSubmitting ? "Saving…" : person ? "Save" : "Add person"}
+        </button>
+      </div>
+    </form>
+  );
+}
+
+export function PasswordNote() {
+  return (
+    <p className="mt-1.5 rounded-md border border-brass-300 bg-brass-100/60 px-2.5 py-1.5 text-xs text-ink-800 dark:border-brass-700 dark:bg-brass-700/20 dark:text-ink-100">
+      At least 10 characters. Hand it over securely: in person, by phone or through the ship’s master, never in an e-mail to
+      the same address. Keelson does not show it again.
+    </p>
+  );
+}

@@ -1,0 +1,75 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useMemo, useState } from "react";
+import { useForm, useWatch } from "react-hook-form";
+import type { z } from "zod";
+import { ComponentMove, type RegisterComponent, type RegisterView } from "@/server/register/contract";
+import { buildTree, descendantIds, inTreeOrder } from "@/server/register/tree";
+import { inheritedUnder, lookupOf } from "./counter-words";
+import { describedBy, FormField, FormFooter } from "./form-parts";
+import { showProblem } from "./form-problem";
+import { useChangeComponent } from "./use-register";
+
+type Values = z.input<typeof ComponentMove>;
+type Output = z.output<typeof ComponentMove>;
+
+type Props = { view: RegisterView; component: RegisterComponent; onDone: (message: string) => void; onCancel: () => void };
+
+export function MoveForm({ view, component, onDone, onCancel }: Props) {
+  const lookup = lookupOf(view);
+  const move = useChangeComponent(view.vessel.id);
+  const [problem, setProblem] = useState<string | null>(null);
+  // A component cannot go under itself or under one of its own parts: those are not offered.
+  const choices = useMemo(() => {
+    const below = descendantIds(view.components, component.id);
+    return inTreeOrder(buildTree(view.components)).filter((n) => n.row.id !== component.id && !below.has(n.row.id));
+  }, [view.components, component.id]);
+  const { register, handleSubmit, formState, setError, control } = useForm<Values, unknown, Output>({
+    resolver: zodResolver(ComponentMove),
+    defaultValues: { parentId: component.parentId },
+  });
+  const parentId = useWatch({ control, name: "parentId" }) ?? null;
+  const below = descendantIds(view.components, component.id).size;
+
+  async function onSubmit(values: Output) {
+    setProblem(null);
+    const to = values.parentId ? lookup.components.get(values.parentId)?.code : null;
+    try {
+      await move.mutateAsync({ id: component.id, change: { parentId: values.parentId } });
+      onDone(`${component.code} moved ${to ? `under ${to}` : "to the top level"}.`);
+    } catch (error) {
+      setProblem(showProblem(error, setError, ["parentId"]));
+    }
+  }
+
+  const counterAfter = component.counterId
+    ? `It keeps its own counter, ${lookup.counters.get(component.counterId)?.name ?? "as it is"}.`
+    : `It will use ${inheritedUnder(parentId, lookup)}.`;
+
+  return (
+    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+      <p className="text-ink-600 dark:text-ink-300">
+        Moves <span className="font-mono font-semibold">{component.code}</span> {component.name}
+        {below ? ` with the ${below} component${below === 1 ? "" : "s"} below it` : ""}. Codes stay as they are.
+      </p>
+      <FormField id="move-parent" label="New place" hint={counterAfter} error={formState.errors.parentId?.message}>
+        <select
+          autoFocus
+          className="field font-mono"
+          {...describedBy("move-parent", formState.errors.parentId?.message, true)}
+          {...register("parentId", { setValueAs: (v: string | null) => v || null })}
+        >
+          <option value="">Top level of the register</option>
+          {choices.map((n) => (
+            <option key={n.row.id} value={n.row.id}>
+              {"\u00a0\u00a0".repeat(n.depth + 1)}
+              {n.row.code} · {n.row.name}
+            </option>
+          ))}
+        </select>
+      </FormField>
+      <FormFooter submitLabel="Move component" busyLabel="Moving…" busy={formState.isSubmitting} problem={problem} onCancel={onCancel} />
+    </form>
+  );
+}

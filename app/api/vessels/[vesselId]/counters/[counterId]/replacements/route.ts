@@ -1,0 +1,14 @@
+import { requestRecompute } from "@/server/jobs";
+import { withAccess } from "@/server/http/with-access";
+import { MeterReplacementInput } from "@/server/register/contract";
+import { replaceMeter } from "@/server/register/counters";
+
+/** Records a new hour meter on the counter: a new segment whose offset keeps the total continuous. */
+export const POST = withAccess(
+  { permission: "register:edit", vessel: true, body: MeterReplacementInput },
+  async ({ access, vessel, params, body }) => {
+    const result = await replaceMeter(access, vessel, params.counterId ?? "", body);
+    await requestRecompute(access.company.id, vessel.id);
+    return Response.json(result, { status: 201 });
+  },
+);

@@ -1,0 +1,17 @@
+#!/usr/bin/env bash
+# npm run bench: a benchmark, not a test. Starts a throwaway stack, generates a vessel, times the
+# route handlers against a bare SELECT of the same rows, and writes bench-output/results.{json,md}.
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+ensure_node_modules
+ensure_postgres_installed
+stack_env bench
+export KEELSON_DEMO=0
+mkdir -p bench-output
+trap stack_stop EXIT
+trap 'exit 130' INT TERM
+
+stack_database
+stack_start_app bench-output
+node_modules/.bin/tsx --conditions=react-server scripts/bench/run.ts
