@@ -31,7 +31,7 @@ export async function loadHourLog(access: Access, vessel: VesselRef, now = new D
       sql`lateral (
         select r.read_at, r.meter_value, r.total_hours, u.name as entered_by_name
         from ${reading} r left join ${user} u on u.id = r.entered_by
-        where r.company_id = ${counter.companyId} and r.counter_id = ${counter.id} and r.segment = ${counter.currentSegment}
+        where r.company_id = "counter"."company_id" and r.counter_id = "counter"."id" and r.segment = "counter"."current_segment"
         order by r.read_at desc limit 1
       ) last`,
       sql`true`,

@@ -25,8 +25,10 @@ export async function listAccessibleVessels(access: Access): Promise<VesselSumma
       code: vessel.code,
       imoNumber: vessel.imoNumber,
       timeZone: vessel.timeZone,
-      counters: sql<number>`(select count(*)::int from ${counter} c where c.company_id = ${vessel.companyId} and c.vessel_id = ${vessel.id} and c.retired_at is null)`,
-      lastReadingAt: sql<string | null>`(select max(r.read_at) from ${reading} r where r.company_id = ${vessel.companyId} and r.vessel_id = ${vessel.id})`,
+      // Qualified by hand: in a single-table select drizzle leaves column names unqualified, and
+      // inside the subquery they would then bind to the subquery's own table.
+      counters: sql<number>`(select count(*)::int from ${counter} c where c.company_id = "vessel"."company_id" and c.vessel_id = "vessel"."id" and c.retired_at is null)`,
+      lastReadingAt: sql<string | null>`(select max(r.read_at) from ${reading} r where r.company_id = "vessel"."company_id" and r.vessel_id = "vessel"."id")`,
     })
     .from(vessel)
     .where(

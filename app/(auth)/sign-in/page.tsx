@@ -20,23 +20,8 @@ export default async function SignInPage() {
         </div>
       </div>
       <div className="panel p-6">
-        <SignInForm />
+        <SignInForm demo={demo} />
       </div>
-      {demo && (
-        <section aria-labelledby="demo-heading" className="mt-6 text-ink-600 dark:text-ink-300">
-          <h2 id="demo-heading" className="label">
-            Demo sign-ins · password <code className="font-mono normal-case">{demo.password}</code>
-          </h2>
-          <ul className="grid gap-0.5">
-            {demo.users.map((u) => (
-              <li key={u.email} className="flex justify-between gap-3">
-                <code className="font-mono">{u.email}</code>
-                <span>{u.label}</span>
-              </li>
-            ))}
-          </ul>
-        </section>
-      )}
     </main>
   );
 }

@@ -13,10 +13,12 @@ const SignInInput = z.object({
 });
 type SignInInput = z.infer<typeof SignInInput>;
 
-export function SignInForm() {
+type Demo = { password: string; users: { email: string; label: string }[] } | null;
+
+export function SignInForm({ demo }: { demo: Demo }) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(SignInInput) });
+  const { register, handleSubmit, formState, setValue } = useForm<SignInInput>({ resolver: zodResolver(SignInInput) });
   const { errors, isSubmitting } = formState;
 
   async function onSubmit(values: SignInInput) {
@@ -35,6 +37,7 @@ export function SignInForm() {
   }
 
   return (
+    <>
     <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
       <div>
         <label htmlFor="email" className="label">
@@ -84,5 +87,31 @@ export function SignInForm() {
         {isSubmitting ? "Signing in…" : "Sign in"}
       </button>
     </form>
+      {demo && (
+        <section aria-labelledby="demo-heading" className="mt-6 border-t border-ink-200 pt-4 dark:border-ink-800">
+          <h2 id="demo-heading" className="label">
+            Demo sign-ins · password <code className="font-mono normal-case">{demo.password}</code>
+          </h2>
+          <p className="mb-2 text-xs text-ink-500">Pick one to fill in the form.</p>
+          <ul className="grid gap-0.5">
+            {demo.users.map((u) => (
+              <li key={u.email}>
+                <button
+                  type="button"
+                  className="flex w-full justify-between gap-3 rounded px-1 py-0.5 text-left hover:bg-ink-100 dark:hover:bg-ink-800"
+                  onClick={() => {
+                    setValue("email", u.email, { shouldValidate: true });
+                    setValue("password", demo.password, { shouldValidate: true });
+                  }}
+                >
+                  <code className="font-mono">{u.email}</code>
+                  <span className="text-ink-600 dark:text-ink-300">{u.label}</span>
+                </button>
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
+    </>
   );
 }
