@@ -38,55 +38,58 @@ export function SignInForm({ demo }: { demo: Demo }) {
 
   return (
     <>
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
-      <div>
-        <label htmlFor="email" className="label">
-          E-mail
-        </label>
-        <input
-          id="email"
-          type="email"
-          autoComplete="username"
-          autoFocus
-          className="field"
-          aria-invalid={errors.email ? true : undefined}
-          aria-describedby={errors.email ? "email-error" : undefined}
-          {...register("email")}
-        />
-        {errors.email && (
-          <p id="email-error" className="field-error">
-            {errors.email.message}
+      <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+        <div>
+          <label htmlFor="email" className="label">
+            E-mail
+          </label>
+          <input
+            id="email"
+            type="email"
+            autoComplete="username"
+            autoFocus
+            className="field"
+            aria-invalid={errors.email ? true : undefined}
+            aria-describedby={errors.email ? "email-error" : undefined}
+            {...register("email")}
+          />
+          {errors.email && (
+            <p id="email-error" className="field-error">
+              {errors.email.message}
+            </p>
+          )}
+        </div>
+        <div>
+          <label htmlFor="password" className="label">
+            Password
+          </label>
+          <input
+            id="password"
+            type="password"
+            autoComplete="current-password"
+            className="field"
+            aria-invalid={errors.password ? true : undefined}
+            aria-describedby={errors.password ? "password-error" : undefined}
+            {...register("password")}
+          />
+          {errors.password && (
+            <p id="password-error" className="field-error">
+              {errors.password.message}
+            </p>
+          )}
+        </div>
+        {failure && (
+          <p
+            role="alert"
+            className="rounded-md bg-alarm-50 px-3 py-2 text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
+          >
+            {failure}
           </p>
         )}
-      </div>
-      <div>
-        <label htmlFor="password" className="label">
-          Password
-        </label>
-        <input
-          id="password"
-          type="password"
-          autoComplete="current-password"
-          className="field"
-          aria-invalid={errors.password ? true : undefined}
-          aria-describedby={errors.password ? "password-error" : undefined}
-          {...register("password")}
-        />
-        {errors.password && (
-          <p id="password-error" className="field-error">
-            {errors.password.message}
-          </p>
-        )}
-      </div>
-      {failure && (
-        <p role="alert" className="rounded-md bg-alarm-50 px-3 py-2 text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300">
-          {failure}
-        </p>
-      )}
-      <button type="submit" className="btn-primary w-full py-2" disabled={isSubmitting}>
-        {isSubmitting ? "Signing in…" : "Sign in"}
-      </button>
-    </form>
+        <button type="submit" className="btn-primary w-full py-2" disabled={isSubmitting}>
+          {isSubmitting ? "Signing in…" : "Sign in"}
+        </button>
+      </form>
       {demo && (
         <section aria-labelledby="demo-heading" className="mt-6 border-t border-ink-200 pt-4 dark:border-ink-800">
           <h2 id="demo-heading" className="label">
