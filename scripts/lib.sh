@@ -143,6 +143,8 @@ stack_env() {
   export BETTER_AUTH_SECRET; BETTER_AUTH_SECRET="$(node -e 'console.log(require("crypto").randomBytes(32).toString("hex"))')"
   export KEELSON_AUTH_RATE_LIMIT=off
   export KEELSON_DIST_DIR="${KEELSON_DIST_DIR:-.next-$1}"
+  # A build left by an earlier run may hold route types of pages since removed: start clean.
+  rm -rf "$ROOT/$KEELSON_DIST_DIR"
   export KEELSON_CRON_MONITOR_SECONDS=2
   export NODE_ENV=production
 }

@@ -27,23 +27,33 @@ describe("VesselInput", () => {
 
   // Vectors from /work/shared/SOURCES.md, "IMO ship identification number": 9074728 and 9241062 are invalid.
   it.each(["9074728", "IMO 9241062"])("refuses the IMO number %s by its check digit", (imoNumber) => {
-    expect(messageFor(VesselInput.safeParse({ ...vessel, imoNumber }), "imoNumber")).toMatch(/^IMO number: The check digit does not match/);
+    expect(messageFor(VesselInput.safeParse({ ...vessel, imoNumber }), "imoNumber")).toMatch(
+      /^IMO number: the check digit does not match/,
+    );
   });
 
   it("refuses an IMO number that is not seven digits", () => {
-    expect(messageFor(VesselInput.safeParse({ ...vessel, imoNumber: "907472" }), "imoNumber")).toMatch(/exactly seven digits/);
+    expect(messageFor(VesselInput.safeParse({ ...vessel, imoNumber: "907472" }), "imoNumber")).toMatch(
+      /exactly seven digits/,
+    );
   });
 
   it.each(["A", "TOOLONG", "A-B", "ÅG"])("refuses the code %j", (code) => {
-    expect(messageFor(VesselInput.safeParse({ ...vessel, code }), "code")).toMatch(/vessel code is 2 to 6 letters or digits/);
+    expect(messageFor(VesselInput.safeParse({ ...vessel, code }), "code")).toMatch(
+      /vessel code is 2 to 6 letters or digits/,
+    );
   });
 
   it.each(["Mars/Olympus", "CET", "+05:00", "Europe", ""])("refuses the time zone %j", (timeZone) => {
-    expect(messageFor(VesselInput.safeParse({ ...vessel, timeZone }), "timeZone")).toMatch(/^Time zone: .* is not an IANA time zone/);
+    expect(messageFor(VesselInput.safeParse({ ...vessel, timeZone }), "timeZone")).toMatch(
+      /^Time zone: .* is not an IANA time zone/,
+    );
   });
 
   it("refuses a name of one letter and one of 81", () => {
-    expect(messageFor(VesselInput.safeParse({ ...vessel, name: " A " }), "name")).toMatch(/vessel name needs at least 2/);
+    expect(messageFor(VesselInput.safeParse({ ...vessel, name: " A " }), "name")).toMatch(
+      /vessel name needs at least 2/,
+    );
     expect(messageFor(VesselInput.safeParse({ ...vessel, name: "x".repeat(81) }), "name")).toMatch(/80 characters/);
   });
 

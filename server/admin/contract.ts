@@ -17,7 +17,10 @@ export const VesselName = z
 export const ImoNumber = z.string({ message: "Enter the IMO number, e.g. IMO 9074729." }).transform((raw, ctx) => {
   const problem = imoProblem(raw);
   if (problem) {
-    ctx.addIssue({ code: "custom", message: `IMO number: ${problem}` });
+    const named = /IMO number/.test(problem)
+      ? problem
+      : `IMO number: ${problem.charAt(0).toLowerCase()}${problem.slice(1)}`;
+    ctx.addIssue({ code: "custom", message: named });
     return z.NEVER;
   }
   return normaliseImo(raw);
@@ -74,7 +77,9 @@ export type VesselValues = z.output<typeof VesselInput>;
 
 export const VesselPatch = VesselInput.partial().extend({
   /** `false` returns a retired vessel to service; retiring goes through DELETE. */
-  retired: z.literal(false, { message: "A vessel is retired with DELETE; send retired: false to return it to service." }).optional(),
+  retired: z
+    .literal(false, { message: "A vessel is retired with DELETE; send retired: false to return it to service." })
+    .optional(),
 });
 export type VesselPatch = z.input<typeof VesselPatch>;
 export type VesselChanges = z.output<typeof VesselPatch>;

@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { hashPassword } from "better-auth/crypto";
 import { and, asc, eq, sql } from "drizzle-orm";
-import { getDb, type Tx } from "@/db/client";
+import { type Db, getDb, type Tx } from "@/db/client";
 import { account, membership, session, user, vessel, vesselAssignment } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
 import { AppError, invalidInput } from "@/server/http/problem";
@@ -64,14 +64,19 @@ async function assertOwnVessels(tx: Tx, companyId: string, vesselIds: string[]):
   if (errors.length) throw invalidInput(errors);
 }
 
-async function assertEmailFree(tx: Tx, email: string): Promise<void> {
+async function assertEmailFree(tx: Db | Tx, email: string): Promise<void> {
   const [taken] = await tx.select({ id: user.id }).from(user).where(eq(user.email, email)).limit(1);
   // Accounts are global (one e-mail, one sign-in), so the address may belong to another company.
-  if (taken) throw invalidInput([{ field: "email", message: `${email} already has a Keelson account; use another e-mail address.` }]);
+  if (taken)
+    throw invalidInput([
+      { field: "email", message: `${email} already has a Keelson account; use another e-mail address.` },
+    ]);
 }
 
 async function replaceAssignments(tx: Tx, companyId: string, userId: string, vesselIds: string[]): Promise<void> {
-  await tx.delete(vesselAssignment).where(and(eq(vesselAssignment.companyId, companyId), eq(vesselAssignment.userId, userId)));
+  await tx
+    .delete(vesselAssignment)
+    .where(and(eq(vesselAssignment.companyId, companyId), eq(vesselAssignment.userId, userId)));
   const unique = [...new Set(vesselIds)];
   if (unique.length) {
     await tx.insert(vesselAssignment).values(unique.map((vesselId) => ({ companyId, userId, vesselId })));
@@ -90,12 +95,16 @@ export async function createPerson(access: Access, values: UserValues): Promise<
         await assertEmailFree(tx, values.email);
         await assertOwnVessels(tx, companyId, values.vesselIds);
         // `role` is better-auth's admin-plugin column; Keelson's role lives on the membership.
-        await tx.insert(user).values({ id: userId, name: values.name, email: values.email, emailVerified: false, role: "user" });
-        await tx.insert(account).values({ id: randomUUID(), accountId: userId, providerId: "credential", userId, password: passwordHash });
+        await tx
+          .insert(user)
+          .values({ id: userId, name: values.name, email: values.email, emailVerified: false, role: "user" });
+        await tx
+          .insert(account)
+          .values({ id: randomUUID(), accountId: userId, providerId: "credential", userId, password: passwordHash });
         await tx.insert(membership).values({ companyId, userId, role: values.role, rank: values.rank ?? null });
         await replaceAssignments(tx, companyId, userId, values.vesselIds);
       }),
-    () => db.transaction((tx) => assertEmailFree(tx, values.email)),
+    () => assertEmailFree(db, values.email),
   );
   return loadCompanyPerson(access, userId);
 }
@@ -118,7 +127,12 @@ async function assertAdminRemains(tx: Tx, access: Access, userId: string, change
   if (error) throw invalidInput([error]);
 }
 
-export async function updatePerson(access: Access, userId: string, changes: UserChanges, now = new Date()): Promise<AdminPerson> {
+export async function updatePerson(
+  access: Access,
+  userId: string,
+  changes: UserChanges,
+  now = new Date(),
+): Promise<AdminPerson> {
   const companyId = access.company.id;
   await loadCompanyPerson(access, userId);
   const passwordHash = changes.newPassword ? await hashPassword(changes.newPassword) : null;
@@ -127,11 +141,15 @@ export async function updatePerson(access: Access, userId: string, changes: User
     await assertAdminRemains(tx, access, userId, changes);
     if (changes.vesselIds) await assertOwnVessels(tx, companyId, changes.vesselIds);
 
-    if (changes.name !== undefined) await tx.update(user).set({ name: changes.name, updatedAt: now }).where(eq(user.id, userId));
+    if (changes.name !== undefined)
+      await tx.update(user).set({ name: changes.name, updatedAt: now }).where(eq(user.id, userId));
     if (changes.role !== undefined || changes.rank !== undefined) {
       await tx
         .update(membership)
-        .set({ ...(changes.role ? { role: changes.role } : {}), ...(changes.rank !== undefined ? { rank: changes.rank } : {}) })
+        .set({
+          ...(changes.role ? { role: changes.role } : {}),
+          ...(changes.rank !== undefined ? { rank: changes.rank } : {}),
+        })
         .where(and(eq(membership.companyId, companyId), eq(membership.userId, userId)));
     }
     if (changes.vesselIds) await replaceAssignments(tx, companyId, userId, changes.vesselIds);
@@ -144,7 +162,10 @@ export async function updatePerson(access: Access, userId: string, changes: User
       // Signed out at once: the access door finds no session, whatever the browser still holds.
       await tx.delete(session).where(eq(session.userId, userId));
     } else if (changes.disabled === false) {
-      await tx.update(user).set({ banned: false, banReason: null, banExpires: null, updatedAt: now }).where(eq(user.id, userId));
+      await tx
+        .update(user)
+        .set({ banned: false, banReason: null, banExpires: null, updatedAt: now })
+        .where(eq(user.id, userId));
     }
 
     if (passwordHash) {
@@ -163,6 +184,8 @@ async function setPassword(tx: Tx, userId: string, passwordHash: string, now: Da
     .where(and(eq(account.userId, userId), eq(account.providerId, "credential")))
     .returning({ id: account.id });
   if (updated.length === 0) {
-    await tx.insert(account).values({ id: randomUUID(), accountId: userId, providerId: "credential", userId, password: passwordHash });
+    await tx
+      .insert(account)
+      .values({ id: randomUUID(), accountId: userId, providerId: "credential", userId, password: passwordHash });
   }
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, or, sql } from "drizzle-orm";
 import { type Db, getDb, type Tx } from "@/db/client";
 import { counter, vessel, vesselAssignment } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
@@ -19,8 +19,8 @@ export async function listCompanyVessels(access: Access, onlyId?: string): Promi
       imoNumber: vessel.imoNumber,
       timeZone: vessel.timeZone,
       retiredAt: vessel.retiredAt,
-      // Spelled `vessel.id` on purpose: in a one-table select Drizzle leaves `${vessel.id}` unqualified,
-      // and inside the subquery a bare "id" would be the counter's own id.
+      // `${vessel}.id`, not `${vessel.id}`: in a one-table select Drizzle writes the column unqualified,
+      // and inside the subquery a bare "id" is the counter's own id.
       counters: sql<number>`(select count(*)::int from ${counter} c where c.company_id = ${vessel}.company_id and c.vessel_id = ${vessel}.id and c.retired_at is null)`,
       assignedPeople: sql<number>`(select count(*)::int from ${vesselAssignment} a where a.company_id = ${vessel}.company_id and a.vessel_id = ${vessel}.id)`,
     })
@@ -38,19 +38,28 @@ async function loadCompanyVessel(access: Access, vesselId: string): Promise<Admi
 }
 
 async function assertUniqueVessel(
-  tx: Tx,
+  tx: Db | Tx,
   companyId: string,
   candidate: { code?: string; imoNumber?: string },
   selfId?: string,
 ): Promise<void> {
   if (!candidate.code && !candidate.imoNumber) return;
   const existing = await tx
-    .select({ id: vessel.id, name: vessel.name, code: vessel.code, imoNumber: vessel.imoNumber, retiredAt: vessel.retiredAt })
+    .select({
+      id: vessel.id,
+      name: vessel.name,
+      code: vessel.code,
+      imoNumber: vessel.imoNumber,
+      retiredAt: vessel.retiredAt,
+    })
     .from(vessel)
     .where(
       and(
         eq(vessel.companyId, companyId),
-        sql`(${vessel.code} = ${candidate.code ?? null} or ${vessel.imoNumber} = ${candidate.imoNumber ?? null})`,
+        or(
+          candidate.code ? eq(vessel.code, candidate.code) : undefined,
+          candidate.imoNumber ? eq(vessel.imoNumber, candidate.imoNumber) : undefined,
+        ),
       ),
     );
   const errors = duplicateVesselErrors(candidate, existing, selfId);
@@ -83,10 +92,13 @@ export async function createVessel(access: Access, values: VesselValues): Promis
     () =>
       db.transaction(async (tx) => {
         await assertUniqueVessel(tx, companyId, values);
-        const [row] = await tx.insert(vessel).values({ companyId, ...values }).returning({ id: vessel.id });
+        const [row] = await tx
+          .insert(vessel)
+          .values({ companyId, ...values })
+          .returning({ id: vessel.id });
         return row!.id;
       }),
-    () => db.transaction((tx) => assertUniqueVessel(tx, companyId, values)),
+    () => assertUniqueVessel(db, companyId, values),
   );
   return loadCompanyVessel(access, id);
 }
@@ -102,9 +114,12 @@ export async function updateVessel(access: Access, vesselId: string, changes: Ve
       () =>
         db.transaction(async (tx) => {
           await assertUniqueVessel(tx, companyId, fields, vesselId);
-          await tx.update(vessel).set(set).where(and(eq(vessel.companyId, companyId), eq(vessel.id, vesselId)));
+          await tx
+            .update(vessel)
+            .set(set)
+            .where(and(eq(vessel.companyId, companyId), eq(vessel.id, vesselId)));
         }),
-      () => db.transaction((tx) => assertUniqueVessel(tx, companyId, fields, vesselId)),
+      () => assertUniqueVessel(db, companyId, fields, vesselId),
     );
   }
   return loadCompanyVessel(access, vesselId);
@@ -115,7 +130,7 @@ export async function retireVessel(access: Access, vesselId: string, now = new D
   await getDb()
     .update(vessel)
     .set({ retiredAt: now })
-    .where(and(eq(vessel.companyId, access.company.id), eq(vessel.id, vesselId), sql`${vessel.retiredAt} is null`));
+    .where(and(eq(vessel.companyId, access.company.id), eq(vessel.id, vesselId), isNull(vessel.retiredAt)));
   return loadCompanyVessel(access, vesselId);
 }
 
@@ -128,6 +143,8 @@ export async function foreignVesselErrors(tx: Db | Tx, companyId: string, vessel
     .where(and(eq(vessel.companyId, companyId), inArray(vessel.id, vesselIds)));
   const ownedIds = new Set(owned.map((o) => o.id));
   return vesselIds.flatMap((id, i) =>
-    ownedIds.has(id) ? [] : [{ field: `vesselIds.${i}`, message: "Vessel assignments: there is no such vessel in your company." }],
+    ownedIds.has(id)
+      ? []
+      : [{ field: `vesselIds.${i}`, message: "Vessel assignments: there is no such vessel in your company." }],
   );
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { duplicateVesselErrors, type ExistingVessel, lastAdminError, suggestPassword } from "./rules";
+import { companyGaps, duplicateVesselErrors, type ExistingVessel, lastAdminError, suggestPassword } from "./rules";
 
 const fleet: ExistingVessel[] = [
   { id: "v1", name: "Aster Gale", code: "AG", imoNumber: "9074729", retiredAt: null },
@@ -23,7 +23,10 @@ describe("lastAdminError", () => {
   const alone = [{ userId: "a1", disabled: false }];
 
   it("refuses the only administrator demoting or disabling themself", () => {
-    expect(lastAdminError(alone, "a1", { role: "engineer" }, "a1")).toMatchObject({ field: "role", message: expect.stringMatching(/only active administrator/) });
+    expect(lastAdminError(alone, "a1", { role: "engineer" }, "a1")).toMatchObject({
+      field: "role",
+      message: expect.stringMatching(/only active administrator/),
+    });
     expect(lastAdminError(alone, "a1", { disabled: true }, "a1")).toMatchObject({ field: "disabled" });
   });
 
@@ -50,5 +53,28 @@ describe("suggestPassword", () => {
     const password = suggestPassword(() => [0, 1, 2, 3, 4]);
     expect(password).toBe("anchor-ballast-beacon-bilge-104");
     expect(password.length).toBeGreaterThanOrEqual(10);
+  });
+});
+
+describe("companyGaps", () => {
+  const person = { vessels: [], isYou: false, disabled: false };
+  it("finds unstaffed vessels in service, seagoing people without a vessel, and a sole administrator", () => {
+    const gaps = companyGaps(
+      [
+        { id: "v1", name: "Aster Gale", retiredAt: null, assignedPeople: 0 },
+        { id: "v2", name: "Old Bittern", retiredAt: "2025-01-01T00:00:00Z", assignedPeople: 0 },
+        { id: "v3", name: "Corran Ness", retiredAt: null, assignedPeople: 2 },
+      ],
+      [
+        { ...person, id: "a1", name: "Ines", role: "admin" },
+        { ...person, id: "a2", name: "Former", role: "admin", disabled: true },
+        { ...person, id: "s1", name: "Tomasz", role: "superintendent" },
+        { ...person, id: "e1", name: "Mika", role: "engineer" },
+        { ...person, id: "e2", name: "Jonas", role: "engineer", vessels: ["v3"] },
+      ],
+    );
+    expect(gaps.unstaffedVessels.map((v) => v.id)).toEqual(["v1"]);
+    expect(gaps.peopleWithoutVessel.map((p) => p.id)).toEqual(["e1"]);
+    expect(gaps.soleAdmin?.id).toBe("a1");
   });
 });

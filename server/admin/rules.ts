@@ -1,5 +1,5 @@
 // The company administrator's rules that need no database: pure, unit-tested beside this file.
-import type { Role } from "@/server/auth/roles";
+import { type Role, seesWholeFleet } from "@/server/auth/roles";
 import type { FieldError } from "@/server/http/problem";
 
 export type ExistingVessel = { id: string; name: string; code: string; imoNumber: string; retiredAt: Date | null };
@@ -17,10 +17,14 @@ export function duplicateVesselErrors(
   const label = (v: ExistingVessel) => (v.retiredAt ? `${v.name} (retired)` : v.name);
   const errors: FieldError[] = [];
   const sameCode = candidate.code ? others.find((v) => v.code === candidate.code) : undefined;
-  if (sameCode) errors.push({ field: "code", message: `Code ${candidate.code} is already used by ${label(sameCode)}.` });
+  if (sameCode)
+    errors.push({ field: "code", message: `Code ${candidate.code} is already used by ${label(sameCode)}.` });
   const sameImo = candidate.imoNumber ? others.find((v) => v.imoNumber === candidate.imoNumber) : undefined;
   if (sameImo) {
-    errors.push({ field: "imoNumber", message: `IMO ${candidate.imoNumber} is already registered as ${label(sameImo)}.` });
+    errors.push({
+      field: "imoNumber",
+      message: `IMO ${candidate.imoNumber} is already registered as ${label(sameImo)}.`,
+    });
   }
   return errors;
 }
@@ -57,6 +61,24 @@ export function lastAdminError(
   };
 }
 
+type VesselStaffing = { id: string; name: string; retiredAt: string | null; assignedPeople: number };
+type PersonReach = { id: string; name: string; role: Role; disabled: boolean; vessels: unknown[]; isYou: boolean };
+
+/**
+ * What an administrator usually comes to fix: a vessel in service nobody on board is assigned to
+ * (nobody can enter its Hour log), an active seagoing person who sees no vessel, and a company
+ * with a single active administrator (nobody stands in during leave).
+ */
+export function companyGaps(vessels: VesselStaffing[], people: PersonReach[]) {
+  const active = people.filter((p) => !p.disabled);
+  const admins = active.filter((p) => p.role === "admin");
+  return {
+    unstaffedVessels: vessels.filter((v) => !v.retiredAt && v.assignedPeople === 0),
+    peopleWithoutVessel: active.filter((p) => !seesWholeFleet(p.role) && p.vessels.length === 0),
+    soleAdmin: admins.length === 1 ? admins[0]! : null,
+  };
+}
+
 /** A password the administrator can read out or hand over: four short words and a three-digit number, joined by hyphens. */
 export function suggestPassword(randomInts: (count: number) => number[]): string {
   const picks = randomInts(5);
@@ -66,12 +88,80 @@ export function suggestPassword(randomInts: (count: number) => number[]): string
 
 // Plain words from the engine room and the sea, easy to spell over a radio or a bad phone line.
 const WORDS = [
-  "anchor", "ballast", "beacon", "bilge", "bollard", "bosun", "bridge", "buoy", "cable", "capstan",
-  "cargo", "channel", "coral", "crane", "current", "davit", "deck", "delta", "dock", "dune",
-  "ebb", "estuary", "fathom", "fender", "ferry", "flare", "gale", "galley", "gantry", "harbour",
-  "hatch", "helm", "hull", "inlet", "island", "jetty", "keel", "knot", "lagoon", "lantern",
-  "ledger", "lighter", "marina", "mast", "mooring", "north", "ocean", "orbit", "pier", "pilot",
-  "piston", "propeller", "quay", "reef", "rudder", "salvage", "sextant", "shoal", "signal", "sound",
-  "spray", "starboard", "stern", "strait", "swell", "tackle", "tanker", "tide", "tiller", "turbine",
-  "valve", "voyage", "wake", "winch", "wharf", "yard",
+  "anchor",
+  "ballast",
+  "beacon",
+  "bilge",
+  "bollard",
+  "bosun",
+  "bridge",
+  "buoy",
+  "cable",
+  "capstan",
+  "cargo",
+  "channel",
+  "coral",
+  "crane",
+  "current",
+  "davit",
+  "deck",
+  "delta",
+  "dock",
+  "dune",
+  "ebb",
+  "estuary",
+  "fathom",
+  "fender",
+  "ferry",
+  "flare",
+  "gale",
+  "galley",
+  "gantry",
+  "harbour",
+  "hatch",
+  "helm",
+  "hull",
+  "inlet",
+  "island",
+  "jetty",
+  "keel",
+  "knot",
+  "lagoon",
+  "lantern",
+  "ledger",
+  "lighter",
+  "marina",
+  "mast",
+  "mooring",
+  "north",
+  "ocean",
+  "orbit",
+  "pier",
+  "pilot",
+  "piston",
+  "propeller",
+  "quay",
+  "reef",
+  "rudder",
+  "salvage",
+  "sextant",
+  "shoal",
+  "signal",
+  "sound",
+  "spray",
+  "starboard",
+  "stern",
+  "strait",
+  "swell",
+  "tackle",
+  "tanker",
+  "tide",
+  "tiller",
+  "turbine",
+  "valve",
+  "voyage",
+  "wake",
+  "winch",
+  "wharf",
+  "yard",
 ] as const;

@@ -30,7 +30,9 @@ export const auth = betterAuth({
   session: {
     expiresIn: 60 * 60 * 24 * 14,
     updateAge: 60 * 60 * 24,
-    cookieCache: { enabled: true, maxAge: 60 },
+    // No cookie cache: a disabled user or an ended session must stop working on the next call,
+    // so every request looks the session up (one indexed query).
+    cookieCache: { enabled: false },
   },
   advanced: {
     useSecureCookies: baseURL.startsWith("https://"),

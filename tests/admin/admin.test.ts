@@ -20,14 +20,24 @@ afterAll(closeTestDb);
 function routes(f: Fixture) {
   return [
     { method: "GET", path: "/api/admin/vessels" },
-    { method: "POST", path: "/api/admin/vessels", body: { name: "Corran Ness", imoNumber: "9241061", code: "CN", timeZone: "UTC" } },
+    {
+      method: "POST",
+      path: "/api/admin/vessels",
+      body: { name: "Corran Ness", imoNumber: "9241061", code: "CN", timeZone: "UTC" },
+    },
     { method: "PATCH", path: `/api/admin/vessels/${f.vesselA.id}`, body: { name: "Alpha renamed" } },
     { method: "DELETE", path: `/api/admin/vessels/${f.vesselA.id}` },
     { method: "GET", path: "/api/admin/users" },
     {
       method: "POST",
       path: "/api/admin/users",
-      body: { name: "New Hand", email: `new-${randomUUID()}@fixture.example`, role: "viewer", vesselIds: [], initialPassword: "long-enough-pw" },
+      body: {
+        name: "New Hand",
+        email: `new-${randomUUID()}@fixture.example`,
+        role: "viewer",
+        vesselIds: [],
+        initialPassword: "long-enough-pw",
+      },
     },
     { method: "PATCH", path: `/api/admin/users/${f.users.viewer.id}`, body: { rank: "Cadet" } },
   ];
@@ -76,7 +86,12 @@ describe("another company's vessels and people are not found", () => {
   });
 
   it("nor are ids that exist nowhere or are malformed", async () => {
-    for (const path of [`/api/admin/users/${randomUUID()}`, "/api/admin/users/nope", `/api/admin/vessels/${randomUUID()}`, "/api/admin/vessels/nope"]) {
+    for (const path of [
+      `/api/admin/users/${randomUUID()}`,
+      "/api/admin/users/nope",
+      `/api/admin/vessels/${randomUUID()}`,
+      "/api/admin/vessels/nope",
+    ]) {
       const res = await api<Problem>(sessions.admin!, "PATCH", path, { name: "Someone Else" });
       expect(res.status, path).toBe(404);
     }
@@ -88,6 +103,10 @@ describe("another company's vessels and people are not found", () => {
     expect(ids).toEqual(expect.arrayContaining([one.vesselA.id, one.vesselB.id]));
     expect(ids).not.toContain(two.vesselA.id);
     const people = await api<{ people: { id: string }[] }>(sessions.admin!, "GET", "/api/admin/users");
-    expect(people.body.people.map((p) => p.id).sort()).toEqual(Object.values(one.users).map((u) => u.id).sort());
+    expect(people.body.people.map((p) => p.id).sort()).toEqual(
+      Object.values(one.users)
+        .map((u) => u.id)
+        .sort(),
+    );
   });
 });

@@ -21,13 +21,29 @@ afterAll(closeTestDb);
 /** Everything a person's account touches in the company, to compare before and after a refusal. */
 async function companySnapshot(email?: string) {
   const db = testDb();
-  const members = await db.select().from(s.membership).where(eq(s.membership.companyId, f.companyId)).orderBy(s.membership.userId);
+  const members = await db
+    .select()
+    .from(s.membership)
+    .where(eq(s.membership.companyId, f.companyId))
+    .orderBy(s.membership.userId);
   const userIds = members.map((m) => m.userId);
   return {
     members,
-    assignments: await db.select().from(s.vesselAssignment).where(eq(s.vesselAssignment.companyId, f.companyId)).orderBy(s.vesselAssignment.userId, s.vesselAssignment.vesselId),
-    users: await db.select({ id: s.user.id, name: s.user.name, banned: s.user.banned }).from(s.user).where(inArray(s.user.id, userIds)).orderBy(s.user.id),
-    accounts: await db.select({ id: s.account.id, password: s.account.password }).from(s.account).where(inArray(s.account.userId, userIds)).orderBy(s.account.id),
+    assignments: await db
+      .select()
+      .from(s.vesselAssignment)
+      .where(eq(s.vesselAssignment.companyId, f.companyId))
+      .orderBy(s.vesselAssignment.userId, s.vesselAssignment.vesselId),
+    users: await db
+      .select({ id: s.user.id, name: s.user.name, banned: s.user.banned })
+      .from(s.user)
+      .where(inArray(s.user.id, userIds))
+      .orderBy(s.user.id),
+    accounts: await db
+      .select({ id: s.account.id, password: s.account.password })
+      .from(s.account)
+      .where(inArray(s.account.userId, userIds))
+      .orderBy(s.account.id),
     withEmail: email ? (await db.select().from(s.user).where(eq(s.user.email, email.toLowerCase()))).length : 0,
   };
 }
@@ -57,7 +73,12 @@ describe("GET /api/admin/users", () => {
     expect(res.status).toBe(200);
     expect(res.body.people).toHaveLength(5);
     const engineer = res.body.people.find((p) => p.id === f.users.engineer.id);
-    expect(engineer).toMatchObject({ role: "engineer", disabled: false, isYou: false, vessels: [{ id: f.vesselA.id, code: "ALPHA" }] });
+    expect(engineer).toMatchObject({
+      role: "engineer",
+      disabled: false,
+      isYou: false,
+      vessels: [{ id: f.vesselA.id, code: "ALPHA" }],
+    });
     const me = res.body.people.find((p) => p.id === f.users.admin.id);
     expect(me).toMatchObject({ role: "admin", isYou: true });
     expect(me?.lastSignInAt).not.toBeNull();
@@ -66,15 +87,33 @@ describe("GET /api/admin/users", () => {
 
 describe("POST /api/admin/users: bad input gets 422 naming the field and writes nothing", () => {
   it("an e-mail address already registered, whatever its capitals", async () => {
-    await expect422("POST", "/api/admin/users", { ...newPerson(), email: f.users.engineer.email.toUpperCase() }, "email", /already has a Keelson account/);
+    await expect422(
+      "POST",
+      "/api/admin/users",
+      { ...newPerson(), email: f.users.engineer.email.toUpperCase() },
+      "email",
+      /already has a Keelson account/,
+    );
   });
 
   it("an e-mail address registered by another company", async () => {
-    await expect422("POST", "/api/admin/users", { ...newPerson(), email: other.users.viewer.email }, "email", /already has a Keelson account/);
+    await expect422(
+      "POST",
+      "/api/admin/users",
+      { ...newPerson(), email: other.users.viewer.email },
+      "email",
+      /already has a Keelson account/,
+    );
   });
 
   it("a vessel of another company", async () => {
-    await expect422("POST", "/api/admin/users", { ...newPerson(), vesselIds: [f.vesselA.id, other.vesselA.id] }, "vesselIds.1", /no such vessel/);
+    await expect422(
+      "POST",
+      "/api/admin/users",
+      { ...newPerson(), vesselIds: [f.vesselA.id, other.vesselA.id] },
+      "vesselIds.1",
+      /no such vessel/,
+    );
   });
 
   it.each([
@@ -96,7 +135,13 @@ describe("a person the administrator creates", () => {
     const res = await api<AdminPerson>(admin, "POST", "/api/admin/users", { ...input, vesselIds: [f.vesselB.id] });
     expect(res.status).toBe(201);
     created = res.body;
-    expect(created).toMatchObject({ name: "Ana Kolar", email: input.email.toLowerCase(), role: "engineer", rank: "Second engineer", disabled: false });
+    expect(created).toMatchObject({
+      name: "Ana Kolar",
+      email: input.email.toLowerCase(),
+      role: "engineer",
+      rank: "Second engineer",
+      disabled: false,
+    });
     expect(created.vessels.map((v) => v.id)).toEqual([f.vesselB.id]);
     session = await signIn(input.email.toLowerCase(), input.initialPassword);
   });
@@ -119,7 +164,13 @@ describe("a person the administrator creates", () => {
   });
 
   it("refuses a foreign vessel on edit and keeps the assignments", async () => {
-    await expect422("PATCH", `/api/admin/users/${created.id}`, { vesselIds: [other.vesselB.id] }, "vesselIds.0", /no such vessel/);
+    await expect422(
+      "PATCH",
+      `/api/admin/users/${created.id}`,
+      { vesselIds: [other.vesselB.id] },
+      "vesselIds.0",
+      /no such vessel/,
+    );
   });
 
   it("gets a new password from the administrator; the old one stops working", async () => {
@@ -127,9 +178,17 @@ describe("a person the administrator creates", () => {
     expect(res.status).toBe(200);
     await expect(signIn(input.email, input.initialPassword)).rejects.toThrow(/failed: 401/);
     session = await signIn(input.email, "second-watch-2026");
-    await expect422("PATCH", `/api/admin/users/${created.id}`, { newPassword: "short" }, "newPassword", /at least 10 characters/);
+    await expect422(
+      "PATCH",
+      `/api/admin/users/${created.id}`,
+      { newPassword: "short" },
+      "newPassword",
+      /at least 10 characters/,
+    );
   });
 
+  // The session cookie a browser holds must stop working on the very next call, not when better-auth's
+  // 60-second cookie cache runs out: the access door has to read the session from the database.
   it("once disabled, is signed out at once and cannot sign in; re-enabled, can again", async () => {
     expect((await api(session, "GET", `/api/vessels/${f.vesselA.id}/hour-log`)).status).toBe(200);
     const res = await api<AdminPerson>(admin, "PATCH", `/api/admin/users/${created.id}`, { disabled: true });
@@ -153,7 +212,10 @@ describe("the company keeps an active administrator", () => {
   it("the only administrator cannot demote or disable themself", async () => {
     await expect422("PATCH", self(), { role: "superintendent" }, "role", /only active administrator/);
     await expect422("PATCH", self(), { disabled: true }, "disabled", /only active administrator/);
-    const [row] = await testDb().select().from(s.membership).where(and(eq(s.membership.companyId, f.companyId), eq(s.membership.userId, f.users.admin.id)));
+    const [row] = await testDb()
+      .select()
+      .from(s.membership)
+      .where(and(eq(s.membership.companyId, f.companyId), eq(s.membership.userId, f.users.admin.id)));
     expect(row?.role).toBe("admin");
   });
 

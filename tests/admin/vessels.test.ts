@@ -36,7 +36,12 @@ async function expect422(method: string, path: string, body: unknown, field: str
 
 describe("POST /api/admin/vessels", () => {
   it.each([
-    ["a bad IMO check digit", { imoNumber: "9074728" }, "imoNumber", /check digit does not match: with 907472 the last digit must be 9/],
+    [
+      "a bad IMO check digit",
+      { imoNumber: "9074728" },
+      "imoNumber",
+      /check digit does not match: with 907472 the last digit must be 9/,
+    ],
     ["an IMO number that is not seven digits", { imoNumber: "IMO 90747" }, "imoNumber", /exactly seven digits/],
     ["an unknown time zone", { timeZone: "Atlantis/Lost_City" }, "timeZone", /not an IANA time zone/],
     ["a malformed code", { code: "C-N" }, "code", /2 to 6 letters or digits/],
@@ -46,23 +51,46 @@ describe("POST /api/admin/vessels", () => {
   });
 
   it("refuses a code the company already uses, naming the vessel", async () => {
-    await expect422("POST", "/api/admin/vessels", { ...corran, code: "alpha" }, "code", new RegExp(`^Code ALPHA is already used by ${f.vesselA.name}\\.$`));
+    await expect422(
+      "POST",
+      "/api/admin/vessels",
+      { ...corran, code: "alpha" },
+      "code",
+      new RegExp(`^Code ALPHA is already used by ${f.vesselA.name}\\.$`),
+    );
   });
 
   it("refuses an IMO number the company already has", async () => {
-    await expect422("POST", "/api/admin/vessels", { ...corran, imoNumber: f.vesselB.imoNumber }, "imoNumber", new RegExp(`already registered as ${f.vesselB.name}`));
+    await expect422(
+      "POST",
+      "/api/admin/vessels",
+      { ...corran, imoNumber: f.vesselB.imoNumber },
+      "imoNumber",
+      new RegExp(`already registered as ${f.vesselB.name}`),
+    );
   });
 
   it("stores a valid vessel normalised, and lists it", async () => {
     const before = (await companyVessels()).length;
     const res = await api<AdminVessel>(admin, "POST", "/api/admin/vessels", corran);
     expect(res.status).toBe(201);
-    expect(res.body).toMatchObject({ name: "Corran Ness", imoNumber: "9074729", code: "CN", timeZone: "Europe/Oslo", counters: 0, retiredAt: null });
+    expect(res.body).toMatchObject({
+      name: "Corran Ness",
+      imoNumber: "9074729",
+      code: "CN",
+      timeZone: "Europe/Oslo",
+      counters: 0,
+      retiredAt: null,
+    });
     expect((await companyVessels()).length).toBe(before + 1);
 
     const list = await api<AdminVesselList>(admin, "GET", "/api/admin/vessels");
     expect(list.body.vessels.find((v) => v.code === "CN")?.id).toBe(res.body.id);
-    expect(list.body.vessels.find((v) => v.id === f.vesselA.id)).toMatchObject({ code: "ALPHA", counters: 2, assignedPeople: 3 });
+    expect(list.body.vessels.find((v) => v.id === f.vesselA.id)).toMatchObject({
+      code: "ALPHA",
+      counters: 2,
+      assignedPeople: 3,
+    });
 
     // Another administrator sending the same vessel again is told which one has it.
     await expect422("POST", "/api/admin/vessels", corran, "code", /Code CN is already used by Corran Ness/);
@@ -75,7 +103,12 @@ describe("PATCH and DELETE /api/admin/vessels/[vesselId]", () => {
   it("edits only what is sent", async () => {
     const res = await api<AdminVessel>(admin, "PATCH", path(), { name: "Bravo Star", timeZone: "Asia/Tokyo" });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ name: "Bravo Star", code: "BRAVO", imoNumber: f.vesselB.imoNumber, timeZone: "Asia/Tokyo" });
+    expect(res.body).toMatchObject({
+      name: "Bravo Star",
+      code: "BRAVO",
+      imoNumber: f.vesselB.imoNumber,
+      timeZone: "Asia/Tokyo",
+    });
   });
 
   it("lets a vessel keep its own code, and refuses another vessel's", async () => {
@@ -95,7 +128,13 @@ describe("PATCH and DELETE /api/admin/vessels/[vesselId]", () => {
     expect(counters).toHaveLength(1);
 
     // A retired vessel's code stays taken: old work-order numbers still point at it.
-    await expect422("POST", "/api/admin/vessels", { ...corran, code: "BRAVO", imoNumber: "7654329" }, "code", /already used by Bravo Star \(retired\)/);
+    await expect422(
+      "POST",
+      "/api/admin/vessels",
+      { ...corran, code: "BRAVO", imoNumber: "7654329" },
+      "code",
+      /already used by Bravo Star \(retired\)/,
+    );
 
     const back = await api<AdminVessel>(admin, "PATCH", path(), { retired: false });
     expect(back.status).toBe(200);

@@ -27,7 +27,9 @@ export function ConfirmPanel({ title, subtitle, children, confirmLabel, tone, on
     try {
       onDone(await onConfirm());
     } catch (error) {
-      setProblem(error instanceof ProblemError ? error.problem.detail : "The server could not be reached; nothing was changed.");
+      setProblem(
+        error instanceof ProblemError ? error.problem.detail : "The server could not be reached; nothing was changed.",
+      );
       setBusy(false);
     }
   }
@@ -37,7 +39,10 @@ export function ConfirmPanel({ title, subtitle, children, confirmLabel, tone, on
       <div className="grid gap-4">
         <div className="grid gap-2 text-ink-700 dark:text-ink-200">{children}</div>
         {problem && (
-          <p role="alert" className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300">
+          <p
+            role="alert"
+            className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
+          >
             {problem}
           </p>
         )}
@@ -46,7 +51,11 @@ export function ConfirmPanel({ title, subtitle, children, confirmLabel, tone, on
             type="button"
             onClick={confirm}
             disabled={busy}
-            className={tone === "alarm" ? "btn bg-alarm-600 text-white hover:bg-alarm-700 dark:bg-alarm-500 dark:hover:bg-alarm-600" : "btn-primary"}
+            className={
+              tone === "alarm"
+                ? "btn bg-alarm-600 text-white hover:bg-alarm-700 dark:bg-alarm-500 dark:hover:bg-alarm-600"
+                : "btn-primary"
+            }
           >
             {busy ? "Working…" : confirmLabel}
           </button>

@@ -23,5 +23,7 @@ export function showProblem<T extends FieldValues>(
     else unplaced = true;
   }
   const placed = (error.problem.errors?.length ?? 0) > 0 && !unplaced;
-  return placed ? `${error.problem.errors!.length === 1 ? "One value needs" : "Some values need"} correcting. ${nothingSaved}` : `${error.problem.detail} ${nothingSaved}`;
+  return placed
+    ? `${error.problem.errors!.length === 1 ? "One value needs" : "Some values need"} correcting. ${nothingSaved}`
+    : `${error.problem.detail} ${nothingSaved}`;
 }

@@ -58,14 +58,21 @@ export function PasswordPanel({ person, onDone, onClose }: Props) {
               {...describedBy("reset-newPassword", error)}
               {...register("newPassword")}
             />
-            <button type="button" className="btn-quiet shrink-0" onClick={() => setValue("newPassword", randomPassword(), { shouldValidate: true })}>
+            <button
+              type="button"
+              className="btn-quiet shrink-0"
+              onClick={() => setValue("newPassword", randomPassword(), { shouldValidate: true })}
+            >
               Suggest
             </button>
           </div>
           <PasswordNote />
         </Field>
         {problem && (
-          <p role="alert" className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300">
+          <p
+            role="alert"
+            className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
+          >
             {problem}
           </p>
         )}

@@ -35,7 +35,11 @@ export function PeopleAdmin() {
 
   const needle = filter.trim().toLowerCase();
   const shown = people.data.people.filter((p) =>
-    needle ? [p.name, p.email, p.rank ?? "", ROLE_LABEL[p.role], ...p.vessels.map((v) => v.code)].some((t) => t.toLowerCase().includes(needle)) : true,
+    needle
+      ? [p.name, p.email, p.rank ?? "", ROLE_LABEL[p.role], ...p.vessels.map((v) => v.code)].some((t) =>
+          t.toLowerCase().includes(needle),
+        )
+      : true,
   );
   const disabledCount = people.data.people.filter((p) => p.disabled).length;
 
@@ -53,7 +57,13 @@ export function PeopleAdmin() {
         <div className="flex items-end gap-2">
           <label className="block">
             <span className="sr-only">Filter people</span>
-            <input type="search" className="field w-56" placeholder="Filter by name, rank, vessel…" value={filter} onChange={(e) => setFilter(e.target.value)} />
+            <input
+              type="search"
+              className="field w-56"
+              placeholder="Filter by name, rank, vessel…"
+              value={filter}
+              onChange={(e) => setFilter(e.target.value)}
+            />
           </label>
           <button type="button" className="btn-primary" onClick={() => setOpen({ kind: "add" })}>
             Add person
@@ -61,38 +71,66 @@ export function PeopleAdmin() {
         </div>
       </div>
       <Notice message={notice} />
-      <div className="panel overflow-x-auto">
+      <div className="relative overflow-x-auto panel">
         <table className="w-full text-left">
           <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
             <tr className="border-b border-ink-200 dark:border-ink-800">
-              <th scope="col" className={`${TH} pl-4`}>Name</th>
-              <th scope="col" className={TH}>E-mail</th>
-              <th scope="col" className={TH}>Role</th>
-              <th scope="col" className={TH}>Rank</th>
-              <th scope="col" className={TH}>Vessels</th>
-              <th scope="col" className={TH}>Status</th>
-              <th scope="col" className={TH}>Last sign-in</th>
-              <th scope="col" className={`${TH} pr-4`}><span className="sr-only">Actions</span></th>
+              <th scope="col" className={`${TH} pl-4`}>
+                Name and e-mail
+              </th>
+              <th scope="col" className={TH}>
+                Role
+              </th>
+              <th scope="col" className={`${TH} hidden lg:table-cell`}>
+                Rank
+              </th>
+              <th scope="col" className={TH}>
+                Vessels
+              </th>
+              <th scope="col" className={TH}>
+                Status
+              </th>
+              <th scope="col" className={`${TH} hidden lg:table-cell`}>
+                Last sign-in
+              </th>
+              <th scope="col" className={`${TH} pr-4`}>
+                <span className="sr-only">Actions</span>
+              </th>
             </tr>
           </thead>
           <tbody>
             {shown.length === 0 && (
               <tr>
-                <td colSpan={8} className="px-4 py-6 text-ink-500">Nobody matches “{filter}”.</td>
+                <td colSpan={7} className="px-4 py-6 text-ink-500">
+                  Nobody matches “{filter}”.
+                </td>
               </tr>
             )}
             {shown.map((p) => (
-              <tr key={p.id} className={`border-b border-ink-100 last:border-0 dark:border-ink-850 ${p.disabled ? "text-ink-500 dark:text-ink-400" : ""}`}>
-                <th scope="row" className={`${TD} pl-4 font-semibold whitespace-nowrap`}>
-                  {p.name}
-                  {p.isYou && <span className="ml-1.5 rounded bg-tide-50 px-1.5 py-0.5 text-xs font-medium text-tide-700 dark:bg-tide-900 dark:text-tide-200">you</span>}
+              <tr
+                key={p.id}
+                className={`border-b border-ink-100 last:border-0 dark:border-ink-850 ${p.disabled ? "text-ink-500 dark:text-ink-400" : ""}`}
+              >
+                <th scope="row" className={`${TD} pl-4 font-normal`}>
+                  <span className="font-semibold whitespace-nowrap">{p.name}</span>
+                  {p.isYou && (
+                    <span className="ml-1.5 rounded bg-tide-50 px-1.5 py-0.5 text-xs font-medium text-tide-700 dark:bg-tide-900 dark:text-tide-200">
+                      you
+                    </span>
+                  )}
+                  <span className="block text-xs text-ink-500 dark:text-ink-400">{p.email}</span>
                 </th>
-                <td className={TD}>{p.email}</td>
-                <td className={`${TD} whitespace-nowrap`}>{ROLE_LABEL[p.role]}</td>
-                <td className={TD}>{p.rank ?? <span className="text-ink-400">—</span>}</td>
+                <td className={`${TD} whitespace-nowrap`}>
+                  {ROLE_LABEL[p.role]}
+                  {/* On a tablet the rank sits under the role, to keep the actions in view. */}
+                  {p.rank && <span className="block text-xs text-ink-500 lg:hidden dark:text-ink-400">{p.rank}</span>}
+                </td>
+                <td className={`${TD} hidden whitespace-nowrap lg:table-cell`}>
+                  {p.rank ?? <span className="text-ink-400">—</span>}
+                </td>
                 <td className={TD}>
                   {seesWholeFleet(p.role) ? (
-                    <span className="text-ink-500 dark:text-ink-400">whole fleet</span>
+                    <span className="whitespace-nowrap text-ink-500 dark:text-ink-400">whole fleet</span>
                   ) : p.vessels.length ? (
                     <span className="font-mono text-xs" title={p.vessels.map((v) => v.name).join(", ")}>
                       {p.vessels.map((v) => v.code).join(" · ")}
@@ -102,14 +140,24 @@ export function PeopleAdmin() {
                   )}
                 </td>
                 <td className={TD}>
-                  {p.disabled ? <span className="font-semibold text-alarm-700 dark:text-alarm-300">disabled</span> : <span className="font-medium text-go-700 dark:text-go-300">active</span>}
+                  {p.disabled ? (
+                    <span className="font-semibold text-alarm-700 dark:text-alarm-300">disabled</span>
+                  ) : (
+                    <span className="font-medium text-go-700 dark:text-go-300">active</span>
+                  )}
                 </td>
-                <td className={`${TD} whitespace-nowrap text-ink-600 dark:text-ink-300`}>{p.lastSignInAt ? ageOf(p.lastSignInAt, now) : "—"}</td>
+                <td className={`${TD} hidden whitespace-nowrap text-ink-600 lg:table-cell dark:text-ink-300`}>
+                  {p.lastSignInAt ? ageOf(p.lastSignInAt, now) : "—"}
+                </td>
                 <td className={`${TD} pr-4`}>
                   <div className="flex justify-end gap-1.5">
                     <RowButton label="Edit" who={p.name} onClick={() => setOpen({ kind: "edit", person: p })} />
                     <RowButton label="Password" who={p.name} onClick={() => setOpen({ kind: "password", person: p })} />
-                    <RowButton label={p.disabled ? "Enable" : "Disable"} who={p.name} onClick={() => setOpen({ kind: p.disabled ? "enable" : "disable", person: p })} />
+                    <RowButton
+                      label={p.disabled ? "Enable" : "Disable"}
+                      who={p.name}
+                      onClick={() => setOpen({ kind: p.disabled ? "enable" : "disable", person: p })}
+                    />
                   </div>
                 </td>
               </tr>
@@ -121,11 +169,19 @@ export function PeopleAdmin() {
       {(open?.kind === "add" || open?.kind === "edit") && (
         <SidePanel
           title={open.kind === "add" ? "Add a person" : `Edit ${open.person.name}`}
-          subtitle={open.kind === "edit" ? open.person.email : "They sign in with their e-mail address and the initial password."}
+          subtitle={
+            open.kind === "edit"
+              ? open.person.email
+              : "They sign in with their e-mail address and the initial password."
+          }
           onClose={() => setOpen(null)}
           wide
         >
-          <PersonForm person={open.kind === "edit" ? open.person : undefined} vessels={vessels.data.vessels} onDone={done} />
+          <PersonForm
+            person={open.kind === "edit" ? open.person : undefined}
+            vessels={vessels.data.vessels}
+            onDone={done}
+          />
         </SidePanel>
       )}
       {open?.kind === "password" && <PasswordPanel person={open.person} onDone={done} onClose={() => setOpen(null)} />}
@@ -135,11 +191,16 @@ export function PeopleAdmin() {
           subtitle={open.person.email}
           confirmLabel={open.person.isYou ? "Disable my account" : "Disable"}
           tone="alarm"
-          onConfirm={async () => `${(await update.mutateAsync({ id: open.person.id, changes: { disabled: true } })).name} is disabled.`}
+          onConfirm={async () =>
+            `${(await update.mutateAsync({ id: open.person.id, changes: { disabled: true } })).name} is disabled.`
+          }
           onDone={done}
           onClose={() => setOpen(null)}
         >
-          <p>{open.person.isYou ? "You are" : "They are"} signed out at once on every device and cannot sign in until enabled again.</p>
+          <p>
+            {open.person.isYou ? "You are" : "They are"} signed out at once on every device and cannot sign in until
+            enabled again.
+          </p>
           <p>Their readings and records stay, with their name on them.</p>
         </ConfirmPanel>
       )}
@@ -149,7 +210,9 @@ export function PeopleAdmin() {
           subtitle={open.person.email}
           confirmLabel="Enable"
           tone="plain"
-          onConfirm={async () => `${(await update.mutateAsync({ id: open.person.id, changes: { disabled: false } })).name} can sign in again.`}
+          onConfirm={async () =>
+            `${(await update.mutateAsync({ id: open.person.id, changes: { disabled: false } })).name} can sign in again.`
+          }
           onDone={done}
           onClose={() => setOpen(null)}
         >

@@ -7,7 +7,14 @@ import type { AdminPerson, AdminVessel } from "@/server/admin/contract";
 import { ROLE_LABEL, ROLES, seesWholeFleet } from "@/server/auth/roles";
 import { describedBy, Field } from "./field";
 import { showProblem } from "./form-problem";
-import { EditPersonForm, NewPersonForm, PERSON_FIELDS, type PersonFormInput, type PersonFormValues, randomPassword } from "./person-form-schema";
+import {
+  EditPersonForm,
+  NewPersonForm,
+  PERSON_FIELDS,
+  type PersonFormInput,
+  type PersonFormValues,
+  randomPassword,
+} from "./person-form-schema";
 import { useCreatePerson, useUpdatePerson } from "./use-admin";
 
 type Props = { person?: AdminPerson; vessels: AdminVessel[]; onDone: (message: string) => void };
@@ -16,7 +23,11 @@ export function PersonForm({ person, vessels, onDone }: Props) {
   const create = useCreatePerson();
   const update = useUpdatePerson();
   const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError, setValue, control } = useForm<PersonFormInput, unknown, PersonFormValues>({
+  const { register, handleSubmit, formState, setError, setValue, control } = useForm<
+    PersonFormInput,
+    unknown,
+    PersonFormValues
+  >({
     resolver: zodResolver(person ? EditPersonForm : NewPersonForm),
     defaultValues: {
       name: person?.name ?? "",
@@ -40,7 +51,9 @@ export function PersonForm({ person, vessels, onDone }: Props) {
         onDone(`${saved.name} saved.`);
       } else {
         const saved = await create.mutateAsync({ ...values, email, initialPassword });
-        onDone(`${saved.name} added. Hand over the initial password in person or by phone, never in the same e-mail as the address.`);
+        onDone(
+          `${saved.name} added. Hand over the initial password in person or by phone, never in the same e-mail as the address.`,
+        );
       }
     } catch (error) {
       setProblem(showProblem(error, setError, PERSON_FIELDS));
@@ -50,7 +63,13 @@ export function PersonForm({ person, vessels, onDone }: Props) {
   return (
     <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
       <Field id="person-name" label="Name" error={errors.name?.message}>
-        <input id="person-name" className="field" autoComplete="off" {...describedBy("person-name", errors.name?.message)} {...register("name")} />
+        <input
+          id="person-name"
+          className="field"
+          autoComplete="off"
+          {...describedBy("person-name", errors.name?.message)}
+          {...register("name")}
+        />
       </Field>
       {person ? (
         <div>
@@ -59,12 +78,24 @@ export function PersonForm({ person, vessels, onDone }: Props) {
         </div>
       ) : (
         <Field id="person-email" label="E-mail" error={errors.email?.message} hint="They sign in with this address.">
-          <input id="person-email" type="email" className="field" autoComplete="off" {...describedBy("person-email", errors.email?.message)} {...register("email")} />
+          <input
+            id="person-email"
+            type="email"
+            className="field"
+            autoComplete="off"
+            {...describedBy("person-email", errors.email?.message)}
+            {...register("email")}
+          />
         </Field>
       )}
       <div className="grid grid-cols-2 gap-3">
         <Field id="person-role" label="Role" error={errors.role?.message}>
-          <select id="person-role" className="field" {...describedBy("person-role", errors.role?.message)} {...register("role")}>
+          <select
+            id="person-role"
+            className="field"
+            {...describedBy("person-role", errors.role?.message)}
+            {...register("role")}
+          >
             {ROLES.map((r) => (
               <option key={r} value={r}>
                 {ROLE_LABEL[r]}
@@ -73,15 +104,26 @@ export function PersonForm({ person, vessels, onDone }: Props) {
           </select>
         </Field>
         <Field id="person-rank" label="Rank (optional)" error={errors.rank?.message} hint="e.g. Second engineer">
-          <input id="person-rank" className="field" autoComplete="off" {...describedBy("person-rank", errors.rank?.message)} {...register("rank")} />
+          <input
+            id="person-rank"
+            className="field"
+            autoComplete="off"
+            {...describedBy("person-rank", errors.rank?.message)}
+            {...register("rank")}
+          />
         </Field>
       </div>
 
       <fieldset aria-describedby="person-vessels-message">
         <legend className="label">Vessels</legend>
-        <p id="person-vessels-message" className={errors.vesselIds ? "field-error mt-0 mb-1.5" : "mb-1.5 text-xs text-ink-500 dark:text-ink-400"}>
+        <p
+          id="person-vessels-message"
+          className={errors.vesselIds ? "field-error mt-0 mb-1.5" : "mb-1.5 text-xs text-ink-500 dark:text-ink-400"}
+        >
           {errors.vesselIds?.message ??
-            (seesWholeFleet(role) ? `A ${ROLE_LABEL[role].toLowerCase()} sees every vessel; ticks here are kept for later.` : "They see only the vessels ticked here.")}
+            (seesWholeFleet(role)
+              ? `A ${ROLE_LABEL[role].toLowerCase()} sees every vessel; ticks here are kept for later.`
+              : "They see only the vessels ticked here.")}
         </p>
         <Controller
           control={control}
@@ -96,7 +138,11 @@ export function PersonForm({ person, vessels, onDone }: Props) {
                       type="checkbox"
                       className="h-4 w-4 accent-tide-600"
                       checked={field.value.includes(v.id)}
-                      onChange={(e) => field.onChange(e.target.checked ? [...field.value, v.id] : field.value.filter((id) => id !== v.id))}
+                      onChange={(e) =>
+                        field.onChange(
+                          e.target.checked ? [...field.value, v.id] : field.value.filter((id) => id !== v.id),
+                        )
+                      }
                     />
                     <span className="font-medium">{v.name}</span>
                     <span className="font-mono text-xs text-ink-500">{v.code}</span>
@@ -121,7 +167,11 @@ export function PersonForm({ person, vessels, onDone }: Props) {
               {...describedBy("person-initialPassword", errors.initialPassword?.message)}
               {...register("initialPassword")}
             />
-            <button type="button" className="btn-quiet shrink-0" onClick={() => setValue("initialPassword", randomPassword(), { shouldValidate: true })}>
+            <button
+              type="button"
+              className="btn-quiet shrink-0"
+              onClick={() => setValue("initialPassword", randomPassword(), { shouldValidate: true })}
+            >
               Suggest
             </button>
           </div>
@@ -130,7 +180,10 @@ export function PersonForm({ person, vessels, onDone }: Props) {
       )}
 
       {problem && (
-        <p role="alert" className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300">
+        <p
+          role="alert"
+          className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
+        >
           {problem}
         </p>
       )}
@@ -146,8 +199,8 @@ export function PersonForm({ person, vessels, onDone }: Props) {
 export function PasswordNote() {
   return (
     <p className="mt-1.5 rounded-md border border-brass-300 bg-brass-100/60 px-2.5 py-1.5 text-xs text-ink-800 dark:border-brass-700 dark:bg-brass-700/20 dark:text-ink-100">
-      At least 10 characters. Hand it over securely: in person, by phone or through the ship’s master, never in an e-mail to
-      the same address. Keelson does not show it again.
+      At least 10 characters. Hand it over securely: in person, by phone or through the ship’s master, never in an
+      e-mail to the same address. Keelson does not show it again.
     </p>
   );
 }

@@ -36,7 +36,8 @@ export function VesselAdmin() {
             Vessels
           </h2>
           <p className="text-ink-500 dark:text-ink-400">
-            {inService} in service{data.vessels.length > inService ? `, ${data.vessels.length - inService} retired` : ""}
+            {inService} in service
+            {data.vessels.length > inService ? `, ${data.vessels.length - inService} retired` : ""}
           </p>
         </div>
         <button type="button" className="btn-primary" onClick={() => setOpen({ kind: "add" })}>
@@ -44,29 +45,52 @@ export function VesselAdmin() {
         </button>
       </div>
       <Notice message={notice} />
-      <div className="panel overflow-x-auto">
+      <div className="relative overflow-x-auto panel">
         <table className="w-full text-left">
           <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
             <tr className="border-b border-ink-200 dark:border-ink-800">
-              <th scope="col" className={`${TH} pl-4`}>Name</th>
-              <th scope="col" className={TH}>Code</th>
-              <th scope="col" className={TH}>IMO</th>
-              <th scope="col" className={TH}>Ship’s time zone</th>
-              <th scope="col" className={`${TH} text-right`}>Counters</th>
-              <th scope="col" className={`${TH} text-right`}>People</th>
-              <th scope="col" className={TH}>Status</th>
-              <th scope="col" className={`${TH} pr-4`}><span className="sr-only">Actions</span></th>
+              <th scope="col" className={`${TH} pl-4`}>
+                Name
+              </th>
+              <th scope="col" className={TH}>
+                Code
+              </th>
+              <th scope="col" className={TH}>
+                IMO
+              </th>
+              <th scope="col" className={TH}>
+                Ship’s time zone
+              </th>
+              <th scope="col" className={`${TH} text-right`}>
+                Counters
+              </th>
+              <th scope="col" className={`${TH} text-right`}>
+                Assigned
+              </th>
+              <th scope="col" className={TH}>
+                Status
+              </th>
+              <th scope="col" className={`${TH} pr-4`}>
+                <span className="sr-only">Actions</span>
+              </th>
             </tr>
           </thead>
           <tbody>
             {data.vessels.length === 0 && (
               <tr>
-                <td colSpan={8} className="px-4 py-6 text-ink-500">No vessels yet. Add the first one; its IMO number is on the ship’s certificates.</td>
+                <td colSpan={8} className="px-4 py-6 text-ink-500">
+                  No vessels yet. Add the first one; its IMO number is on the ship’s certificates.
+                </td>
               </tr>
             )}
             {data.vessels.map((v) => (
-              <tr key={v.id} className={`border-b border-ink-100 last:border-0 dark:border-ink-850 ${v.retiredAt ? "text-ink-500 dark:text-ink-400" : ""}`}>
-                <th scope="row" className={`${TD} pl-4 font-semibold`}>{v.name}</th>
+              <tr
+                key={v.id}
+                className={`border-b border-ink-100 last:border-0 dark:border-ink-850 ${v.retiredAt ? "text-ink-500 dark:text-ink-400" : ""}`}
+              >
+                <th scope="row" className={`${TD} pl-4 font-semibold`}>
+                  {v.name}
+                </th>
                 <td className={`${TD} font-mono`}>{v.code}</td>
                 <td className={`${TD} font-mono whitespace-nowrap`}>IMO {v.imoNumber}</td>
                 <td className={TD}>{v.timeZone}</td>
@@ -74,14 +98,26 @@ export function VesselAdmin() {
                 <td className={`${TD} text-right tabular-nums`}>{v.assignedPeople}</td>
                 <td className={TD}>
                   {v.retiredAt ? (
-                    <span>retired {new Date(v.retiredAt).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" })}</span>
+                    <span>
+                      retired{" "}
+                      {new Date(v.retiredAt).toLocaleDateString("en-GB", {
+                        day: "numeric",
+                        month: "short",
+                        year: "numeric",
+                      })}
+                    </span>
                   ) : (
                     <span className="font-medium text-go-700 dark:text-go-300">in service</span>
                   )}
                 </td>
                 <td className={`${TD} pr-4`}>
                   <div className="flex justify-end gap-1.5">
-                    <button type="button" className="btn-quiet px-2 py-1 text-xs" onClick={() => setOpen({ kind: "edit", vessel: v })} aria-label={`Edit ${v.name}`}>
+                    <button
+                      type="button"
+                      className="btn-quiet px-2 py-1 text-xs"
+                      onClick={() => setOpen({ kind: "edit", vessel: v })}
+                      aria-label={`Edit ${v.name}`}
+                    >
                       Edit
                     </button>
                     <button
@@ -103,7 +139,11 @@ export function VesselAdmin() {
       {(open?.kind === "add" || open?.kind === "edit") && (
         <SidePanel
           title={open.kind === "add" ? "Add a vessel" : `Edit ${open.vessel.name}`}
-          subtitle={open.kind === "edit" ? `${open.vessel.code} · IMO ${open.vessel.imoNumber}` : "Counters and components are added in the vessel’s machinery register."}
+          subtitle={
+            open.kind === "edit"
+              ? `${open.vessel.code} · IMO ${open.vessel.imoNumber}`
+              : "Counters and components are added in the vessel’s machinery register."
+          }
           onClose={() => setOpen(null)}
         >
           <VesselForm vessel={open.kind === "edit" ? open.vessel : undefined} onDone={done} />
@@ -120,7 +160,10 @@ export function VesselAdmin() {
           onClose={() => setOpen(null)}
         >
           <p>It leaves the vessel lists and the vessel menu of everyone in the company.</p>
-          <p>Its records stay: counters, readings, work orders and assignments are kept for audits, and its code stays reserved.</p>
+          <p>
+            Its records stay: counters, readings, work orders and assignments are kept for audits, and its code stays
+            reserved.
+          </p>
           <p>You can return it to service later.</p>
         </ConfirmPanel>
       )}
@@ -129,7 +172,9 @@ export function VesselAdmin() {
           title={`Return ${open.vessel.name} to service?`}
           confirmLabel="Return to service"
           tone="plain"
-          onConfirm={async () => `${(await save.mutateAsync({ id: open.vessel.id, values: { retired: false } })).name} is back in service.`}
+          onConfirm={async () =>
+            `${(await save.mutateAsync({ id: open.vessel.id, values: { retired: false } })).name} is back in service.`
+          }
           onDone={done}
           onClose={() => setOpen(null)}
         >

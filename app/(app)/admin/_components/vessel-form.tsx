@@ -42,15 +42,47 @@ export function VesselForm({ vessel, onDone }: Props) {
         <input id="vessel-name" className="field" autoComplete="off" {...described("name")} {...register("name")} />
       </Field>
       <div className="grid grid-cols-[1fr_8rem] gap-3">
-        <Field id="vessel-imoNumber" label="IMO number" error={errors.imoNumber?.message} hint="Seven digits; the last is a check digit.">
-          <input id="vessel-imoNumber" className="field font-mono" autoComplete="off" placeholder="IMO 9074729" {...described("imoNumber")} {...register("imoNumber")} />
+        <Field
+          id="vessel-imoNumber"
+          label="IMO number"
+          error={errors.imoNumber?.message}
+          hint="Seven digits; the last is a check digit."
+        >
+          <input
+            id="vessel-imoNumber"
+            className="field font-mono"
+            autoComplete="off"
+            placeholder="IMO 9074729"
+            {...described("imoNumber")}
+            {...register("imoNumber")}
+          />
         </Field>
         <Field id="vessel-code" label="Code" error={errors.code?.message} hint="Starts work-order numbers.">
-          <input id="vessel-code" className="field font-mono uppercase" autoComplete="off" maxLength={6} placeholder="AG" {...described("code")} {...register("code")} />
+          <input
+            id="vessel-code"
+            className="field font-mono uppercase"
+            autoComplete="off"
+            maxLength={6}
+            placeholder="AG"
+            {...described("code")}
+            {...register("code")}
+          />
         </Field>
       </div>
-      <Field id="vessel-timeZone" label="Ship’s time zone" error={errors.timeZone?.message} hint="The ship’s day and its Hour log follow this zone. Change it when the ship changes its clocks for a new trading area.">
-        <input id="vessel-timeZone" className="field" list="vessel-time-zones" autoComplete="off" {...described("timeZone")} {...register("timeZone")} />
+      <Field
+        id="vessel-timeZone"
+        label="Ship’s time zone"
+        error={errors.timeZone?.message}
+        hint="The ship’s day and its Hour log follow this zone. Change it when the ship changes its clocks for a new trading area."
+      >
+        <input
+          id="vessel-timeZone"
+          className="field"
+          list="vessel-time-zones"
+          autoComplete="off"
+          {...described("timeZone")}
+          {...register("timeZone")}
+        />
         <datalist id="vessel-time-zones">
           {zones.map((zone) => (
             <option key={zone} value={zone} />
@@ -58,7 +90,10 @@ export function VesselForm({ vessel, onDone }: Props) {
         </datalist>
       </Field>
       {problem && (
-        <p role="alert" className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300">
+        <p
+          role="alert"
+          className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
+        >
           {problem}
         </p>
       )}
