@@ -77,20 +77,22 @@ export const ComponentMove = z.object({ parentId: componentFields.parentId });
 export type ComponentChange = z.output<typeof ComponentPatch>;
 
 /** Planned running hours per day, as typed: 0 to 24 with at most one decimal. */
-export const PlannedHoursPerDay = z.union([z.number(), z.string()], {
-  message: "Enter the planned running hours per day, from 0 to 24.",
-}).transform((raw, ctx) => {
-  const text = typeof raw === "number" ? String(raw) : raw.trim().replace(",", ".");
-  const value = Number(text);
-  if (!/^\d+(\.\d)?$/.test(text) || value > 24) {
-    ctx.addIssue({
-      code: "custom",
-      message: "Planned hours per day must be from 0 to 24, with at most one decimal (e.g. 18 or 0.5).",
-    });
-    return z.NEVER;
-  }
-  return value;
-});
+export const PlannedHoursPerDay = z
+  .union([z.number(), z.string()], {
+    message: "Enter the planned running hours per day, from 0 to 24.",
+  })
+  .transform((raw, ctx) => {
+    const text = typeof raw === "number" ? String(raw) : raw.trim().replace(",", ".");
+    const value = Number(text);
+    if (!/^\d+(\.\d)?$/.test(text) || value > 24) {
+      ctx.addIssue({
+        code: "custom",
+        message: "Planned hours per day must be from 0 to 24, with at most one decimal (e.g. 18 or 0.5).",
+      });
+      return z.NEVER;
+    }
+    return value;
+  });
 
 const counterFields = {
   name: requiredText("counter’s name", 80),

@@ -55,12 +55,20 @@ async function lockCounter(tx: Tx, scope: RegisterScope, counterId: string, purp
   return row;
 }
 
-export async function createCounter(access: Access, vessel: VesselRef, input: NewCounter, now = new Date()): Promise<CounterSummary> {
+export async function createCounter(
+  access: Access,
+  vessel: VesselRef,
+  input: NewCounter,
+  now = new Date(),
+): Promise<CounterSummary> {
   const scope = { access, vessel };
   return getDb().transaction(async (tx) => {
     await lockRegister(tx, vessel);
     await checkNameFree(tx, scope, input.name, null);
-    const [last] = await tx.select({ sortOrder: max(counter.sortOrder) }).from(counter).where(counterScope(scope));
+    const [last] = await tx
+      .select({ sortOrder: max(counter.sortOrder) })
+      .from(counter)
+      .where(counterScope(scope));
     const [row] = await tx
       .insert(counter)
       .values({
@@ -73,14 +81,25 @@ export async function createCounter(access: Access, vessel: VesselRef, input: Ne
       .returning()
       .catch(rethrowConstraint);
     // The first meter is a segment like any other, so a later replacement has its start to show.
-    await tx
-      .insert(counterSegment)
-      .values({ companyId: access.company.id, counterId: row!.id, segment: 1, startedAt: now, startMeter: 0, offsetHours: 0, createdBy: access.user.id });
+    await tx.insert(counterSegment).values({
+      companyId: access.company.id,
+      counterId: row!.id,
+      segment: 1,
+      startedAt: now,
+      startMeter: 0,
+      offsetHours: 0,
+      createdBy: access.user.id,
+    });
     return toSummary(row!);
   });
 }
 
-export async function updateCounter(access: Access, vessel: VesselRef, counterId: string, change: CounterChange): Promise<CounterSummary> {
+export async function updateCounter(
+  access: Access,
+  vessel: VesselRef,
+  counterId: string,
+  change: CounterChange,
+): Promise<CounterSummary> {
   const scope = { access, vessel };
   return getDb().transaction(async (tx) => {
     await lockRegister(tx, vessel);
@@ -100,7 +119,12 @@ export async function updateCounter(access: Access, vessel: VesselRef, counterId
  * Takes a counter out of use; its readings stay for the records. Refused while a component still
  * has it as its own counter, since that component (and those below it) would lose its hours.
  */
-export async function retireCounter(access: Access, vessel: VesselRef, counterId: string, now = new Date()): Promise<CounterSummary> {
+export async function retireCounter(
+  access: Access,
+  vessel: VesselRef,
+  counterId: string,
+  now = new Date(),
+): Promise<CounterSummary> {
   const scope = { access, vessel };
   return getDb().transaction(async (tx) => {
     await lockRegister(tx, vessel);
@@ -108,7 +132,13 @@ export async function retireCounter(access: Access, vessel: VesselRef, counterId
     const users = await tx
       .select({ code: component.code, name: component.name })
       .from(component)
-      .where(and(eq(component.companyId, access.company.id), eq(component.vesselId, vessel.id), eq(component.counterId, current.id)))
+      .where(
+        and(
+          eq(component.companyId, access.company.id),
+          eq(component.vesselId, vessel.id),
+          eq(component.counterId, current.id),
+        ),
+      )
       .orderBy(asc(component.code));
     if (users.length) {
       const named = users.slice(0, 5).map((u) => `${u.code} ${u.name}`);
@@ -156,11 +186,23 @@ export async function replaceMeter(
     const [segment] = await tx
       .select()
       .from(counterSegment)
-      .where(and(eq(counterSegment.companyId, access.company.id), eq(counterSegment.counterId, current.id), eq(counterSegment.segment, current.currentSegment)));
+      .where(
+        and(
+          eq(counterSegment.companyId, access.company.id),
+          eq(counterSegment.counterId, current.id),
+          eq(counterSegment.segment, current.currentSegment),
+        ),
+      );
     const [last] = await tx
       .select({ readAt: reading.readAt, meterValue: reading.meterValue, totalHours: reading.totalHours })
       .from(reading)
-      .where(and(eq(reading.companyId, access.company.id), eq(reading.counterId, current.id), eq(reading.segment, current.currentSegment)))
+      .where(
+        and(
+          eq(reading.companyId, access.company.id),
+          eq(reading.counterId, current.id),
+          eq(reading.segment, current.currentSegment),
+        ),
+      )
       .orderBy(desc(reading.readAt))
       .limit(1);
     const offset = segment?.offsetHours ?? 0;
@@ -187,9 +229,11 @@ export async function replaceMeter(
     let totalAtReplacement = last?.totalHours ?? round1((segment?.startMeter ?? 0) + offset);
     let finalReadingStored = false;
     const final = input.oldMeterFinal;
-    if (final !== null && !(last && last.readAt.getTime() === replacedAt.getTime() && last.meterValue === final)) {
-      const sameInstant = last && last.readAt.getTime() === replacedAt.getTime() ? last : null;
-      const previous = sameInstant ? null : last ? last : fittedAt && segment ? { readAt: fittedAt, meterValue: segment.startMeter } : null;
+    const sameInstant = last && last.readAt.getTime() === replacedAt.getTime() ? last : null;
+    // The final value read at the instant of the last reading is that reading: nothing to store.
+    if (final !== null && sameInstant?.meterValue !== final) {
+      const fittedStart = fittedAt && segment ? { readAt: fittedAt, meterValue: segment.startMeter } : null;
+      const previous = sameInstant ? null : (last ?? fittedStart);
       const problem = readingProblem(
         { name: current.name, segmentStartedAt: fittedAt, previous, next: null, existingAtSameInstant: sameInstant },
         final,
@@ -231,6 +275,12 @@ export async function replaceMeter(
       .update(counter)
       .set({ currentSegment: next })
       .where(and(counterScope(scope), eq(counter.id, current.id)));
-    return { segment: next, startedAt: replacedAt.toISOString(), startMeter: input.newMeterStart, offsetHours, finalReadingStored };
+    return {
+      segment: next,
+      startedAt: replacedAt.toISOString(),
+      startMeter: input.newMeterStart,
+      offsetHours,
+      finalReadingStored,
+    };
   });
 }

@@ -88,7 +88,11 @@ export async function loadRegister(access: Access, vessel: VesselRef, now = new 
       last:
         c.lastAt === null
           ? null
-          : { readAt: new Date(c.lastAt).toISOString(), meterValue: Number(c.lastMeter), totalHours: Number(c.lastTotal) },
+          : {
+              readAt: new Date(c.lastAt).toISOString(),
+              meterValue: Number(c.lastMeter),
+              totalHours: Number(c.lastTotal),
+            },
       usedBy: components.filter((u) => u.counterId === c.id).map(({ id, code, name }) => ({ id, code, name })),
     })),
   };
@@ -102,7 +106,10 @@ function toView(row: ComponentRow): Omit<RegisterComponent, "effectiveCounter"> 
 }
 
 async function nextSortOrder(tx: Tx, scope: RegisterScope): Promise<number> {
-  const [row] = await tx.select({ last: max(component.sortOrder) }).from(component).where(componentScope(scope));
+  const [row] = await tx
+    .select({ last: max(component.sortOrder) })
+    .from(component)
+    .where(componentScope(scope));
   return (row?.last ?? -1) + 1;
 }
 
@@ -170,7 +177,12 @@ export async function updateComponent(
     const moves = change.parentId !== undefined && change.parentId !== current.parentId;
     if (moves && change.parentId && !errors.some((e) => e.field === "parentId")) {
       const rows = await tx
-        .select({ id: component.id, parentId: component.parentId, code: component.code, counterId: component.counterId })
+        .select({
+          id: component.id,
+          parentId: component.parentId,
+          code: component.code,
+          counterId: component.counterId,
+        })
         .from(component)
         .where(componentScope(scope));
       if (wouldCreateCycle(rows, current.id, change.parentId)) {

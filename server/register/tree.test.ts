@@ -40,7 +40,16 @@ const rows: TreeRow[] = [
 describe("buildTree", () => {
   it("nests rows under their parents, siblings by sort order then code", () => {
     const order = inTreeOrder(buildTree(rows)).map((n) => `${"  ".repeat(n.depth)}${n.row.code}`);
-    expect(order).toEqual(["ME", "  ME.TC", "  ME.CYL", "    ME.CYL.1", "    ME.CYL.2", "      ME.CYL.2.INJ", "AC", "  AC.RCV"]);
+    expect(order).toEqual([
+      "ME",
+      "  ME.TC",
+      "  ME.CYL",
+      "    ME.CYL.1",
+      "    ME.CYL.2",
+      "      ME.CYL.2.INJ",
+      "AC",
+      "  AC.RCV",
+    ]);
   });
 
   it("sorts codes with numbers as an engineer counts: CYL.2 before CYL.10", () => {
@@ -78,7 +87,11 @@ describe("resolveCounters", () => {
   });
 
   it("the nearest ancestor with a counter wins over one further up", () => {
-    expect(counters.get("ME.CYL.2.INJ")).toEqual({ kind: "inherited", counterId: "c-cyl2", fromComponentId: "ME.CYL.2" });
+    expect(counters.get("ME.CYL.2.INJ")).toEqual({
+      kind: "inherited",
+      counterId: "c-cyl2",
+      fromComponentId: "ME.CYL.2",
+    });
   });
 
   it("no counter anywhere above: none", () => {

@@ -16,7 +16,10 @@ let engineer: Session;
 let now: Date;
 const HOUR = 3_600_000;
 const replacements = (counterId: string) => `/api/vessels/${f.vesselA.id}/counters/${counterId}/replacements`;
-const shipTime = (instant: Date) => ({ shipDay: shipDay(instant, f.vesselA.timeZone), time: shipClock(instant, f.vesselA.timeZone) });
+const shipTime = (instant: Date) => ({
+  shipDay: shipDay(instant, f.vesselA.timeZone),
+  time: shipClock(instant, f.vesselA.timeZone),
+});
 
 beforeAll(async () => {
   now = new Date(Math.floor(Date.now() / 60_000) * 60_000);
@@ -35,9 +38,19 @@ describe("bad replacements are 422 on the field, and change nothing", () => {
   const twelveHoursAgo = () => shipTime(new Date(now.getTime() - 12 * HOUR));
 
   it.each([
-    ["no reason", () => ({ replacedAt: twelveHoursAgo(), oldMeterFinal: 1005, reason: " " }), "reason", /Enter the reason/],
+    [
+      "no reason",
+      () => ({ replacedAt: twelveHoursAgo(), oldMeterFinal: 1005, reason: " " }),
+      "reason",
+      /Enter the reason/,
+    ],
     ["no time", () => ({ oldMeterFinal: 1005, reason: "Meter failed" }), "replacedAt", /ship’s day and time/],
-    ["a time that is not HH:MM", () => ({ replacedAt: { shipDay: "2026-03-01", time: "9am" }, reason: "x" }), "replacedAt.time", /HH:MM/],
+    [
+      "a time that is not HH:MM",
+      () => ({ replacedAt: { shipDay: "2026-03-01", time: "9am" }, reason: "x" }),
+      "replacedAt.time",
+      /HH:MM/,
+    ],
     [
       "a time in the future",
       () => ({ replacedAt: shipTime(new Date(now.getTime() + 48 * HOUR)), reason: "Meter failed" }),
@@ -101,7 +114,12 @@ describe("a replacement with the old meter's final value", () => {
       .select()
       .from(s.counterSegment)
       .where(and(eq(s.counterSegment.counterId, f.counters.main.id), eq(s.counterSegment.segment, 2)));
-    expect(segment).toMatchObject({ startedAt: replacedAt, startMeter: 0, offsetHours: 1010, createdBy: f.users["chief-engineer"].id });
+    expect(segment).toMatchObject({
+      startedAt: replacedAt,
+      startMeter: 0,
+      offsetHours: 1010,
+      createdBy: f.users["chief-engineer"].id,
+    });
 
     // The second engineer logs the new meter at 5 h, 12 h after the change: total 1,015 h.
     const reading = await api(engineer, "POST", `/api/vessels/${f.vesselA.id}/readings`, {
@@ -118,7 +136,11 @@ describe("a replacement with the old meter's final value", () => {
 
     const view = await api<RegisterView>(chief, "GET", `/api/vessels/${f.vesselA.id}/register`);
     const main = view.body.counters.find((c) => c.id === f.counters.main.id);
-    expect(main).toMatchObject({ segment: 2, segmentStartedAt: replacedAt.toISOString(), last: { meterValue: 5, totalHours: 1015 } });
+    expect(main).toMatchObject({
+      segment: 2,
+      segmentStartedAt: replacedAt.toISOString(),
+      last: { meterValue: 5, totalHours: 1015 },
+    });
   });
 
   it("a reading of the new meter is checked against its start, not the old meter", async () => {
@@ -150,5 +172,33 @@ describe("a replacement without a final value, onto a meter that does not start 
     expect(reading.status, JSON.stringify(reading.body)).toBe(201);
     const last = (await readingsOf(f.counters.gen.id)).at(-1);
     expect(last).toMatchObject({ segment: 2, meterValue: 251.5, totalHours: 501.5 });
+  });
+});
+
+describe("a replacement at the very instant of the old meter's last reading", () => {
+  // After the first test, Main engine's meter 2 shows 5 h at `now` (total 1,015 h).
+  it("refuses a different final value: that instant already has its reading", async () => {
+    const before = await registerRows(f.companyId);
+    const res = await api<Problem>(chief, "POST", replacements(f.counters.main.id), {
+      replacedAt: shipTime(now),
+      oldMeterFinal: 6,
+      reason: "Meter renewed",
+    });
+    expect(res.status).toBe(422);
+    expect(res.body.errors?.[0]).toMatchObject({ field: "oldMeterFinal" });
+    expect(res.body.errors?.[0]?.message).toMatch(/there is already a reading at .* \(5 h\)/);
+    expect(await registerRows(f.companyId)).toEqual(before);
+  });
+
+  it("takes that reading as the final value: nothing new stored, the total carries on from it", async () => {
+    const before = await registerRows(f.companyId);
+    const res = await api<MeterReplacementResult>(chief, "POST", replacements(f.counters.main.id), {
+      replacedAt: shipTime(now),
+      oldMeterFinal: 5,
+      reason: "Meter renewed",
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body).toMatchObject({ segment: 3, offsetHours: 1015, finalReadingStored: false });
+    expect(await registerRows(f.companyId)).toEqual({ ...before, segments: before.segments + 1 });
   });
 });

@@ -31,7 +31,11 @@ function routes(f: Fixture, r: Register): Route[] {
     { method: "GET", path: `${v}/register` },
     { method: "POST", path: `${v}/components`, body: { code: `NEW.${randomUUID().slice(0, 6)}`, name: "New part" } },
     { method: "PATCH", path: `${v}/components/${r.cyl3.id}`, body: { name: "Cylinder unit no. 3" } },
-    { method: "POST", path: `${v}/counters`, body: { name: `Counter ${randomUUID().slice(0, 6)}`, plannedHoursPerDay: 4 } },
+    {
+      method: "POST",
+      path: `${v}/counters`,
+      body: { name: `Counter ${randomUUID().slice(0, 6)}`, plannedHoursPerDay: 4 },
+    },
     { method: "PATCH", path: `${v}/counters/${r.spare.id}`, body: { plannedHoursPerDay: 6 } },
     { method: "DELETE", path: `${v}/counters/${r.spare.id}` },
     {
@@ -105,26 +109,37 @@ describe("roles", () => {
     }
   });
 
-  it.each(["engineer", "viewer", "superintendent"] as const)("the %s may not change it: 403, nothing written", async (role) => {
-    const before = await registerRows(one.companyId);
-    for (const r of routes(one, oneRegister).filter((x) => x.method !== "GET")) {
-      const res = await api<Problem>(sessions[role], r.method, r.path, r.body);
-      expect(res.status, `${role} ${r.method} ${r.path}`).toBe(403);
-      expect(res.body.title).toBe("Not allowed");
-    }
-    expect(await registerRows(one.companyId)).toEqual(before);
-  });
+  it.each(["engineer", "viewer", "superintendent"] as const)(
+    "the %s may not change it: 403, nothing written",
+    async (role) => {
+      const before = await registerRows(one.companyId);
+      for (const r of routes(one, oneRegister).filter((x) => x.method !== "GET")) {
+        const res = await api<Problem>(sessions[role], r.method, r.path, r.body);
+        expect(res.status, `${role} ${r.method} ${r.path}`).toBe(403);
+        expect(res.body.title).toBe("Not allowed");
+      }
+      expect(await registerRows(one.companyId)).toEqual(before);
+    },
+  );
 
   it.each(["chief-engineer", "admin"] as const)("the %s may add and edit components and counters", async (role) => {
     const v = `/api/vessels/${one.vesselA.id}`;
     const code = `${role === "admin" ? "ADM" : "CE"}.${randomUUID().slice(0, 4)}`;
-    const added = await api<{ id: string; code: string }>(sessions[role], "POST", `${v}/components`, { code, name: "Bilge pump" });
+    const added = await api<{ id: string; code: string }>(sessions[role], "POST", `${v}/components`, {
+      code,
+      name: "Bilge pump",
+    });
     expect(added.status).toBe(201);
     const edited = await api(sessions[role], "PATCH", `${v}/components/${added.body.id}`, { name: "Bilge pump 1" });
     expect(edited.status).toBe(200);
-    const counter = await api<{ id: string }>(sessions[role], "POST", `${v}/counters`, { name: `Bilge pump ${role}`, plannedHoursPerDay: 1 });
+    const counter = await api<{ id: string }>(sessions[role], "POST", `${v}/counters`, {
+      name: `Bilge pump ${role}`,
+      plannedHoursPerDay: 1,
+    });
     expect(counter.status).toBe(201);
-    const renamed = await api(sessions[role], "PATCH", `${v}/counters/${counter.body.id}`, { plannedHoursPerDay: "1.5" });
+    const renamed = await api(sessions[role], "PATCH", `${v}/counters/${counter.body.id}`, {
+      plannedHoursPerDay: "1.5",
+    });
     expect(renamed.status).toBe(200);
     const retired = await api(sessions[role], "DELETE", `${v}/counters/${counter.body.id}`);
     expect(retired.status).toBe(200);

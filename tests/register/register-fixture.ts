@@ -18,14 +18,35 @@ export type Register = Awaited<ReturnType<typeof seedRegister>>;
 export async function seedRegister(f: Fixture) {
   const db = testDb();
   const base = { companyId: f.companyId, vesselId: f.vesselA.id };
-  const [spare] = await db.insert(s.counter).values({ ...base, name: "Spare meter", sortOrder: 2 }).returning();
-  const [me] = await db.insert(s.component).values({ ...base, code: "ME", name: "Main engine", counterId: f.counters.main.id, critical: true }).returning();
-  const [cyl] = await db.insert(s.component).values({ ...base, code: "ME.CYL", name: "Cylinder units", parentId: me!.id, sortOrder: 1 }).returning();
-  const [cyl3] = await db.insert(s.component).values({ ...base, code: "ME.CYL.3", name: "Cylinder unit 3", parentId: cyl!.id, sortOrder: 2 }).returning();
-  const [ae1] = await db.insert(s.component).values({ ...base, code: "AE.1", name: "Generator set 1", counterId: f.counters.gen.id, sortOrder: 3 }).returning();
+  const [spare] = await db
+    .insert(s.counter)
+    .values({ ...base, name: "Spare meter", sortOrder: 2 })
+    .returning();
+  const [me] = await db
+    .insert(s.component)
+    .values({ ...base, code: "ME", name: "Main engine", counterId: f.counters.main.id, critical: true })
+    .returning();
+  const [cyl] = await db
+    .insert(s.component)
+    .values({ ...base, code: "ME.CYL", name: "Cylinder units", parentId: me!.id, sortOrder: 1 })
+    .returning();
+  const [cyl3] = await db
+    .insert(s.component)
+    .values({ ...base, code: "ME.CYL.3", name: "Cylinder unit 3", parentId: cyl!.id, sortOrder: 2 })
+    .returning();
+  const [ae1] = await db
+    .insert(s.component)
+    .values({ ...base, code: "AE.1", name: "Generator set 1", counterId: f.counters.gen.id, sortOrder: 3 })
+    .returning();
   const [otherVessel] = await db
     .insert(s.component)
-    .values({ companyId: f.companyId, vesselId: f.vesselB.id, code: "B.ME", name: "Main engine of B", counterId: f.counters.otherVessel.id })
+    .values({
+      companyId: f.companyId,
+      vesselId: f.vesselB.id,
+      code: "B.ME",
+      name: "Main engine of B",
+      counterId: f.counters.otherVessel.id,
+    })
     .returning();
   return { me: me!, cyl: cyl!, cyl3: cyl3!, ae1: ae1!, otherVessel: otherVessel!, spare: spare! };
 }

@@ -37,7 +37,11 @@ describe("GET register", () => {
     expect(res.status).toBe(200);
     const byCode = new Map(res.body.components.map((c) => [c.code, c]));
     expect(byCode.get("ME")?.effectiveCounter).toEqual({ kind: "own", counterId: f.counters.main.id });
-    expect(byCode.get("ME.CYL.3")?.effectiveCounter).toEqual({ kind: "inherited", counterId: f.counters.main.id, fromComponentId: r.me.id });
+    expect(byCode.get("ME.CYL.3")?.effectiveCounter).toEqual({
+      kind: "inherited",
+      counterId: f.counters.main.id,
+      fromComponentId: r.me.id,
+    });
     expect(byCode.has("B.ME")).toBe(false);
     const main = res.body.counters.find((c) => c.id === f.counters.main.id);
     expect(main).toMatchObject({ name: "Main engine", segment: 1, last: { meterValue: 1000, totalHours: 1000 } });
@@ -46,7 +50,8 @@ describe("GET register", () => {
 });
 
 describe("POST components: bad input is 422 on the field, nothing written", () => {
-  const post = (body: object, field: string, message: RegExp) => expect422("POST", `${v()}/components`, body, field, message);
+  const post = (body: object, field: string, message: RegExp) =>
+    expect422("POST", `${v()}/components`, body, field, message);
 
   it.each([
     ["a code starting with a dot", { code: ".ME", name: "x" }, "code", /only letters, digits and \. _ -/],
@@ -57,7 +62,12 @@ describe("POST components: bad input is 422 on the field, nothing written", () =
     ["a name of 121 characters", { code: "X1", name: "n".repeat(121) }, "name", /120 characters or fewer/],
     ["a malformed parent id", { code: "X1", name: "x", parentId: "ME" }, "parentId", /not a component/],
     ["critical as text", { code: "X1", name: "x", critical: "yes" }, "critical", /yes or no/],
-    ["a long class item reference", { code: "X1", name: "x", classItemRef: "c".repeat(41) }, "classItemRef", /40 characters/],
+    [
+      "a long class item reference",
+      { code: "X1", name: "x", classItemRef: "c".repeat(41) },
+      "classItemRef",
+      /40 characters/,
+    ],
   ])("%s", async (_label, body, field, message) => {
     await post(body, field, message);
   });
@@ -67,12 +77,20 @@ describe("POST components: bad input is 422 on the field, nothing written", () =
   });
 
   it("a counter of another vessel, or one that does not exist", async () => {
-    await post({ code: "X1", name: "x", counterId: f.counters.otherVessel.id }, "counterId", /no such counter on Alpha/);
+    await post(
+      { code: "X1", name: "x", counterId: f.counters.otherVessel.id },
+      "counterId",
+      /no such counter on Alpha/,
+    );
     await post({ code: "X1", name: "x", counterId: randomUUID() }, "counterId", /no such counter/);
   });
 
   it("a code already used on the vessel, naming who uses it (whatever its case)", async () => {
-    await post({ code: "me.cyl.3", name: "Another" }, "code", /^ME\.CYL\.3 is already used on this vessel by Cylinder unit 3\.$/);
+    await post(
+      { code: "me.cyl.3", name: "Another" },
+      "code",
+      /^ME\.CYL\.3 is already used on this vessel by Cylinder unit 3\.$/,
+    );
   });
 
   it("a body that is not JSON", async () => {
@@ -91,7 +109,14 @@ describe("POST components: a good one", () => {
     });
     expect(res.status).toBe(201);
     const row = await componentById(res.body.id);
-    expect(row).toMatchObject({ code: "ME.CYL.4", parentId: r.cyl.id, classItemRef: "ME-CYL-4", maker: null, critical: false, counterId: null });
+    expect(row).toMatchObject({
+      code: "ME.CYL.4",
+      parentId: r.cyl.id,
+      classItemRef: "ME-CYL-4",
+      maker: null,
+      critical: false,
+      counterId: null,
+    });
     // The same code on vessel B is another vessel's business.
     const other = await api(chief, "POST", `${v()}/components`, { code: "B.ME", name: "Not B's" });
     expect(other.status).toBe(201);
@@ -108,7 +133,12 @@ describe("PATCH components: edit and move", () => {
 
   it("refuses a move under itself or under its own descendant, and leaves it where it was", async () => {
     await patch(r.cyl.id, { parentId: r.cyl.id }, "parentId", /ME\.CYL can’t be put under itself/);
-    await patch(r.me.id, { parentId: r.cyl3.id }, "parentId", /ME can’t be put under ME\.CYL\.3: ME\.CYL\.3 is part of ME/);
+    await patch(
+      r.me.id,
+      { parentId: r.cyl3.id },
+      "parentId",
+      /ME can’t be put under ME\.CYL\.3: ME\.CYL\.3 is part of ME/,
+    );
     expect((await componentById(r.me.id))?.parentId).toBeNull();
   });
 
@@ -126,8 +156,16 @@ describe("PATCH components: edit and move", () => {
     expect(res.status).toBe(200);
     const view = await api<RegisterView>(chief, "GET", `${v()}/register`);
     const moved = view.body.components.find((c) => c.id === r.cyl3.id);
-    expect(moved?.effectiveCounter).toEqual({ kind: "inherited", counterId: f.counters.gen.id, fromComponentId: r.ae1.id });
-    const back = await api(chief, "PATCH", `${v()}/components/${r.cyl3.id}`, { parentId: null, code: "me.cyl.3", critical: true });
+    expect(moved?.effectiveCounter).toEqual({
+      kind: "inherited",
+      counterId: f.counters.gen.id,
+      fromComponentId: r.ae1.id,
+    });
+    const back = await api(chief, "PATCH", `${v()}/components/${r.cyl3.id}`, {
+      parentId: null,
+      code: "me.cyl.3",
+      critical: true,
+    });
     expect(back.status).toBe(200);
     expect(await componentById(r.cyl3.id)).toMatchObject({ parentId: null, code: "ME.CYL.3", critical: true });
   });
@@ -139,13 +177,24 @@ describe("counters", () => {
     ["more than 24 h a day", { name: "Boiler", plannedHoursPerDay: 25 }, "plannedHoursPerDay", /from 0 to 24/],
     ["two decimals", { name: "Boiler", plannedHoursPerDay: "1.25" }, "plannedHoursPerDay", /at most one decimal/],
     ["no planned hours", { name: "Boiler" }, "plannedHoursPerDay", /planned running hours per day/],
-    ["a name in use, in another case", { name: "main ENGINE", plannedHoursPerDay: 4 }, "name", /already a counter named Main engine/],
+    [
+      "a name in use, in another case",
+      { name: "main ENGINE", plannedHoursPerDay: 4 },
+      "name",
+      /already a counter named Main engine/,
+    ],
   ])("POST refuses %s", async (_label, body, field, message) => {
     await expect422("POST", `${v()}/counters`, body, field, message);
   });
 
   it("PATCH refuses a bad planned rate and changes nothing", async () => {
-    await expect422("PATCH", `${v()}/counters/${f.counters.gen.id}`, { plannedHoursPerDay: "abc" }, "plannedHoursPerDay", /from 0 to 24/);
+    await expect422(
+      "PATCH",
+      `${v()}/counters/${f.counters.gen.id}`,
+      { plannedHoursPerDay: "abc" },
+      "plannedHoursPerDay",
+      /from 0 to 24/,
+    );
     expect((await counterById(f.counters.gen.id))?.plannedHoursPerDay).toBe(12);
   });
 
@@ -153,7 +202,9 @@ describe("counters", () => {
     const before = await registerRows(f.companyId);
     const res = await api<Problem>(chief, "DELETE", `${v()}/counters/${f.counters.gen.id}`);
     expect(res.status).toBe(409);
-    expect(res.body.detail).toMatch(/Generator 1 is still the counter of AE\.1 Generator set 1\. Give it another counter/);
+    expect(res.body.detail).toMatch(
+      /Generator 1 is still the counter of AE\.1 Generator set 1\. Give it another counter/,
+    );
     expect((await counterById(f.counters.gen.id))?.retiredAt).toBeNull();
     expect(await registerRows(f.companyId)).toEqual(before);
   });
@@ -162,7 +213,13 @@ describe("counters", () => {
     const res = await api(chief, "DELETE", `${v()}/counters/${r.spare.id}`);
     expect(res.status).toBe(200);
     expect((await counterById(r.spare.id))?.retiredAt).toBeInstanceOf(Date);
-    await expect422("PATCH", `${v()}/components/${r.cyl3.id}`, { counterId: r.spare.id }, "counterId", /Spare meter was retired on/);
+    await expect422(
+      "PATCH",
+      `${v()}/components/${r.cyl3.id}`,
+      { counterId: r.spare.id },
+      "counterId",
+      /Spare meter was retired on/,
+    );
     const again = await api<Problem>(chief, "PATCH", `${v()}/counters/${r.spare.id}`, { name: "Spare 2" });
     expect(again.status).toBe(409);
     const view = await api<RegisterView>(chief, "GET", `${v()}/register`);

@@ -73,7 +73,7 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
           "At the top level of the register"
         )}
       </p>
-      <div className="grid grid-cols-[10rem_1fr] gap-3">
+      <div className="grid grid-cols-[12rem_1fr] gap-3">
         <FormField id="component-code" label="Code" error={errors.code?.message}>
           <input
             className="field font-mono uppercase"
@@ -85,25 +85,49 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
           />
         </FormField>
         <FormField id="component-name" label="Name" error={errors.name?.message}>
-          <input className="field" autoComplete="off" {...describedBy("component-name", errors.name?.message)} {...register("name")} />
+          <input
+            className="field"
+            autoComplete="off"
+            {...describedBy("component-name", errors.name?.message)}
+            {...register("name")}
+          />
         </FormField>
       </div>
       <p className="-mt-2 text-xs text-ink-500 dark:text-ink-400">
-        Letters, digits and . _ - , up to 40 characters; typed in lower case, it is kept in capitals (me.cyl.3 → ME.CYL.3).
+        Letters, digits and . _ - , up to 40 characters; typed in lower case, it is kept in capitals (me.cyl.3 →
+        ME.CYL.3).
       </p>
 
       <div className="flex items-start gap-2">
-        <input id="component-critical" type="checkbox" className="mt-0.5 size-4 accent-brass-600" {...register("critical")} />
-        <label htmlFor="component-critical">
-          <span className="font-semibold">Critical equipment</span>
-          <span className="block text-xs text-ink-500 dark:text-ink-400">
-            Its sudden failure could cause a hazardous situation (ISM Code 10.3); its work comes first in planning.
-          </span>
-        </label>
+        <input
+          id="component-critical"
+          type="checkbox"
+          className="mt-0.5 size-4 accent-brass-600"
+          aria-describedby="component-critical-hint"
+          {...register("critical")}
+        />
+        <div>
+          <label htmlFor="component-critical" className="font-semibold">
+            Critical equipment
+          </label>
+          <p id="component-critical-hint" className="text-xs text-ink-500 dark:text-ink-400">
+            Its sudden failure could lead to a hazardous situation (ISM Code 10.3); its work comes first in planning.
+          </p>
+        </div>
       </div>
 
-      <FormField id="component-class" label="Class item reference" hint="Optional: the item’s number in the class survey list." error={errors.classItemRef?.message}>
-        <input className="field font-mono" autoComplete="off" {...describedBy("component-class", errors.classItemRef?.message, true)} {...register("classItemRef")} />
+      <FormField
+        id="component-class"
+        label="Class item reference"
+        hint="Optional: the item’s number in the class survey list."
+        error={errors.classItemRef?.message}
+      >
+        <input
+          className="field font-mono"
+          autoComplete="off"
+          {...describedBy("component-class", errors.classItemRef?.message, true)}
+          {...register("classItemRef")}
+        />
       </FormField>
 
       <FormField
@@ -128,10 +152,20 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
 
       <div className="grid grid-cols-2 gap-3">
         <FormField id="component-maker" label="Maker" error={errors.maker?.message}>
-          <input className="field" autoComplete="off" {...describedBy("component-maker", errors.maker?.message)} {...register("maker")} />
+          <input
+            className="field"
+            autoComplete="off"
+            {...describedBy("component-maker", errors.maker?.message)}
+            {...register("maker")}
+          />
         </FormField>
         <FormField id="component-model" label="Model" error={errors.model?.message}>
-          <input className="field" autoComplete="off" {...describedBy("component-model", errors.model?.message)} {...register("model")} />
+          <input
+            className="field"
+            autoComplete="off"
+            {...describedBy("component-model", errors.model?.message)}
+            {...register("model")}
+          />
         </FormField>
       </div>
 

@@ -12,7 +12,12 @@ import { useAddCounter, useChangeCounter } from "./use-register";
 type Values = z.input<typeof CounterInput>;
 type Output = z.output<typeof CounterInput>;
 
-type Props = { vesselId: string; counter: RegisterCounter | null; onDone: (message: string) => void; onCancel: () => void };
+type Props = {
+  vesselId: string;
+  counter: RegisterCounter | null;
+  onDone: (message: string) => void;
+  onCancel: () => void;
+};
 
 export function CounterForm({ vesselId, counter, onDone, onCancel }: Props) {
   const add = useAddCounter(vesselId);
@@ -29,7 +34,9 @@ export function CounterForm({ vesselId, counter, onDone, onCancel }: Props) {
     try {
       if (counter) await change.mutateAsync({ id: counter.id, change: values });
       else await add.mutateAsync(values);
-      onDone(counter ? `Counter ${values.name} saved.` : `Counter ${values.name} added; it now appears in the Hour log.`);
+      onDone(
+        counter ? `Counter ${values.name} saved.` : `Counter ${values.name} added; it now appears in the Hour log.`,
+      );
     } catch (error) {
       setProblem(showProblem(error, setError, ["name", "plannedHoursPerDay"]));
     }
@@ -37,8 +44,19 @@ export function CounterForm({ vesselId, counter, onDone, onCancel }: Props) {
 
   return (
     <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
-      <FormField id="counter-name" label="Name" hint="As the engineers know the meter, e.g. Generator engine 2." error={errors.name?.message}>
-        <input className="field" autoComplete="off" autoFocus {...describedBy("counter-name", errors.name?.message, true)} {...register("name")} />
+      <FormField
+        id="counter-name"
+        label="Name"
+        hint="As the engineers know the meter, e.g. Generator engine 2."
+        error={errors.name?.message}
+      >
+        <input
+          className="field"
+          autoComplete="off"
+          autoFocus
+          {...describedBy("counter-name", errors.name?.message, true)}
+          {...register("name")}
+        />
       </FormField>
       <FormField
         id="counter-planned"
@@ -58,7 +76,13 @@ export function CounterForm({ vesselId, counter, onDone, onCancel }: Props) {
           <span className="text-ink-500">h/day, 0 to 24</span>
         </div>
       </FormField>
-      <FormFooter submitLabel={counter ? "Save counter" : "Add counter"} busyLabel="Saving…" busy={isSubmitting} problem={problem} onCancel={onCancel} />
+      <FormFooter
+        submitLabel={counter ? "Save counter" : "Add counter"}
+        busyLabel="Saving…"
+        busy={isSubmitting}
+        problem={problem}
+        onCancel={onCancel}
+      />
     </form>
   );
 }

@@ -15,7 +15,10 @@ export function lookupOf(view: { counters: RegisterCounter[]; components: Regist
 }
 
 /** "Main engine", "uses Main engine of ME", or "no counter". */
-export function counterWords(effective: EffectiveCounter, lookup: Lookup): { text: string; inherited: boolean; none: boolean } {
+export function counterWords(
+  effective: EffectiveCounter,
+  lookup: Lookup,
+): { text: string; inherited: boolean; none: boolean } {
   if (effective.kind === "none") return { text: "no counter", inherited: false, none: true };
   const counter = lookup.counters.get(effective.counterId);
   const name = counter ? `${counter.name}${counter.retiredAt ? " (retired)" : ""}` : "a counter no longer listed";
@@ -31,6 +34,7 @@ export function inheritedUnder(parentId: string | null, lookup: Lookup): string 
   const effective = parent.effectiveCounter;
   if (effective.kind === "none") return "no counter: nothing above it has one";
   const name = lookup.counters.get(effective.counterId)?.name ?? "a counter";
-  const fromCode = effective.kind === "own" ? parent.code : (lookup.components.get(effective.fromComponentId)?.code ?? parent.code);
+  const fromCode =
+    effective.kind === "own" ? parent.code : (lookup.components.get(effective.fromComponentId)?.code ?? parent.code);
   return `${name} of ${fromCode}`;
 }

@@ -33,14 +33,24 @@ export function describedBy(id: string, error: string | undefined, hasHint = fal
   } as const;
 }
 
-type FooterProps = { submitLabel: string; busyLabel: string; busy: boolean; problem: string | null; onCancel: () => void; danger?: boolean };
+type FooterProps = {
+  submitLabel: string;
+  busyLabel: string;
+  busy: boolean;
+  problem: string | null;
+  onCancel: () => void;
+  danger?: boolean;
+};
 
 export function FormFooter({ submitLabel, busyLabel, busy, problem, onCancel, danger }: FooterProps) {
   return (
     <div className="grid gap-3 border-t border-ink-200 pt-4 dark:border-ink-800">
       <div aria-live="polite" className="empty:hidden">
         {problem && (
-          <p role="alert" className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300">
+          <p
+            role="alert"
+            className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
+          >
             {problem}
           </p>
         )}
@@ -48,7 +58,11 @@ export function FormFooter({ submitLabel, busyLabel, busy, problem, onCancel, da
       <div className="flex gap-2">
         <button
           type="submit"
-          className={danger ? "btn bg-alarm-600 text-white hover:bg-alarm-700 dark:bg-alarm-500 dark:hover:bg-alarm-600" : "btn-primary"}
+          className={
+            danger
+              ? "btn bg-alarm-600 text-white hover:bg-alarm-700 dark:bg-alarm-500 dark:hover:bg-alarm-600"
+              : "btn-primary"
+          }
           disabled={busy}
         >
           {busy ? busyLabel : submitLabel}

@@ -4,7 +4,14 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
-import { formatHours, formatShipTime, instantOfShipTime, shipClock, shipDay, utcOffsetLabel } from "@/server/format/hours";
+import {
+  formatHours,
+  formatShipTime,
+  instantOfShipTime,
+  shipClock,
+  shipDay,
+  utcOffsetLabel,
+} from "@/server/format/hours";
 import { MeterReplacementInput, type RegisterCounter, type RegisterView } from "@/server/register/contract";
 import { MeterValue } from "@/server/readings/contract";
 import { readingProblem, round1 } from "@/server/readings/rules";
@@ -14,7 +21,14 @@ import { useReplaceMeter } from "./use-register";
 
 type Values = z.input<typeof MeterReplacementInput>;
 type Output = z.output<typeof MeterReplacementInput>;
-const FIELDS = ["replacedAt", "replacedAt.shipDay", "replacedAt.time", "oldMeterFinal", "newMeterStart", "reason"] as const;
+const FIELDS = [
+  "replacedAt",
+  "replacedAt.shipDay",
+  "replacedAt.time",
+  "oldMeterFinal",
+  "newMeterStart",
+  "reason",
+] as const;
 
 type Props = { view: RegisterView; counter: RegisterCounter; onDone: (message: string) => void; onCancel: () => void };
 
@@ -33,8 +47,12 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
     },
   });
   const { errors, isSubmitting } = formState;
-  const [day, time, finalRaw, startRaw] = useWatch({ control, name: ["replacedAt.shipDay", "replacedAt.time", "oldMeterFinal", "newMeterStart"] });
-  const replacedAt = /^\d{4}-\d{2}-\d{2}$/.test(day) && /^\d{2}:\d{2}$/.test(time) ? instantOfShipTime(day, time, timeZone) : null;
+  const [day, time, finalRaw, startRaw] = useWatch({
+    control,
+    name: ["replacedAt.shipDay", "replacedAt.time", "oldMeterFinal", "newMeterStart"],
+  });
+  const replacedAt =
+    /^\d{4}-\d{2}-\d{2}$/.test(day) && /^\d{2}:\d{2}$/.test(time) ? instantOfShipTime(day, time, timeZone) : null;
   const last = counter.last;
   const lastAt = last ? new Date(last.readAt) : null;
 
@@ -44,38 +62,52 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
   const liveProblem =
     final?.success && replacedAt && last && lastAt && replacedAt > lastAt
       ? readingProblem(
-          { name: counter.name, segmentStartedAt: null, previous: { readAt: lastAt, meterValue: last.meterValue }, next: null, existingAtSameInstant: null },
+          {
+            name: counter.name,
+            segmentStartedAt: null,
+            previous: { readAt: lastAt, meterValue: last.meterValue },
+            next: null,
+            existingAtSameInstant: null,
+          },
           final.data,
           replacedAt,
           timeZone,
         )
       : null;
   const offsetNow = last ? round1(last.totalHours - last.meterValue) : null;
-  const totalAtChange = final?.success && offsetNow !== null ? round1(final.data + offsetNow) : (last?.totalHours ?? null);
+  const totalAtChange =
+    final?.success && offsetNow !== null ? round1(final.data + offsetNow) : (last?.totalHours ?? null);
 
   async function onSubmit(values: Output) {
     setProblem(null);
     try {
       const result = await replace.mutateAsync({ id: counter.id, input: values });
-      onDone(`${counter.name}: meter ${result.segment} fitted; totals carry on with an offset of ${formatHours(result.offsetHours)}.`);
+      onDone(
+        `${counter.name}: meter ${result.segment} fitted; totals carry on with an offset of ${formatHours(result.offsetHours)}.`,
+      );
     } catch (error) {
       setProblem(showProblem(error, setError, FIELDS));
     }
   }
 
-  const timeError = errors.replacedAt?.shipDay?.message ?? errors.replacedAt?.time?.message ?? errors.replacedAt?.message;
+  const timeError =
+    errors.replacedAt?.shipDay?.message ?? errors.replacedAt?.time?.message ?? errors.replacedAt?.message;
   return (
     <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
-      <div role="note" className="rounded-md border border-brass-400 bg-brass-100 px-3 py-2 text-brass-700 dark:border-brass-600 dark:bg-brass-700/20 dark:text-brass-300">
+      <div
+        role="note"
+        className="rounded-md border border-brass-400 bg-brass-100 px-3 py-2 text-brass-700 dark:border-brass-600 dark:bg-brass-700/20 dark:text-brass-300"
+      >
         <p className="font-semibold">Read the old meter before it comes off.</p>
         <p>
-          Its final value closes the old meter’s hours; without it, the hours run since the last reading are lost. Isolate the
-          meter’s supply before removing it; the maker’s instructions and the ship’s safety procedures prevail.
+          Its final value closes the old meter’s hours; without it, the hours run since the last reading are lost.
+          Isolate the meter’s supply before removing it; the maker’s instructions and the ship’s safety procedures
+          prevail.
         </p>
       </div>
 
       <p className="text-ink-600 dark:text-ink-300">
-        Meter {counter.segment} fitted now.{" "}
+        Meter {counter.segment} is fitted now.{" "}
         {last && lastAt ? (
           <>
             Last reading {formatHours(last.meterValue)} on {formatShipTime(lastAt, timeZone)}
@@ -101,7 +133,7 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
           <input
             type="time"
             aria-label="Ship’s time of the replacement"
-            className="field w-28"
+            className="field w-32"
             aria-invalid={timeError ? true : undefined}
             aria-describedby={timeError ? "replaced-at-error" : undefined}
             {...register("replacedAt.time")}
@@ -134,7 +166,12 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
         />
       </FormField>
 
-      <FormField id="new-meter-start" label="Value shown by the new meter (h)" hint="Usually 0 for a new meter." error={errors.newMeterStart?.message}>
+      <FormField
+        id="new-meter-start"
+        label="Value shown by the new meter (h)"
+        hint="Usually 0 for a new meter."
+        error={errors.newMeterStart?.message}
+      >
         <input
           className="field w-40 text-right tabular-nums"
           inputMode="decimal"
@@ -145,17 +182,29 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
       </FormField>
 
       <FormField id="replacement-reason" label="Reason" error={errors.reason?.message}>
-        <textarea rows={2} className="field" placeholder="e.g. Display failed; meter renewed" {...describedBy("replacement-reason", errors.reason?.message)} {...register("reason")} />
+        <textarea
+          rows={2}
+          className="field"
+          placeholder="e.g. Display failed; meter renewed"
+          {...describedBy("replacement-reason", errors.reason?.message)}
+          {...register("reason")}
+        />
       </FormField>
 
-      {totalAtChange !== null && start.success && (
+      {totalAtChange !== null && start.success && !liveProblem && (
         <p className="rounded-md bg-ink-100 px-3 py-2 text-ink-700 tabular-nums dark:bg-ink-850 dark:text-ink-200">
           Total at the change {formatHours(totalAtChange)}; the new meter’s readings count on from there (offset{" "}
           {formatHours(round1(totalAtChange - start.data))}).
         </p>
       )}
 
-      <FormFooter submitLabel="Record the new meter" busyLabel="Recording…" busy={isSubmitting} problem={problem} onCancel={onCancel} />
+      <FormFooter
+        submitLabel="Record the new meter"
+        busyLabel="Recording…"
+        busy={isSubmitting}
+        problem={problem}
+        onCancel={onCancel}
+      />
     </form>
   );
 }

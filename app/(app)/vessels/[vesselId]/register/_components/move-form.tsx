@@ -14,7 +14,12 @@ import { useChangeComponent } from "./use-register";
 type Values = z.input<typeof ComponentMove>;
 type Output = z.output<typeof ComponentMove>;
 
-type Props = { view: RegisterView; component: RegisterComponent; onDone: (message: string) => void; onCancel: () => void };
+type Props = {
+  view: RegisterView;
+  component: RegisterComponent;
+  onDone: (message: string) => void;
+  onCancel: () => void;
+};
 
 export function MoveForm({ view, component, onDone, onCancel }: Props) {
   const lookup = lookupOf(view);
@@ -69,7 +74,13 @@ export function MoveForm({ view, component, onDone, onCancel }: Props) {
           ))}
         </select>
       </FormField>
-      <FormFooter submitLabel="Move component" busyLabel="Moving…" busy={formState.isSubmitting} problem={problem} onCancel={onCancel} />
+      <FormFooter
+        submitLabel="Move component"
+        busyLabel="Moving…"
+        busy={formState.isSubmitting}
+        problem={problem}
+        onCancel={onCancel}
+      />
     </form>
   );
 }

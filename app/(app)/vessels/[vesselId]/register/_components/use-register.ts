@@ -73,9 +73,12 @@ export function useRetireCounter(vesselId: string) {
 }
 
 export function useReplaceMeter(vesselId: string) {
-  return useRegisterWrite<{ id: string; input: MeterReplacementInput }, MeterReplacementResult>(vesselId, ({ id, input }) => ({
-    method: "POST",
-    path: `counters/${id}/replacements`,
-    body: input,
-  }));
+  return useRegisterWrite<{ id: string; input: MeterReplacementInput }, MeterReplacementResult>(
+    vesselId,
+    ({ id, input }) => ({
+      method: "POST",
+      path: `counters/${id}/replacements`,
+      body: input,
+    }),
+  );
 }
