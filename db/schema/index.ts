@@ -2,3 +2,4 @@ export * from "./auth";
 export * from "./machinery";
 export * from "./readings";
 export * from "./tenancy";
+export * from "./maintenance";

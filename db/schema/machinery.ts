@@ -9,25 +9,19 @@ import {
   numeric,
   pgTable,
   text,
-  timestamp,
   unique,
   uuid,
 } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { hours } from "./columns";
-import { company, vessel } from "./tenancy";
-
+import { companyRef, instant, nowStamp, vesselRef } from "./refs";
 
 export const counter = pgTable(
   "counter",
   {
     id: uuid().primaryKey().defaultRandom(),
-    companyId: uuid()
-      .notNull()
-      .references(() => company.id, { onDelete: "cascade" }),
-    vesselId: uuid()
-      .notNull()
-      .references(() => vessel.id, { onDelete: "cascade" }),
+    companyId: companyRef(),
+    vesselId: vesselRef(),
     name: text().notNull(),
     /** Planned running hours per day, used where reading history is too short for a rate. */
     plannedHoursPerDay: numeric({ precision: 4, scale: 1, mode: "number" }).notNull().default(12),
@@ -37,9 +31,9 @@ export const counter = pgTable(
     /** Written by the worker: hours per day over the look-back, or the planned rate. */
     runningRate: numeric({ precision: 4, scale: 1, mode: "number" }),
     rateBasis: text({ enum: ["measured", "planned"] }),
-    rateComputedAt: timestamp({ withTimezone: true }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    retiredAt: timestamp({ withTimezone: true }),
+    rateComputedAt: instant(),
+    createdAt: nowStamp(),
+    retiredAt: instant(),
   },
   (t) => [
     unique().on(t.companyId, t.vesselId, t.name),
@@ -56,20 +50,18 @@ export const counterSegment = pgTable(
   "counter_segment",
   {
     id: uuid().primaryKey().defaultRandom(),
-    companyId: uuid()
-      .notNull()
-      .references(() => company.id, { onDelete: "cascade" }),
+    companyId: companyRef(),
     counterId: uuid()
       .notNull()
       .references(() => counter.id, { onDelete: "cascade" }),
     segment: integer().notNull(),
-    startedAt: timestamp({ withTimezone: true }).notNull(),
+    startedAt: instant().notNull(),
     /** Meter value of the new meter when fitted. */
     startMeter: hours().notNull().default(0),
     offsetHours: hours().notNull(),
     reason: text(),
     createdBy: text().references(() => user.id, { onDelete: "set null" }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: nowStamp(),
   },
   (t) => [unique().on(t.counterId, t.segment), index().on(t.companyId, t.counterId)],
 );
@@ -78,12 +70,8 @@ export const component = pgTable(
   "component",
   {
     id: uuid().primaryKey().defaultRandom(),
-    companyId: uuid()
-      .notNull()
-      .references(() => company.id, { onDelete: "cascade" }),
-    vesselId: uuid()
-      .notNull()
-      .references(() => vessel.id, { onDelete: "cascade" }),
+    companyId: companyRef(),
+    vesselId: vesselRef(),
     parentId: uuid().references((): AnyPgColumn => component.id, { onDelete: "restrict" }),
     code: text().notNull(),
     name: text().notNull(),
@@ -94,8 +82,8 @@ export const component = pgTable(
     maker: text(),
     model: text(),
     sortOrder: integer().notNull().default(0),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: nowStamp(),
+    updatedAt: nowStamp(),
   },
   (t) => [
     unique().on(t.companyId, t.vesselId, t.code),

@@ -1,30 +1,25 @@
-import { index, integer, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { index, integer, pgTable, text, unique, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { hours } from "./columns";
 import { counter } from "./machinery";
-import { company, vessel } from "./tenancy";
-
+import { companyRef, instant, nowStamp, vesselRef } from "./refs";
 
 /** A value read off a counter's meter at an instant. `totalHours` = meter + the segment's offset. */
 export const reading = pgTable(
   "reading",
   {
     id: uuid().primaryKey().defaultRandom(),
-    companyId: uuid()
-      .notNull()
-      .references(() => company.id, { onDelete: "cascade" }),
-    vesselId: uuid()
-      .notNull()
-      .references(() => vessel.id, { onDelete: "cascade" }),
+    companyId: companyRef(),
+    vesselId: vesselRef(),
     counterId: uuid()
       .notNull()
       .references(() => counter.id, { onDelete: "cascade" }),
-    readAt: timestamp({ withTimezone: true }).notNull(),
+    readAt: instant().notNull(),
     segment: integer().notNull(),
     meterValue: hours().notNull(),
     totalHours: hours().notNull(),
     enteredBy: text().references(() => user.id, { onDelete: "set null" }),
-    enteredAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    enteredAt: nowStamp(),
     remark: text(),
   },
   (t) => [

@@ -1,15 +1,9 @@
 // The tenant (company), who belongs to it with which role, and its vessels.
 import { sql } from "drizzle-orm";
-import { check, index, pgEnum, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { check, index, integer, pgEnum, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 
-export const memberRole = pgEnum("member_role", [
-  "admin",
-  "superintendent",
-  "chief-engineer",
-  "engineer",
-  "viewer",
-]);
+export const memberRole = pgEnum("member_role", ["admin", "superintendent", "chief-engineer", "engineer", "viewer"]);
 
 export const company = pgTable("company", {
   id: uuid().primaryKey().defaultRandom(),
@@ -45,6 +39,8 @@ export const vessel = pgTable(
     imoNumber: text().notNull(),
     code: text().notNull(),
     timeZone: text().notNull(),
+    /** Last work-order sequence number used: WO-<code>-<sequence>. */
+    workOrderSeq: integer().notNull().default(0),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     retiredAt: timestamp({ withTimezone: true }),
   },

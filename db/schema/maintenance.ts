@@ -1,0 +1,220 @@
+// The maintenance plan and its due work: tolerance rules, routines, work orders, their state
+// changes and completions (issue 3). Every table carries company_id and its indexes start with it.
+import { sql } from "drizzle-orm";
+import {
+  boolean,
+  check,
+  date,
+  index,
+  integer,
+  jsonb,
+  numeric,
+  pgEnum,
+  pgTable,
+  text,
+  unique,
+  uniqueIndex,
+  uuid,
+} from "drizzle-orm/pg-core";
+import { user } from "./auth";
+import { hours } from "./columns";
+import { component, counter } from "./machinery";
+import { companyRef, instant, nowStamp, vesselRef } from "./refs";
+
+export const workOrderState = pgEnum("work_order_state", [
+  "scheduled",
+  "window-open",
+  "late",
+  "out-of-tolerance",
+  "deferred",
+  "done",
+]);
+
+export const intervalKind = pgEnum("interval_kind", ["hours", "calendar"]);
+export const toleranceUnit = pgEnum("tolerance_unit", ["days", "months", "hours", "percent"]);
+
+/** A company's late-work rule: matched to routines by interval kind and size. */
+export const toleranceRule = pgTable(
+  "tolerance_rule",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: companyRef(),
+    name: text().notNull(),
+    kind: intervalKind().notNull(),
+    /** Interval size range the rule matches: hours for `hours`, days for `calendar`. */
+    minInterval: numeric({ precision: 10, scale: 1, mode: "number" }).notNull(),
+    maxInterval: numeric({ precision: 10, scale: 1, mode: "number" }).notNull(),
+    windowBeforeValue: numeric({ precision: 8, scale: 2, mode: "number" }).notNull(),
+    windowBeforeUnit: toleranceUnit().notNull(),
+    graceAfterValue: numeric({ precision: 8, scale: 2, mode: "number" }).notNull(),
+    graceAfterUnit: toleranceUnit().notNull(),
+    capHours: hours(),
+    keepsAnniversary: boolean().notNull().default(false),
+    sortOrder: integer().notNull().default(0),
+    createdAt: nowStamp(),
+    updatedAt: nowStamp(),
+  },
+  (t) => [
+    unique().on(t.companyId, t.name),
+    index().on(t.companyId, t.kind),
+    check("tolerance_rule_range", sql`${t.minInterval} <= ${t.maxInterval}`),
+  ],
+);
+
+export type RoutineMeasurement = { name: string; unit: string; lower: number | null; upper: number | null };
+export type RoutineCaution =
+  "isolation" | "permit-to-work" | "enclosed-space" | "hot-work" | "starting-air" | "turning-gear";
+
+/** A maintenance task definition on a component: by running hours, a calendar rule, or both. */
+export const routine = pgTable(
+  "routine",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: companyRef(),
+    vesselId: vesselRef(),
+    componentId: uuid()
+      .notNull()
+      .references(() => component.id, { onDelete: "restrict" }),
+    title: text().notNull(),
+    description: text().notNull().default(""),
+    checklist: jsonb().$type<string[]>().notNull().default([]),
+    intervalHours: hours(),
+    /** RFC 5545 RRULE (without DTSTART). */
+    calendarRule: text(),
+    anchored: boolean().notNull().default(false),
+    /** The fixed anniversary an anchored routine keeps (class items). */
+    anchorDate: date({ mode: "string" }),
+    estimatedManHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull().default(1),
+    rank: text().notNull().default("engineer"),
+    needsEngineStop: boolean().notNull().default(false),
+    critical: boolean().notNull().default(false),
+    classRelated: boolean().notNull().default(false),
+    classItemRef: text(),
+    measurements: jsonb().$type<RoutineMeasurement[]>().notNull().default([]),
+    spareParts: text().notNull().default(""),
+    cautions: jsonb().$type<RoutineCaution[]>().notNull().default([]),
+    /** Where the count starts for a routine never done. */
+    baselineAt: instant(),
+    baselineHours: hours(),
+    /** Overrides the matched tolerance rule. */
+    toleranceRuleId: uuid().references(() => toleranceRule.id, { onDelete: "set null" }),
+    /** Bumped on every change, so the worker knows its rows are stale. */
+    revision: integer().notNull().default(1),
+    createdAt: nowStamp(),
+    updatedAt: nowStamp(),
+    retiredAt: instant(),
+  },
+  (t) => [
+    index().on(t.companyId, t.vesselId),
+    index().on(t.companyId, t.componentId),
+    check("routine_has_interval", sql`${t.intervalHours} is not null or ${t.calendarRule} is not null`),
+    check("routine_interval_positive", sql`${t.intervalHours} is null or ${t.intervalHours} > 0`),
+  ],
+);
+
+/** One due occurrence of a routine (or a corrective follow-up), written by the worker. */
+export const workOrder = pgTable(
+  "work_order",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: companyRef(),
+    vesselId: vesselRef(),
+    routineId: uuid().references(() => routine.id, { onDelete: "restrict" }),
+    componentId: uuid()
+      .notNull()
+      .references(() => component.id, { onDelete: "restrict" }),
+    counterId: uuid().references(() => counter.id, { onDelete: "set null" }),
+    /** WO-<vessel code>-<sequence>. */
+    number: text().notNull(),
+    /** 1 for a routine's first occurrence, 2 for the next… */
+    occurrence: integer().notNull(),
+    kind: text({ enum: ["planned", "corrective"] })
+      .notNull()
+      .default("planned"),
+    title: text().notNull(),
+    state: workOrderState().notNull(),
+    stateChangedAt: nowStamp(),
+    dueDate: instant(),
+    dueHours: hours(),
+    projectedDate: instant(),
+    calendarDue: instant(),
+    governing: intervalKind(),
+    windowOpensAt: instant(),
+    graceEndsAt: instant(),
+    windowOpensHours: hours(),
+    graceEndsHours: hours(),
+    remainingHours: hours(),
+    remainingDays: numeric({ precision: 8, scale: 1, mode: "number" }),
+    /** The chief's planned date, beside — never instead of — the computed due date. */
+    plannedDate: date({ mode: "string" }),
+    rank: text().notNull().default("engineer"),
+    estimatedManHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull().default(1),
+    needsEngineStop: boolean().notNull().default(false),
+    critical: boolean().notNull().default(false),
+    classRelated: boolean().notNull().default(false),
+    computedAt: nowStamp(),
+    completedAt: instant(),
+    createdAt: nowStamp(),
+  },
+  (t) => [
+    unique().on(t.companyId, t.number),
+    // One work order per routine occurrence: two workers racing cannot both insert it.
+    uniqueIndex("work_order_routine_occurrence").on(t.routineId, t.occurrence),
+    index().on(t.companyId, t.vesselId, t.state, t.dueDate),
+    index().on(t.companyId, t.vesselId, t.componentId),
+  ],
+);
+
+/** Every state change, with its time, so escalation acts once per change. */
+export const workOrderStateChange = pgTable(
+  "work_order_state_change",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: companyRef(),
+    workOrderId: uuid()
+      .notNull()
+      .references(() => workOrder.id, { onDelete: "cascade" }),
+    fromState: workOrderState(),
+    toState: workOrderState().notNull(),
+    changedAt: nowStamp(),
+    escalatedAt: instant(),
+  },
+  (t) => [index().on(t.companyId, t.workOrderId, t.changedAt)],
+);
+
+export type RecordedMeasurement = {
+  name: string;
+  unit: string;
+  value: number;
+  lower: number | null;
+  upper: number | null;
+  outOfLimits: boolean;
+};
+
+/** The record of a job done: checklist, measurements, counter value, who; approved by the chief. */
+export const completion = pgTable(
+  "completion",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: companyRef(),
+    vesselId: vesselRef(),
+    workOrderId: uuid()
+      .notNull()
+      .references(() => workOrder.id, { onDelete: "cascade" }),
+    doneAt: instant().notNull(),
+    counterHours: hours(),
+    manHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull(),
+    checklist: jsonb().$type<{ step: string; done: boolean }[]>().notNull().default([]),
+    measurements: jsonb().$type<RecordedMeasurement[]>().notNull().default([]),
+    remarks: text().notNull().default(""),
+    doneBy: text().references(() => user.id, { onDelete: "set null" }),
+    status: text({ enum: ["awaiting-approval", "approved", "returned"] })
+      .notNull()
+      .default("awaiting-approval"),
+    decidedBy: text().references(() => user.id, { onDelete: "set null" }),
+    decidedAt: instant(),
+    decisionNote: text(),
+    createdAt: nowStamp(),
+  },
+  (t) => [unique().on(t.workOrderId), index().on(t.companyId, t.vesselId, t.doneAt)],
+);
