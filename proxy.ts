@@ -11,5 +11,5 @@ export function proxy(request: NextRequest) {
 }
 
 export const config = {
-  matcher: ["/((?!api|_next|sign-in|favicon.ico|fonts).*)"],
+  matcher: ["/((?!api|_next|sign-in|favicon.ico|icon.svg|fonts).*)"],
 };
