@@ -21,7 +21,10 @@ await boss.work(recomputeVessel.name, { pollingIntervalSeconds: 1, batchSize: 1 
   for (const job of jobs) {
     const payload = recomputeVessel.payload.parse(job.data);
     const result = await recomputeVessel.handle(db, payload);
-    console.log(`[worker] ${recomputeVessel.name} ${payload.vesselId}: ${result.counters} counters`);
+    console.log(
+      `[worker] ${recomputeVessel.name} ${payload.vesselId}: ${result.counters} counters, ${result.created} work orders created, ${result.updated} updated, ${result.stateChanges} state changes` +
+        (result.skipped.length ? `, ${result.skipped.length} routines skipped` : ""),
+    );
   }
 });
 await boss.work(recomputeFleet.name, async () => {

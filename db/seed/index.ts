@@ -4,10 +4,11 @@ import { TZDate } from "@date-fns/tz";
 import { addDays, format } from "date-fns";
 import { hashPassword } from "better-auth/crypto";
 import { eq } from "drizzle-orm";
-import { closeDb, getDb } from "../client";
+import { closeDb, getDb, type Tx } from "../client";
 import * as s from "../schema";
 import { instantOfShipTime } from "../../server/format/hours";
-import { refreshRunningRates } from "../../server/scheduling/recompute";
+import { recomputeVessel } from "../../server/scheduling/recompute";
+import { seedRoutines, seedTolerancePresets } from "./plan";
 import { dailyHours, seededRandom, voyagePattern } from "./readings";
 import { componentsFor, countersFor, DEMO_PASSWORD, demoCompany, demoUsers, demoVessels } from "./scenario";
 
@@ -22,6 +23,7 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
   await db.transaction(async (tx) => {
     const [co] = await tx.insert(s.company).values(demoCompany).returning();
     const companyId = co!.id;
+    await seedTolerancePresets(tx, companyId);
     const vesselIds = new Map<string, string>();
 
     for (const v of demoVessels) {
@@ -63,7 +65,8 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
         componentIds.set(c.code, cr!.id);
       }
 
-      await seedReadings(tx, companyId, vesselId, v, counters, counterIds, now);
+      const totals = await seedReadings(tx, companyId, vesselId, v, counters, counterIds, now);
+      await seedRoutines(tx, companyId, vesselId, v, componentIds, totals, now);
     }
 
     const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -83,19 +86,19 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
       }
     }
   });
-  // What the worker would write after the readings: the running rate of every counter.
+  // What the worker would write after the readings: rates, work orders and their states.
   const [co] = await db.select().from(s.company).where(eq(s.company.slug, demoCompany.slug));
   for (const v of await db.select().from(s.vessel).where(eq(s.vessel.companyId, co!.id))) {
-    await refreshRunningRates(db, co!.id, v.id, now);
+    const run = await recomputeVessel(db, co!.id, v.id, now);
+    if (run.skipped.length)
+      console.warn(`[keelson] ${v.code}: ${run.skipped.length} routines skipped`, run.skipped.slice(0, 3));
   }
   return "created";
 }
 
-type SeedTx = Parameters<Parameters<ReturnType<typeof getDb>["transaction"]>[0]>[0];
-
 /** A year of daily readings at 09:00 ship's time, the last on the ship's day before `now`. */
 async function seedReadings(
-  tx: SeedTx,
+  tx: Tx,
   companyId: string,
   vesselId: string,
   v: (typeof demoVessels)[number],
@@ -108,6 +111,7 @@ async function seedReadings(
   const today = new TZDate(now, v.timeZone);
   const firstDay = addDays(today, -DAYS);
   const rows: (typeof s.reading.$inferInsert)[] = [];
+  const totals = new Map<string, { total: number; hoursPerDay: number }>();
 
   for (const c of counters) {
     const counterId = counterIds.get(c.key)!;
@@ -119,7 +123,8 @@ async function seedReadings(
     for (let day = 0; day < DAYS; day++) {
       const shipDay = format(addDays(firstDay, day), "yyyy-MM-dd");
       const readAt = instantOfShipTime(shipDay, READING_CLOCK, v.timeZone);
-      if (day > 0) total = Math.round((total + dailyHours(c, generatorIndex, v.generators, day, atSea[day]!, random)) * 10) / 10;
+      if (day > 0)
+        total = Math.round((total + dailyHours(c, generatorIndex, v.generators, day, atSea[day]!, random)) * 10) / 10;
       if (day === replacementDay) {
         // The old meter was read at 09:00 and the new one fitted straight after, showing 0.0 h.
         segment = 2;
@@ -146,10 +151,21 @@ async function seedReadings(
         totalHours: total,
       });
     }
-    await tx.insert(s.counterSegment).values({ companyId, counterId, segment: 1, startedAt: instantOfShipTime(format(firstDay, "yyyy-MM-dd"), "00:00", v.timeZone), startMeter: c.start, offsetHours: 0 });
+    await tx
+      .insert(s.counterSegment)
+      .values({
+        companyId,
+        counterId,
+        segment: 1,
+        startedAt: instantOfShipTime(format(firstDay, "yyyy-MM-dd"), "00:00", v.timeZone),
+        startMeter: c.start,
+        offsetHours: 0,
+      });
     if (segment === 2) await tx.update(s.counter).set({ currentSegment: 2 }).where(eq(s.counter.id, counterId));
+    totals.set(c.key, { total, hoursPerDay: (total - c.start) / DAYS });
   }
   for (let i = 0; i < rows.length; i += 2000) await tx.insert(s.reading).values(rows.slice(i, i + 2000));
+  return totals;
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

@@ -80,7 +80,12 @@ export const generatorRoutines = (n: number): DemoRoutine[] => [
     intervalHours: 2_000,
     manHours: 4,
     rank: "third-engineer",
-    checklist: ["Remove injectors", "Pressure test on the test bench", "Renew nozzles out of limits", "Refit to torque"],
+    checklist: [
+      "Remove injectors",
+      "Pressure test on the test bench",
+      "Renew nozzles out of limits",
+      "Refit to torque",
+    ],
     measurements: [{ name: "Opening pressure", unit: "bar", lower: 380, upper: 400 }],
     spareParts: "Nozzle tips, copper sealing rings",
     cautions: ["isolation"],
@@ -104,7 +109,11 @@ export const generatorRoutines = (n: number): DemoRoutine[] => [
     intervalHours: 100,
     manHours: 0.5,
     rank: "motorman",
-    checklist: ["Run at the maker's load for washing", "Inject the wash water", "Record exhaust temperatures before and after"],
+    checklist: [
+      "Run at the maker's load for washing",
+      "Inject the wash water",
+      "Record exhaust temperatures before and after",
+    ],
     cautions: [],
   },
 ];
@@ -119,7 +128,13 @@ export const vesselRoutines: DemoRoutine[] = [
     engineStop: true,
     critical: true,
     classRelated: true,
-    checklist: ["Engage turning gear, close starting air", "Ventilate the crankcase before entry", "Inspect bearings and running gear", "Take crankshaft deflections", "Close up"],
+    checklist: [
+      "Engage turning gear, close starting air",
+      "Ventilate the crankcase before entry",
+      "Inspect bearings and running gear",
+      "Take crankshaft deflections",
+      "Close up",
+    ],
     measurements: [{ name: "Deflection, unit 1", unit: "1/100 mm", lower: -10, upper: 10 }],
     cautions: ["isolation", "enclosed-space", "turning-gear", "starting-air", "permit-to-work"],
   },
@@ -166,7 +181,12 @@ export const vesselRoutines: DemoRoutine[] = [
     rank: "electrician",
     critical: true,
     // common practice and flag guidance; SOLAS II-1/43.7 requires periodic testing, no interval.
-    checklist: ["Check fuel, oil and coolant", "Start on both starting systems", "Run on load 15 minutes", "Record in the log"],
+    checklist: [
+      "Check fuel, oil and coolant",
+      "Start on both starting systems",
+      "Run on load 15 minutes",
+      "Record in the log",
+    ],
     cautions: [],
   },
   {
@@ -178,7 +198,11 @@ export const vesselRoutines: DemoRoutine[] = [
     rank: "chief-engineer",
     critical: true,
     classRelated: true,
-    checklist: ["Prepare the generator and switchboard", "Demonstrate automatic start and connection", "Record findings"],
+    checklist: [
+      "Prepare the generator and switchboard",
+      "Demonstrate automatic start and connection",
+      "Record findings",
+    ],
     cautions: ["isolation"],
   },
   {
@@ -243,7 +267,12 @@ export const vesselRoutines: DemoRoutine[] = [
     rank: "chief-engineer",
     critical: true,
     classRelated: true,
-    checklist: ["Shut down and cool", "Drain, open and ventilate", "Internal examination with the surveyor", "Close up and hydrostatic test"],
+    checklist: [
+      "Shut down and cool",
+      "Drain, open and ventilate",
+      "Internal examination with the surveyor",
+      "Close up and hydrostatic test",
+    ],
     cautions: ["isolation", "enclosed-space", "permit-to-work", "hot-work"],
   },
   {

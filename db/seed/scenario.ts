@@ -10,9 +10,27 @@ export type DemoRole = "admin" | "superintendent" | "chief-engineer" | "engineer
 export const demoUsers: { name: string; email: string; role: DemoRole; rank?: string; vessels: string[] }[] = [
   { name: "Ines Varga", email: "admin@brightwater.example", role: "admin", vessels: [] },
   { name: "Tomasz Lind", email: "super@brightwater.example", role: "superintendent", vessels: [] },
-  { name: "Rafael Okoro", email: "chief@brightwater.example", role: "chief-engineer", rank: "Chief engineer", vessels: ["AG", "CN"] },
-  { name: "Mika Sandoval", email: "second@brightwater.example", role: "engineer", rank: "Second engineer", vessels: ["AG"] },
-  { name: "Jonas Abara", email: "third@brightwater.example", role: "engineer", rank: "Third engineer", vessels: ["CN"] },
+  {
+    name: "Rafael Okoro",
+    email: "chief@brightwater.example",
+    role: "chief-engineer",
+    rank: "Chief engineer",
+    vessels: ["AG", "CN"],
+  },
+  {
+    name: "Mika Sandoval",
+    email: "second@brightwater.example",
+    role: "engineer",
+    rank: "Second engineer",
+    vessels: ["AG"],
+  },
+  {
+    name: "Jonas Abara",
+    email: "third@brightwater.example",
+    role: "engineer",
+    rank: "Third engineer",
+    vessels: ["CN"],
+  },
   { name: "Priya Anand", email: "viewer@brightwater.example", role: "viewer", vessels: ["AG"] },
 ];
 
@@ -22,7 +40,17 @@ export type DemoCounter = {
   /** Meter value a year ago. */
   start: number;
   /** How this counter's machine runs: see `dailyHours` in readings.ts. */
-  duty: "main" | "generator" | "emergency" | "compressor" | "purifier" | "continuous" | "boiler" | "steering" | "weekly-test" | "monthly-test";
+  duty:
+    | "main"
+    | "generator"
+    | "emergency"
+    | "compressor"
+    | "purifier"
+    | "continuous"
+    | "boiler"
+    | "steering"
+    | "weekly-test"
+    | "monthly-test";
   plannedHoursPerDay: number;
 };
 
@@ -49,7 +77,15 @@ export type DemoVessel = {
 
 // IMO numbers below are invented and carry a correct check digit (weights 7..2).
 export const demoVessels: DemoVessel[] = [
-  { name: "Aster Gale", code: "AG", imoNumber: "9512343", timeZone: "Asia/Singapore", generators: 3, meterReplacement: { counter: "AE2", daysAgo: 120 }, seed: 11 },
+  {
+    name: "Aster Gale",
+    code: "AG",
+    imoNumber: "9512343",
+    timeZone: "Asia/Singapore",
+    generators: 3,
+    meterReplacement: { counter: "AE2", daysAgo: 120 },
+    seed: 11,
+  },
   { name: "Corran Ness", code: "CN", imoNumber: "9633214", timeZone: "Europe/Amsterdam", generators: 4, seed: 23 },
   { name: "Hallam Reach", code: "HR", imoNumber: "9478121", timeZone: "America/Panama", generators: 3, seed: 37 },
   { name: "Sula Meridian", code: "SM", imoNumber: "9701451", timeZone: "Pacific/Auckland", generators: 3, seed: 41 },
@@ -67,8 +103,20 @@ export function countersFor(v: DemoVessel): DemoCounter[] {
     { key: "ME", name: "Main engine", start: 46_200 + v.seed * 311, duty: "main", plannedHoursPerDay: 18 },
     ...generators,
     { key: "EG", name: "Emergency generator", start: 640 + v.seed * 3, duty: "emergency", plannedHoursPerDay: 0.1 },
-    { key: "AC1", name: "Main air compressor 1", start: 9_100 + v.seed * 17, duty: "compressor", plannedHoursPerDay: 2 },
-    { key: "AC2", name: "Main air compressor 2", start: 8_750 + v.seed * 19, duty: "compressor", plannedHoursPerDay: 2 },
+    {
+      key: "AC1",
+      name: "Main air compressor 1",
+      start: 9_100 + v.seed * 17,
+      duty: "compressor",
+      plannedHoursPerDay: 2,
+    },
+    {
+      key: "AC2",
+      name: "Main air compressor 2",
+      start: 8_750 + v.seed * 19,
+      duty: "compressor",
+      plannedHoursPerDay: 2,
+    },
     { key: "PUF", name: "Fuel oil purifier 1", start: 31_400 + v.seed * 51, duty: "purifier", plannedHoursPerDay: 20 },
     { key: "PUL", name: "Lube oil purifier", start: 38_900 + v.seed * 47, duty: "continuous", plannedHoursPerDay: 23 },
     { key: "BLR", name: "Auxiliary boiler burner", start: 12_300 + v.seed * 29, duty: "boiler", plannedHoursPerDay: 6 },
@@ -87,12 +135,29 @@ export function componentsFor(v: DemoVessel): (DemoComponent & { parent?: string
     classItemRef: `ME-CYL-${i + 1}`,
   }));
   const generators = Array.from({ length: v.generators }, (_, i) => [
-    { code: `AE.${i + 1}`, name: `Generator set ${i + 1}`, parent: "AE", counter: `AE${i + 1}`, critical: true, classItemRef: `AE-${i + 1}`, maker: "Halvorsen Diesel", model: "H6L-23" },
+    {
+      code: `AE.${i + 1}`,
+      name: `Generator set ${i + 1}`,
+      parent: "AE",
+      counter: `AE${i + 1}`,
+      critical: true,
+      classItemRef: `AE-${i + 1}`,
+      maker: "Halvorsen Diesel",
+      model: "H6L-23",
+    },
     { code: `AE.${i + 1}.TC`, name: `Turbocharger, generator ${i + 1}`, parent: `AE.${i + 1}` },
     { code: `AE.${i + 1}.FIV`, name: `Fuel injection valves, generator ${i + 1}`, parent: `AE.${i + 1}` },
   ]).flat();
   return [
-    { code: "ME", name: "Main engine", counter: "ME", critical: true, classItemRef: "ME", maker: "Nordvik Motorwerk", model: "6NV50-MC" },
+    {
+      code: "ME",
+      name: "Main engine",
+      counter: "ME",
+      critical: true,
+      classItemRef: "ME",
+      maker: "Nordvik Motorwerk",
+      model: "6NV50-MC",
+    },
     { code: "ME.TC", name: "Main engine turbocharger", parent: "ME", critical: true, classItemRef: "ME-TC" },
     { code: "ME.CYL", name: "Cylinder units", parent: "ME" },
     ...cylinders,

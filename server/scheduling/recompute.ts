@@ -1,53 +1,91 @@
-// What the worker writes for one vessel. Data access shared with the worker process, which runs
-// with the react-server condition so that `server-only` resolves there too.
+// What the worker writes for one vessel, in one transaction: each counter's running rate, then
+// one open work order per routine with its due point, windows and state. Data access shared with
+// the worker process, which runs with the react-server condition so `server-only` resolves there.
 import "server-only";
 import { and, asc, eq, gte, inArray, isNull, lt, sql } from "drizzle-orm";
-import type { Db } from "@/db/client";
-import { counter, reading } from "@/db/schema";
+import type { Db, Tx } from "@/db/client";
+import { counter, reading, vessel } from "@/db/schema";
 import { DEFAULT_LOOKBACK_DAYS, type RateReading, runningRate } from "./running-rate";
+import { writeWorkOrders, type WorkOrderRunSummary } from "./work-order-writer";
 
-/** Recomputes every counter's running rate of a vessel in one transaction. */
-export async function refreshRunningRates(
+export type CounterNow = { totalHours: number; readAt: Date; hoursPerDay: number };
+
+/** Recomputes one vessel. Rerunning it changes nothing; two workers at once queue on a lock. */
+export async function recomputeVessel(
   db: Db,
   companyId: string,
   vesselId: string,
   now = new Date(),
-  lookbackDays = DEFAULT_LOOKBACK_DAYS,
-): Promise<number> {
-  const since = new Date(now.getTime() - lookbackDays * 86_400_000);
+): Promise<WorkOrderRunSummary & { counters: number }> {
   return db.transaction(async (tx) => {
-    // Locked in id order, the same order as the readings route handler locks them: two
-    // transactions that lock counters in one order cannot deadlock each other.
-    const counters = await tx
-      .select({ id: counter.id, planned: counter.plannedHoursPerDay })
-      .from(counter)
-      .where(and(eq(counter.companyId, companyId), eq(counter.vesselId, vesselId), isNull(counter.retiredAt)))
-      .orderBy(asc(counter.id))
-      .for("update");
-    if (counters.length === 0) return 0;
-    const ids = counters.map((c) => c.id);
-
-    const inWindow = await tx
-      .select({ counterId: reading.counterId, readAt: reading.readAt, totalHours: reading.totalHours })
-      .from(reading)
-      .where(and(eq(reading.companyId, companyId), inArray(reading.counterId, ids), gte(reading.readAt, since)));
-    // The last reading before the window of each counter, so the whole look-back is covered.
-    const before = await tx
-      .selectDistinctOn([reading.counterId], { counterId: reading.counterId, readAt: reading.readAt, totalHours: reading.totalHours })
-      .from(reading)
-      .where(and(eq(reading.companyId, companyId), inArray(reading.counterId, ids), lt(reading.readAt, since)))
-      .orderBy(reading.counterId, sql`${reading.readAt} desc`);
-
-    const byCounter = new Map<string, RateReading[]>(ids.map((id) => [id, []]));
-    for (const r of [...before, ...inWindow]) byCounter.get(r.counterId)?.push(r);
-
-    for (const c of counters) {
-      const rate = runningRate(byCounter.get(c.id) ?? [], now, c.planned, lookbackDays);
-      await tx
-        .update(counter)
-        .set({ runningRate: rate.hoursPerDay, rateBasis: rate.basis, rateComputedAt: now })
-        .where(and(eq(counter.companyId, companyId), eq(counter.id, c.id)));
-    }
-    return counters.length;
+    await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`recompute:${vesselId}`}, 0))`);
+    const [v] = await tx
+      .select({ code: vessel.code, timeZone: vessel.timeZone, workOrderSeq: vessel.workOrderSeq })
+      .from(vessel)
+      .where(and(eq(vessel.companyId, companyId), eq(vessel.id, vesselId)));
+    if (!v) return { counters: 0, created: 0, updated: 0, stateChanges: 0, skipped: [] };
+    const counters = await refreshRunningRatesIn(tx, companyId, vesselId, now);
+    const summary = await writeWorkOrders(tx, { companyId, vesselId, vessel: v, counters, now });
+    return { counters: counters.size, ...summary };
   });
+}
+
+/** Only the running rates, in a transaction of their own (kept for callers that need no more). */
+export async function refreshRunningRates(db: Db, companyId: string, vesselId: string, now = new Date()) {
+  return db.transaction(async (tx) => (await refreshRunningRatesIn(tx, companyId, vesselId, now)).size);
+}
+
+async function refreshRunningRatesIn(
+  tx: Tx,
+  companyId: string,
+  vesselId: string,
+  now: Date,
+  lookbackDays = DEFAULT_LOOKBACK_DAYS,
+): Promise<Map<string, CounterNow | null>> {
+  const since = new Date(now.getTime() - lookbackDays * 86_400_000);
+  // Locked in id order, the same order as the readings route handler locks them: two
+  // transactions that lock counters in one order cannot deadlock each other.
+  const counters = await tx
+    .select({ id: counter.id, planned: counter.plannedHoursPerDay })
+    .from(counter)
+    .where(and(eq(counter.companyId, companyId), eq(counter.vesselId, vesselId), isNull(counter.retiredAt)))
+    .orderBy(asc(counter.id))
+    .for("update");
+  const result = new Map<string, CounterNow | null>();
+  if (counters.length === 0) return result;
+  const ids = counters.map((c) => c.id);
+
+  const inWindow = await tx
+    .select({ counterId: reading.counterId, readAt: reading.readAt, totalHours: reading.totalHours })
+    .from(reading)
+    .where(and(eq(reading.companyId, companyId), inArray(reading.counterId, ids), gte(reading.readAt, since)));
+  // The last reading before the window of each counter, so the whole look-back is covered; it is
+  // also the latest reading of a counter that has none inside the window.
+  const before = await tx
+    .selectDistinctOn([reading.counterId], {
+      counterId: reading.counterId,
+      readAt: reading.readAt,
+      totalHours: reading.totalHours,
+    })
+    .from(reading)
+    .where(and(eq(reading.companyId, companyId), inArray(reading.counterId, ids), lt(reading.readAt, since)))
+    .orderBy(reading.counterId, sql`${reading.readAt} desc`);
+
+  const byCounter = new Map<string, RateReading[]>(ids.map((id) => [id, []]));
+  for (const r of [...before, ...inWindow]) byCounter.get(r.counterId)?.push(r);
+
+  for (const c of counters) {
+    const history = byCounter.get(c.id) ?? [];
+    const rate = runningRate(history, now, c.planned, lookbackDays);
+    await tx
+      .update(counter)
+      .set({ runningRate: rate.hoursPerDay, rateBasis: rate.basis, rateComputedAt: now })
+      .where(and(eq(counter.companyId, companyId), eq(counter.id, c.id)));
+    const latest = history.reduce<RateReading | null>((a, b) => (!a || b.readAt > a.readAt ? b : a), null);
+    result.set(
+      c.id,
+      latest ? { totalHours: latest.totalHours, readAt: latest.readAt, hoursPerDay: rate.hoursPerDay } : null,
+    );
+  }
+  return result;
 }

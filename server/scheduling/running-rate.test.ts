@@ -33,6 +33,9 @@ describe("runningRate", () => {
   });
 
   it("a stopped machine has a measured rate of 0", () => {
-    expect(runningRate([daysAgo(20, 500), daysAgo(0, 500)], now, 12)).toMatchObject({ hoursPerDay: 0, basis: "measured" });
+    expect(runningRate([daysAgo(20, 500), daysAgo(0, 500)], now, 12)).toMatchObject({
+      hoursPerDay: 0,
+      basis: "measured",
+    });
   });
 });

@@ -10,7 +10,10 @@ export const recomputeFleet = {
   /** Cron in UTC; KEELSON_NIGHTLY_CRON overrides it. */
   cron: process.env.KEELSON_NIGHTLY_CRON ?? "15 0 * * *",
   async handle(db: Db, boss: PgBoss) {
-    const vessels = await db.select({ id: vessel.id, companyId: vessel.companyId }).from(vessel).where(isNull(vessel.retiredAt));
+    const vessels = await db
+      .select({ id: vessel.id, companyId: vessel.companyId })
+      .from(vessel)
+      .where(isNull(vessel.retiredAt));
     for (const v of vessels) {
       await boss.send(recomputeVessel.name, { companyId: v.companyId, vesselId: v.id }, { singletonKey: v.id });
     }

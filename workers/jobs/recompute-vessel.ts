@@ -2,13 +2,12 @@
 // nightly fan-out, because calendar time passes without readings.
 import { z } from "zod";
 import type { Db } from "@/db/client";
-import { refreshRunningRates } from "@/server/scheduling/recompute";
+import { recomputeVessel as recompute } from "@/server/scheduling/recompute";
 
 export const recomputeVessel = {
   name: "vessel-recompute",
   payload: z.object({ companyId: z.uuid(), vesselId: z.uuid() }),
   async handle(db: Db, payload: { companyId: string; vesselId: string }) {
-    const counters = await refreshRunningRates(db, payload.companyId, payload.vesselId);
-    return { counters };
+    return recompute(db, payload.companyId, payload.vesselId);
   },
 } as const;

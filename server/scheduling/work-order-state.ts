@@ -1,0 +1,63 @@
+// The state of an open work order against its tolerance windows (PRODUCT.md, "Names":
+// scheduled → window-open → late → out-of-tolerance). `done` is set by the completion, not here.
+//
+// Boundaries are inclusive of the due point and of the grace's end: work due on 15 April is
+// window-open all of 15 April, and an hours limit of 14,100 h is still late at exactly 14,100 h
+// (out of tolerance past it).
+import type { CalendarWindow, HoursWindow } from "./tolerance";
+
+export type ToleranceState = "scheduled" | "window-open" | "late" | "out-of-tolerance";
+export type WorkOrderState = ToleranceState | "deferred" | "done";
+
+/** In the order a work order passes through them when nothing is done. */
+export const TOLERANCE_STATES: readonly ToleranceState[] = ["scheduled", "window-open", "late", "out-of-tolerance"];
+
+export function toleranceRank(state: ToleranceState): number {
+  return TOLERANCE_STATES.indexOf(state);
+}
+
+export function calendarState(now: Date, window: CalendarWindow): ToleranceState {
+  if (now < window.opensAt) return "scheduled";
+  if (now <= window.dueAt) return "window-open";
+  if (now <= window.graceEndsAt) return "late";
+  return "out-of-tolerance";
+}
+
+export function hoursState(currentHours: number, window: HoursWindow): ToleranceState {
+  if (currentHours < window.opensAtHours) return "scheduled";
+  if (currentHours <= window.dueHours) return "window-open";
+  if (currentHours <= window.graceEndsHours) return "late";
+  return "out-of-tolerance";
+}
+
+export type WorkOrderStateInput = {
+  now: Date;
+  /** The counter's latest total; null when it has no reading yet (the hours limit is then not judged). */
+  currentHours: number | null;
+  calendar?: CalendarWindow | null;
+  hours?: HoursWindow | null;
+  /**
+   * An approved deferral is in force. Pass the windows of the deferred-to due point: the work
+   * order shows `deferred` until those are exceeded too, and then `out-of-tolerance` so that
+   * escalation still fires.
+   */
+  deferred?: boolean;
+};
+
+/**
+ * The state of an open work order. With both an hours and a calendar limit ("whichever
+ * first"), the limit further along decides.
+ */
+export function workOrderState(input: WorkOrderStateInput): ToleranceState | "deferred" {
+  const states: ToleranceState[] = [];
+  if (input.calendar) states.push(calendarState(input.now, input.calendar));
+  if (input.hours && input.currentHours !== null) states.push(hoursState(input.currentHours, input.hours));
+  const state = states.reduce<ToleranceState>((a, b) => (toleranceRank(b) > toleranceRank(a) ? b : a), "scheduled");
+  if (input.deferred && state !== "out-of-tolerance") return "deferred";
+  return state;
+}
+
+/** Escalation fires once, on the change into out-of-tolerance (a new work order counts as a change). */
+export function escalationNeeded(previous: WorkOrderState | null, next: WorkOrderState): boolean {
+  return next === "out-of-tolerance" && previous !== "out-of-tolerance";
+}
