@@ -1,0 +1,88 @@
+// The Backlog's query and answer, shared by the page and the route handler.
+import { z } from "zod";
+
+export const OPEN_STATES = ["out-of-tolerance", "late", "window-open", "deferred", "scheduled"] as const;
+export const ALL_STATES = [...OPEN_STATES, "done"] as const;
+export type BacklogState = (typeof ALL_STATES)[number];
+
+export const BACKLOG_SORTS = ["urgency", "due", "-due", "number", "component", "remaining-hours"] as const;
+
+const flag = z
+  .enum(["true", "false"], { message: "Use true or false." })
+  .transform((v) => v === "true")
+  .optional();
+
+export const BacklogQuery = z.object({
+  state: z
+    .string()
+    .optional()
+    .transform((v, ctx) => {
+      if (!v) return [...OPEN_STATES] as BacklogState[];
+      const states = v
+        .split(",")
+        .map((s) => s.trim())
+        .filter(Boolean);
+      const unknown = states.filter((s) => !(ALL_STATES as readonly string[]).includes(s));
+      if (unknown.length) {
+        ctx.addIssue({ code: "custom", message: `Unknown state ${unknown.join(", ")}; use ${ALL_STATES.join(", ")}.` });
+        return z.NEVER;
+      }
+      return states as BacklogState[];
+    }),
+  component: z.string().uuid({ message: "component must be a component id." }).optional(),
+  rank: z.string().trim().min(1).max(40).optional(),
+  engineStop: flag,
+  critical: flag,
+  classRelated: flag,
+  dueBefore: z.iso.date({ message: "dueBefore is a date, YYYY-MM-DD." }).optional(),
+  q: z.string().trim().max(80, { message: "Search at most 80 characters." }).optional(),
+  sort: z.enum(BACKLOG_SORTS, { message: `sort is one of ${BACKLOG_SORTS.join(", ")}.` }).default("urgency"),
+  page: z.coerce.number({ message: "page is a number." }).int().min(1, { message: "page starts at 1." }).default(1),
+  pageSize: z.coerce
+    .number({ message: "pageSize is a number." })
+    .int()
+    .min(1, { message: "pageSize is at least 1." })
+    .max(200, { message: "pageSize is at most 200." })
+    .default(50),
+});
+export type BacklogQueryInput = z.input<typeof BacklogQuery>;
+export type BacklogFilter = z.output<typeof BacklogQuery>;
+
+export type BacklogItem = {
+  id: string;
+  number: string;
+  title: string;
+  kind: "planned" | "corrective";
+  state: BacklogState;
+  stateChangedAt: string;
+  dueDate: string | null;
+  dueHours: number | null;
+  projectedDate: string | null;
+  calendarDue: string | null;
+  governing: "hours" | "calendar" | null;
+  windowOpensAt: string | null;
+  graceEndsAt: string | null;
+  windowOpensHours: number | null;
+  graceEndsHours: number | null;
+  remainingHours: number | null;
+  remainingDays: number | null;
+  plannedDate: string | null;
+  rank: string;
+  estimatedManHours: number;
+  needsEngineStop: boolean;
+  critical: boolean;
+  classRelated: boolean;
+  component: { id: string; code: string; name: string };
+  computedAt: string;
+};
+
+export type BacklogPage = {
+  items: BacklogItem[];
+  /** Per state, under every filter but the state filter: the tabs' figures. */
+  counts: Record<BacklogState, number>;
+  total: number;
+  page: number;
+  pageSize: number;
+  /** When the worker last wrote these rows. */
+  computedAt: string | null;
+};

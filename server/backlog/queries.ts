@@ -1,0 +1,106 @@
+import "server-only";
+import { and, asc, eq, ilike, inArray, lte, or, type SQL, sql } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { component, workOrder } from "@/db/schema";
+import type { Access, VesselRef } from "@/server/auth/access";
+import { instantOfShipTime } from "@/server/format/hours";
+import { ALL_STATES, type BacklogFilter, type BacklogPage, type BacklogState } from "./contract";
+
+// Most urgent first: out of tolerance, late, inside the window, deferred, scheduled, done.
+const URGENCY = sql`case ${workOrder.state} when 'out-of-tolerance' then 0 when 'late' then 1 when 'window-open' then 2 when 'deferred' then 3 when 'scheduled' then 4 else 5 end`;
+
+function filters(access: Access, vessel: VesselRef, f: BacklogFilter): SQL[] {
+  const where: SQL[] = [eq(workOrder.companyId, access.company.id), eq(workOrder.vesselId, vessel.id)];
+  if (f.component) {
+    where.push(sql`${workOrder.componentId} in (
+      with recursive sub as (
+        select id from ${component} where company_id = ${access.company.id} and vessel_id = ${vessel.id} and id = ${f.component}
+        union all
+        select c.id from ${component} c join sub on c.parent_id = sub.id where c.company_id = ${access.company.id}
+      ) select id from sub)`);
+  }
+  if (f.rank) where.push(eq(workOrder.rank, f.rank));
+  if (f.engineStop !== undefined) where.push(eq(workOrder.needsEngineStop, f.engineStop));
+  if (f.critical !== undefined) where.push(eq(workOrder.critical, f.critical));
+  if (f.classRelated !== undefined) where.push(eq(workOrder.classRelated, f.classRelated));
+  if (f.dueBefore) where.push(lte(workOrder.dueDate, instantOfShipTime(f.dueBefore, "23:59", vessel.timeZone)));
+  if (f.q) {
+    const like = `%${f.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
+    where.push(or(ilike(workOrder.title, like), ilike(workOrder.number, like), ilike(component.code, like))!);
+  }
+  return where;
+}
+
+const ORDER: Record<BacklogFilter["sort"], SQL[]> = {
+  urgency: [URGENCY, sql`${workOrder.dueDate} asc nulls last`, asc(workOrder.number)],
+  due: [sql`${workOrder.dueDate} asc nulls last`, asc(workOrder.number)],
+  "-due": [sql`${workOrder.dueDate} desc nulls last`, asc(workOrder.number)],
+  number: [asc(workOrder.number)],
+  component: [asc(component.code), sql`${workOrder.dueDate} asc nulls last`],
+  "remaining-hours": [sql`${workOrder.remainingHours} asc nulls last`, asc(workOrder.number)],
+};
+
+/** The Backlog reads the worker's rows only: no due-point computation per request. */
+export async function loadBacklog(access: Access, vessel: VesselRef, f: BacklogFilter): Promise<BacklogPage> {
+  const db = getDb();
+  const base = filters(access, vessel, f);
+  const rows = await db
+    .select({ w: workOrder, componentCode: component.code, componentName: component.name })
+    .from(workOrder)
+    .innerJoin(component, eq(component.id, workOrder.componentId))
+    .where(and(...base, inArray(workOrder.state, f.state)))
+    .orderBy(...ORDER[f.sort])
+    .limit(f.pageSize)
+    .offset((f.page - 1) * f.pageSize);
+  const countRows = await db
+    .select({
+      state: workOrder.state,
+      n: sql<number>`count(*)::int`,
+      computedAt: sql<string | null>`max(${workOrder.computedAt})`,
+    })
+    .from(workOrder)
+    .innerJoin(component, eq(component.id, workOrder.componentId))
+    .where(and(...base))
+    .groupBy(workOrder.state);
+  const counts = Object.fromEntries(ALL_STATES.map((s) => [s, 0])) as Record<BacklogState, number>;
+  let computedAt: string | null = null;
+  for (const c of countRows) {
+    counts[c.state] = c.n;
+    if (c.computedAt && (!computedAt || c.computedAt > computedAt)) computedAt = c.computedAt;
+  }
+  const iso = (d: Date | null) => (d ? d.toISOString() : null);
+  return {
+    items: rows.map(({ w, componentCode, componentName }) => ({
+      id: w.id,
+      number: w.number,
+      title: w.title,
+      kind: w.kind,
+      state: w.state,
+      stateChangedAt: w.stateChangedAt.toISOString(),
+      dueDate: iso(w.dueDate),
+      dueHours: w.dueHours,
+      projectedDate: iso(w.projectedDate),
+      calendarDue: iso(w.calendarDue),
+      governing: w.governing,
+      windowOpensAt: iso(w.windowOpensAt),
+      graceEndsAt: iso(w.graceEndsAt),
+      windowOpensHours: w.windowOpensHours,
+      graceEndsHours: w.graceEndsHours,
+      remainingHours: w.remainingHours,
+      remainingDays: w.remainingDays,
+      plannedDate: w.plannedDate,
+      rank: w.rank,
+      estimatedManHours: w.estimatedManHours,
+      needsEngineStop: w.needsEngineStop,
+      critical: w.critical,
+      classRelated: w.classRelated,
+      component: { id: w.componentId, code: componentCode, name: componentName },
+      computedAt: w.computedAt.toISOString(),
+    })),
+    counts,
+    total: f.state.reduce((sum, s) => sum + counts[s], 0),
+    page: f.page,
+    pageSize: f.pageSize,
+    computedAt: computedAt ? new Date(computedAt).toISOString() : null,
+  };
+}
