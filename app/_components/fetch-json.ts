@@ -11,7 +11,11 @@ export class ProblemError extends Error {
 export async function fetchJson<T>(url: string, init?: RequestInit): Promise<T> {
   const response = await fetch(url, {
     ...init,
-    headers: { accept: "application/json", ...(init?.body ? { "content-type": "application/json" } : {}), ...init?.headers },
+    headers: {
+      accept: "application/json",
+      ...(init?.body ? { "content-type": "application/json" } : {}),
+      ...init?.headers,
+    },
   });
   const text = await response.text();
   const body: unknown = text ? JSON.parse(text) : null;
@@ -19,7 +23,12 @@ export async function fetchJson<T>(url: string, init?: RequestInit): Promise<T> 
     const problem =
       body && typeof body === "object" && "detail" in body
         ? (body as Problem)
-        : { type: "about:blank", title: response.statusText, status: response.status, detail: `The server answered ${response.status}.` };
+        : {
+            type: "about:blank",
+            title: response.statusText,
+            status: response.status,
+            detail: `The server answered ${response.status}.`,
+          };
     // A session that ended while the page was open: a full page load drops the ended session's cache.
     // eslint-disable-next-line @next/next/no-location-assign-relative-destination -- outside React, on purpose
     if (response.status === 401 && typeof window !== "undefined") window.location.href = "/sign-in";

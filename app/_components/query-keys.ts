@@ -5,6 +5,7 @@ export const queryKeys = {
     ["vessel", vesselId, "readings", counterId, days] as const,
   readings: (vesselId: string) => ["vessel", vesselId, "readings"] as const,
   register: (vesselId: string) => ["vessel", vesselId, "register"] as const,
+  backlog: (vesselId: string, search: string) => ["vessel", vesselId, "backlog", search] as const,
   adminVessels: () => ["admin", "vessels"] as const,
   adminPeople: () => ["admin", "people"] as const,
 };

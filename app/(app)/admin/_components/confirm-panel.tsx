@@ -2,7 +2,8 @@
 
 import { useState } from "react";
 import { ProblemError } from "@/app/_components/fetch-json";
-import { SidePanel } from "./dialog";
+import { FormActions } from "@/app/_components/forms/form-actions";
+import { SidePanel } from "@/app/_components/forms/side-panel";
 
 type Props = {
   title: string;
@@ -21,7 +22,8 @@ export function ConfirmPanel({ title, subtitle, children, confirmLabel, tone, on
   const [busy, setBusy] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
 
-  async function confirm() {
+  async function confirm(event: React.FormEvent) {
+    event.preventDefault();
     setBusy(true);
     setProblem(null);
     try {
@@ -35,35 +37,18 @@ export function ConfirmPanel({ title, subtitle, children, confirmLabel, tone, on
   }
 
   return (
-    <SidePanel title={title} subtitle={subtitle} onClose={onClose}>
-      <div className="grid gap-4">
+    <SidePanel title={title} subtitle={subtitle} onClose={onClose} closeOnBackdrop>
+      <form onSubmit={confirm} className="grid gap-4">
         <div className="grid gap-2 text-ink-700 dark:text-ink-200">{children}</div>
-        {problem && (
-          <p
-            role="alert"
-            className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
-          >
-            {problem}
-          </p>
-        )}
-        <div className="flex gap-2">
-          <button
-            type="button"
-            onClick={confirm}
-            disabled={busy}
-            className={
-              tone === "alarm"
-                ? "btn bg-alarm-600 text-white hover:bg-alarm-700 dark:bg-alarm-500 dark:hover:bg-alarm-600"
-                : "btn-primary"
-            }
-          >
-            {busy ? "Working…" : confirmLabel}
-          </button>
-          <button type="button" onClick={onClose} className="btn-quiet" disabled={busy}>
-            Cancel
-          </button>
-        </div>
-      </div>
+        <FormActions
+          submitLabel={confirmLabel}
+          busyLabel="Working…"
+          busy={busy}
+          problem={problem}
+          onCancel={onClose}
+          danger={tone === "alarm"}
+        />
+      </form>
     </SidePanel>
   );
 }

@@ -1,14 +1,17 @@
 "use client";
 
 import { useMemo, useState } from "react";
+import { SidePanel } from "@/app/_components/forms/side-panel";
+import { LoadProblem, Notice } from "@/app/_components/notice";
 import { ageOf } from "@/app/_components/relative-age";
+import { SearchField } from "@/app/_components/search-field";
 import type { AdminPerson } from "@/server/admin/contract";
 import { ROLE_LABEL, seesWholeFleet } from "@/server/auth/roles";
 import { ConfirmPanel } from "./confirm-panel";
-import { SidePanel } from "./dialog";
-import { LoadProblem, Notice, TableSkeleton } from "./notice";
 import { PasswordPanel } from "./password-panel";
 import { PersonForm } from "./person-form";
+import { RowButton } from "./row-button";
+import { TableSkeleton } from "./table-skeleton";
 import { useAdminPeople, useAdminVessels, useUpdatePerson } from "./use-admin";
 
 type Open = { kind: "add" } | { kind: "edit" | "password" | "disable" | "enable"; person: AdminPerson } | null;
@@ -55,22 +58,18 @@ export function PeopleAdmin() {
           </p>
         </div>
         <div className="flex items-end gap-2">
-          <label className="block">
-            <span className="sr-only">Filter people</span>
-            <input
-              type="search"
-              className="field w-56"
-              placeholder="Filter by name, rank, vessel…"
-              value={filter}
-              onChange={(e) => setFilter(e.target.value)}
-            />
-          </label>
+          <SearchField
+            label="Filter people"
+            placeholder="Filter by name, rank, vessel…"
+            value={filter}
+            onChange={setFilter}
+          />
           <button type="button" className="btn-primary" onClick={() => setOpen({ kind: "add" })}>
             Add person
           </button>
         </div>
       </div>
-      <Notice message={notice} />
+      <Notice message={notice} className="mb-3" />
       <div className="relative overflow-x-auto panel">
         <table className="w-full text-left">
           <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
@@ -176,6 +175,7 @@ export function PeopleAdmin() {
           }
           onClose={() => setOpen(null)}
           wide
+          closeOnBackdrop
         >
           <PersonForm
             person={open.kind === "edit" ? open.person : undefined}
@@ -220,13 +220,5 @@ export function PeopleAdmin() {
         </ConfirmPanel>
       )}
     </section>
-  );
-}
-
-function RowButton({ label, who, onClick }: { label: string; who: string; onClick: () => void }) {
-  return (
-    <button type="button" className="btn-quiet px-2 py-1 text-xs" onClick={onClick} aria-label={`${label} ${who}`}>
-      {label}
-    </button>
   );
 }

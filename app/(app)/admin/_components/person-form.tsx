@@ -3,17 +3,18 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { Controller, useForm, useWatch } from "react-hook-form";
+import { describedBy, Field } from "@/app/_components/forms/field";
+import { FormActions } from "@/app/_components/forms/form-actions";
+import { showProblem } from "@/app/_components/forms/form-problem";
 import type { AdminPerson, AdminVessel } from "@/server/admin/contract";
 import { ROLE_LABEL, ROLES, seesWholeFleet } from "@/server/auth/roles";
-import { describedBy, Field } from "./field";
-import { showProblem } from "./form-problem";
+import { PasswordField } from "./password-field";
 import {
   EditPersonForm,
   NewPersonForm,
   PERSON_FIELDS,
   type PersonFormInput,
   type PersonFormValues,
-  randomPassword,
 } from "./person-form-schema";
 import { useCreatePerson, useUpdatePerson } from "./use-admin";
 
@@ -64,7 +65,6 @@ export function PersonForm({ person, vessels, onDone }: Props) {
     <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
       <Field id="person-name" label="Name" error={errors.name?.message}>
         <input
-          id="person-name"
           className="field"
           autoComplete="off"
           {...describedBy("person-name", errors.name?.message)}
@@ -79,23 +79,17 @@ export function PersonForm({ person, vessels, onDone }: Props) {
       ) : (
         <Field id="person-email" label="E-mail" error={errors.email?.message} hint="They sign in with this address.">
           <input
-            id="person-email"
             type="email"
             className="field"
             autoComplete="off"
-            {...describedBy("person-email", errors.email?.message)}
+            {...describedBy("person-email", errors.email?.message, true)}
             {...register("email")}
           />
         </Field>
       )}
       <div className="grid grid-cols-2 gap-3">
         <Field id="person-role" label="Role" error={errors.role?.message}>
-          <select
-            id="person-role"
-            className="field"
-            {...describedBy("person-role", errors.role?.message)}
-            {...register("role")}
-          >
+          <select className="field" {...describedBy("person-role", errors.role?.message)} {...register("role")}>
             {ROLES.map((r) => (
               <option key={r} value={r}>
                 {ROLE_LABEL[r]}
@@ -105,10 +99,9 @@ export function PersonForm({ person, vessels, onDone }: Props) {
         </Field>
         <Field id="person-rank" label="Rank (optional)" error={errors.rank?.message} hint="e.g. Second engineer">
           <input
-            id="person-rank"
             className="field"
             autoComplete="off"
-            {...describedBy("person-rank", errors.rank?.message)}
+            {...describedBy("person-rank", errors.rank?.message, true)}
             {...register("rank")}
           />
         </Field>
@@ -156,51 +149,16 @@ export function PersonForm({ person, vessels, onDone }: Props) {
       </fieldset>
 
       {!person && (
-        <Field id="person-initialPassword" label="Initial password" error={errors.initialPassword?.message}>
-          <div className="flex gap-2">
-            <input
-              id="person-initialPassword"
-              type="text"
-              spellCheck={false}
-              autoComplete="new-password"
-              className="field font-mono"
-              {...describedBy("person-initialPassword", errors.initialPassword?.message)}
-              {...register("initialPassword")}
-            />
-            <button
-              type="button"
-              className="btn-quiet shrink-0"
-              onClick={() => setValue("initialPassword", randomPassword(), { shouldValidate: true })}
-            >
-              Suggest
-            </button>
-          </div>
-          <PasswordNote />
-        </Field>
+        <PasswordField
+          id="person-initialPassword"
+          label="Initial password"
+          error={errors.initialPassword?.message}
+          registration={register("initialPassword")}
+          onSuggest={(password) => setValue("initialPassword", password, { shouldValidate: true })}
+        />
       )}
 
-      {problem && (
-        <p
-          role="alert"
-          className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
-        >
-          {problem}
-        </p>
-      )}
-      <div>
-        <button type="submit" className="btn-primary" disabled={isSubmitting}>
-          {isSubmitting ? "Saving…" : person ? "Save" : "Add person"}
-        </button>
-      </div>
+      <FormActions submitLabel={person ? "Save" : "Add person"} busy={isSubmitting} problem={problem} />
     </form>
-  );
-}
-
-export function PasswordNote() {
-  return (
-    <p className="mt-1.5 rounded-md border border-brass-300 bg-brass-100/60 px-2.5 py-1.5 text-xs text-ink-800 dark:border-brass-700 dark:bg-brass-700/20 dark:text-ink-100">
-      At least 10 characters. Hand it over securely: in person, by phone or through the ship’s master, never in an
-      e-mail to the same address. Keelson does not show it again.
-    </p>
   );
 }

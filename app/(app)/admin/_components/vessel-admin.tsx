@@ -1,10 +1,12 @@
 "use client";
 
 import { useState } from "react";
+import { SidePanel } from "@/app/_components/forms/side-panel";
+import { LoadProblem, Notice } from "@/app/_components/notice";
 import type { AdminVessel } from "@/server/admin/contract";
 import { ConfirmPanel } from "./confirm-panel";
-import { SidePanel } from "./dialog";
-import { LoadProblem, Notice, TableSkeleton } from "./notice";
+import { RowButton } from "./row-button";
+import { TableSkeleton } from "./table-skeleton";
 import { useAdminVessels, useRetireVessel, useSaveVessel } from "./use-admin";
 import { VesselForm } from "./vessel-form";
 
@@ -44,7 +46,7 @@ export function VesselAdmin() {
           Add vessel
         </button>
       </div>
-      <Notice message={notice} />
+      <Notice message={notice} className="mb-3" />
       <div className="relative overflow-x-auto panel">
         <table className="w-full text-left">
           <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
@@ -112,22 +114,12 @@ export function VesselAdmin() {
                 </td>
                 <td className={`${TD} pr-4`}>
                   <div className="flex justify-end gap-1.5">
-                    <button
-                      type="button"
-                      className="btn-quiet px-2 py-1 text-xs"
-                      onClick={() => setOpen({ kind: "edit", vessel: v })}
-                      aria-label={`Edit ${v.name}`}
-                    >
-                      Edit
-                    </button>
-                    <button
-                      type="button"
-                      className="btn-quiet px-2 py-1 text-xs"
+                    <RowButton label="Edit" who={v.name} onClick={() => setOpen({ kind: "edit", vessel: v })} />
+                    <RowButton
+                      label={v.retiredAt ? "Return to service" : "Retire"}
+                      who={v.name}
                       onClick={() => setOpen({ kind: v.retiredAt ? "return" : "retire", vessel: v })}
-                      aria-label={`${v.retiredAt ? "Return to service" : "Retire"} ${v.name}`}
-                    >
-                      {v.retiredAt ? "Return to service" : "Retire"}
-                    </button>
+                    />
                   </div>
                 </td>
               </tr>
@@ -145,6 +137,7 @@ export function VesselAdmin() {
               : "Counters and components are added in the vessel’s machinery register."
           }
           onClose={() => setOpen(null)}
+          closeOnBackdrop
         >
           <VesselForm vessel={open.kind === "edit" ? open.vessel : undefined} onDone={done} />
         </SidePanel>

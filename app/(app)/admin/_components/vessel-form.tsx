@@ -3,9 +3,10 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
+import { describedBy, Field } from "@/app/_components/forms/field";
+import { FormActions } from "@/app/_components/forms/form-actions";
+import { showProblem } from "@/app/_components/forms/form-problem";
 import { type AdminVessel, VesselInput, type VesselValues } from "@/server/admin/contract";
-import { Field, describedBy } from "./field";
-import { showProblem } from "./form-problem";
 import { useSaveVessel } from "./use-admin";
 
 const FIELDS = ["name", "imoNumber", "code", "timeZone"] as const;
@@ -34,12 +35,13 @@ export function VesselForm({ vessel, onDone }: Props) {
     }
   }
 
-  const described = (field: (typeof FIELDS)[number]) => describedBy(`vessel-${field}`, errors[field]?.message);
+  const described = (field: (typeof FIELDS)[number], hasHint = false) =>
+    describedBy(`vessel-${field}`, errors[field]?.message, hasHint);
 
   return (
     <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
       <Field id="vessel-name" label="Name" error={errors.name?.message}>
-        <input id="vessel-name" className="field" autoComplete="off" {...described("name")} {...register("name")} />
+        <input className="field" autoComplete="off" {...described("name")} {...register("name")} />
       </Field>
       <div className="grid grid-cols-[1fr_8rem] gap-3">
         <Field
@@ -49,22 +51,20 @@ export function VesselForm({ vessel, onDone }: Props) {
           hint="Seven digits; the last is a check digit."
         >
           <input
-            id="vessel-imoNumber"
             className="field font-mono"
             autoComplete="off"
             placeholder="IMO 9074729"
-            {...described("imoNumber")}
+            {...described("imoNumber", true)}
             {...register("imoNumber")}
           />
         </Field>
         <Field id="vessel-code" label="Code" error={errors.code?.message} hint="Starts work-order numbers.">
           <input
-            id="vessel-code"
             className="field font-mono uppercase"
             autoComplete="off"
             maxLength={6}
             placeholder="AG"
-            {...described("code")}
+            {...described("code", true)}
             {...register("code")}
           />
         </Field>
@@ -76,11 +76,10 @@ export function VesselForm({ vessel, onDone }: Props) {
         hint="The ship’s day and its Hour log follow this zone. Change it when the ship changes its clocks for a new trading area."
       >
         <input
-          id="vessel-timeZone"
           className="field"
           list="vessel-time-zones"
           autoComplete="off"
-          {...described("timeZone")}
+          {...described("timeZone", true)}
           {...register("timeZone")}
         />
         <datalist id="vessel-time-zones">
@@ -89,19 +88,7 @@ export function VesselForm({ vessel, onDone }: Props) {
           ))}
         </datalist>
       </Field>
-      {problem && (
-        <p
-          role="alert"
-          className="rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
-        >
-          {problem}
-        </p>
-      )}
-      <div className="flex gap-2">
-        <button type="submit" className="btn-primary" disabled={isSubmitting}>
-          {isSubmitting ? "Saving…" : vessel ? "Save vessel" : "Add vessel"}
-        </button>
-      </div>
+      <FormActions submitLabel={vessel ? "Save vessel" : "Add vessel"} busy={isSubmitting} problem={problem} />
     </form>
   );
 }

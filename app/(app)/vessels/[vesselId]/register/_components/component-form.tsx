@@ -4,10 +4,11 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+import { describedBy, Field } from "@/app/_components/forms/field";
+import { FormActions } from "@/app/_components/forms/form-actions";
+import { showProblem } from "@/app/_components/forms/form-problem";
 import { ComponentInput, type RegisterComponent, type RegisterView } from "@/server/register/contract";
 import { inheritedUnder, lookupOf } from "./counter-words";
-import { describedBy, FormField, FormFooter } from "./form-parts";
-import { showProblem } from "./form-problem";
 import { useAddComponent, useChangeComponent } from "./use-register";
 
 // The edit form changes everything but the place in the tree, which the move form does.
@@ -74,7 +75,7 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
         )}
       </p>
       <div className="grid grid-cols-[12rem_1fr] gap-3">
-        <FormField id="component-code" label="Code" error={errors.code?.message}>
+        <Field id="component-code" label="Code" error={errors.code?.message}>
           <input
             className="field font-mono uppercase"
             autoComplete="off"
@@ -83,15 +84,15 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
             {...describedBy("component-code", errors.code?.message)}
             {...register("code")}
           />
-        </FormField>
-        <FormField id="component-name" label="Name" error={errors.name?.message}>
+        </Field>
+        <Field id="component-name" label="Name" error={errors.name?.message}>
           <input
             className="field"
             autoComplete="off"
             {...describedBy("component-name", errors.name?.message)}
             {...register("name")}
           />
-        </FormField>
+        </Field>
       </div>
       <p className="-mt-2 text-xs text-ink-500 dark:text-ink-400">
         Letters, digits and . _ - , up to 40 characters; typed in lower case, it is kept in capitals (me.cyl.3 →
@@ -116,7 +117,7 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
         </div>
       </div>
 
-      <FormField
+      <Field
         id="component-class"
         label="Class item reference"
         hint="Optional: the item’s number in the class survey list."
@@ -128,9 +129,9 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
           {...describedBy("component-class", errors.classItemRef?.message, true)}
           {...register("classItemRef")}
         />
-      </FormField>
+      </Field>
 
-      <FormField
+      <Field
         id="component-counter"
         label="Counter"
         hint={`Without a counter of its own it uses ${inheritedUnder(parentId, lookup)}.`}
@@ -148,30 +149,29 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
             </option>
           ))}
         </select>
-      </FormField>
+      </Field>
 
       <div className="grid grid-cols-2 gap-3">
-        <FormField id="component-maker" label="Maker" error={errors.maker?.message}>
+        <Field id="component-maker" label="Maker" error={errors.maker?.message}>
           <input
             className="field"
             autoComplete="off"
             {...describedBy("component-maker", errors.maker?.message)}
             {...register("maker")}
           />
-        </FormField>
-        <FormField id="component-model" label="Model" error={errors.model?.message}>
+        </Field>
+        <Field id="component-model" label="Model" error={errors.model?.message}>
           <input
             className="field"
             autoComplete="off"
             {...describedBy("component-model", errors.model?.message)}
             {...register("model")}
           />
-        </FormField>
+        </Field>
       </div>
 
-      <FormFooter
+      <FormActions
         submitLabel={editing ? "Save component" : "Add component"}
-        busyLabel="Saving…"
         busy={isSubmitting}
         problem={problem}
         onCancel={onCancel}

@@ -1,6 +1,7 @@
 "use client";
 
 import { useMemo, useState } from "react";
+import { SearchField } from "@/app/_components/search-field";
 import type { RegisterComponent, RegisterView } from "@/server/register/contract";
 import { buildTree, matchesWithAncestors, type TreeNode } from "@/server/register/tree";
 import { counterWords, type Lookup, lookupOf } from "./counter-words";
@@ -35,16 +36,12 @@ export function ComponentTree({ view, onAction }: Props) {
         <h2 id="tree-heading" className="mr-auto font-semibold">
           Components <span className="font-normal text-ink-500">({view.components.length})</span>
         </h2>
-        <label className="flex items-center gap-2">
-          <span className="sr-only">Find a component by code or name</span>
-          <input
-            type="search"
-            className="field w-56"
-            placeholder="Find code or name…"
-            value={filter}
-            onChange={(e) => setFilter(e.target.value)}
-          />
-        </label>
+        <SearchField
+          label="Find a component by code or name"
+          placeholder="Find code or name…"
+          value={filter}
+          onChange={setFilter}
+        />
         <button type="button" className="btn-quiet px-2 py-1" onClick={() => setAll(true)} disabled={Boolean(shown)}>
           Expand all
         </button>

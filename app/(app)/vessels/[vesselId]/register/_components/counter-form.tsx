@@ -4,9 +4,10 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+import { describedBy, Field } from "@/app/_components/forms/field";
+import { FormActions } from "@/app/_components/forms/form-actions";
+import { showProblem } from "@/app/_components/forms/form-problem";
 import { CounterInput, type RegisterCounter } from "@/server/register/contract";
-import { describedBy, FormField, FormFooter } from "./form-parts";
-import { showProblem } from "./form-problem";
 import { useAddCounter, useChangeCounter } from "./use-register";
 
 type Values = z.input<typeof CounterInput>;
@@ -44,7 +45,7 @@ export function CounterForm({ vesselId, counter, onDone, onCancel }: Props) {
 
   return (
     <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
-      <FormField
+      <Field
         id="counter-name"
         label="Name"
         hint="As the engineers know the meter, e.g. Generator engine 2."
@@ -57,8 +58,8 @@ export function CounterForm({ vesselId, counter, onDone, onCancel }: Props) {
           {...describedBy("counter-name", errors.name?.message, true)}
           {...register("name")}
         />
-      </FormField>
-      <FormField
+      </Field>
+      <Field
         id="counter-planned"
         label="Planned running hours per day"
         hint="Used to project due dates until there are enough readings for a measured rate."
@@ -75,10 +76,9 @@ export function CounterForm({ vesselId, counter, onDone, onCancel }: Props) {
           />
           <span className="text-ink-500">h/day, 0 to 24</span>
         </div>
-      </FormField>
-      <FormFooter
+      </Field>
+      <FormActions
         submitLabel={counter ? "Save counter" : "Add counter"}
-        busyLabel="Saving…"
         busy={isSubmitting}
         problem={problem}
         onCancel={onCancel}

@@ -1,6 +1,8 @@
 "use client";
 
 import { useState } from "react";
+import { SidePanel } from "@/app/_components/forms/side-panel";
+import { LoadProblem, Notice } from "@/app/_components/notice";
 import type { RegisterView } from "@/server/register/contract";
 import { ComponentForm } from "./component-form";
 import { type ComponentAction, ComponentTree } from "./component-tree";
@@ -9,7 +11,6 @@ import { type CounterAction, CountersPanel } from "./counters-panel";
 import { MeterReplacementForm } from "./meter-replacement-form";
 import { MoveForm } from "./move-form";
 import { RetireCounter } from "./retire-counter";
-import { SideSheet } from "./side-sheet";
 import { useRegister } from "./use-register";
 
 /** Which form is open beside the register, and on what. */
@@ -25,13 +26,7 @@ export function MachineryRegister({ vesselId }: { vesselId: string }) {
   const [done, setDone] = useState<string | null>(null);
 
   if (isPending) return <RegisterSkeleton />;
-  if (error) {
-    return (
-      <p role="alert" className="panel p-4 text-alarm-700 dark:text-alarm-300">
-        The machinery register could not be loaded: {error.message}
-      </p>
-    );
-  }
+  if (error) return <LoadProblem what="machinery register" error={error} />;
 
   const open = (next: Sheet) => {
     setDone(null);
@@ -62,13 +57,7 @@ export function MachineryRegister({ vesselId }: { vesselId: string }) {
           </button>
         )}
       </div>
-      <div aria-live="polite" className="empty:hidden">
-        {done && (
-          <p className="rounded-md bg-go-50 px-3 py-2 font-medium text-go-700 dark:bg-go-700/20 dark:text-go-300">
-            {done}
-          </p>
-        )}
-      </div>
+      <Notice message={done} />
 
       <div className="grid items-start gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
         {data.components.length === 0 ? (
@@ -103,51 +92,51 @@ function SheetFor({
   switch (sheet.kind) {
     case "add-component":
       return (
-        <SideSheet title={sheet.parentId ? "Add a part" : "Add a component"} onClose={onCancel}>
+        <SidePanel title={sheet.parentId ? "Add a part" : "Add a component"} onClose={onCancel}>
           <ComponentForm view={view} target={{ parentId: sheet.parentId }} {...props} />
-        </SideSheet>
+        </SidePanel>
       );
     case "edit-component":
     case "move-component": {
       const component = view.components.find((c) => c.id === sheet.componentId);
       if (!component) return null;
       return sheet.kind === "edit-component" ? (
-        <SideSheet title={`Edit ${component.code}`} subtitle={component.name} onClose={onCancel}>
+        <SidePanel title={`Edit ${component.code}`} subtitle={component.name} onClose={onCancel}>
           <ComponentForm view={view} target={{ component }} {...props} />
-        </SideSheet>
+        </SidePanel>
       ) : (
-        <SideSheet title={`Move ${component.code}`} subtitle={component.name} onClose={onCancel}>
+        <SidePanel title={`Move ${component.code}`} subtitle={component.name} onClose={onCancel}>
           <MoveForm view={view} component={component} {...props} />
-        </SideSheet>
+        </SidePanel>
       );
     }
     case "add-counter":
       return (
-        <SideSheet title="Add a counter" subtitle="An hour meter on board" onClose={onCancel}>
+        <SidePanel title="Add a counter" subtitle="An hour meter on board" onClose={onCancel}>
           <CounterForm vesselId={view.vessel.id} counter={null} {...props} />
-        </SideSheet>
+        </SidePanel>
       );
     default: {
       const counter = view.counters.find((c) => c.id === sheet.counterId);
       if (!counter) return null;
       if (sheet.kind === "edit-counter") {
         return (
-          <SideSheet title="Edit counter" subtitle={counter.name} onClose={onCancel}>
+          <SidePanel title="Edit counter" subtitle={counter.name} onClose={onCancel}>
             <CounterForm vesselId={view.vessel.id} counter={counter} {...props} />
-          </SideSheet>
+          </SidePanel>
         );
       }
       if (sheet.kind === "replace-meter") {
         return (
-          <SideSheet title="Replace the hour meter" subtitle={counter.name} onClose={onCancel}>
+          <SidePanel title="Replace the hour meter" subtitle={counter.name} onClose={onCancel}>
             <MeterReplacementForm view={view} counter={counter} {...props} />
-          </SideSheet>
+          </SidePanel>
         );
       }
       return (
-        <SideSheet title="Retire counter" subtitle={counter.name} onClose={onCancel}>
+        <SidePanel title="Retire counter" subtitle={counter.name} onClose={onCancel}>
           <RetireCounter vesselId={view.vessel.id} counter={counter} {...props} />
-        </SideSheet>
+        </SidePanel>
       );
     }
   }

@@ -4,6 +4,9 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
+import { describedBy, Field } from "@/app/_components/forms/field";
+import { FormActions } from "@/app/_components/forms/form-actions";
+import { showProblem } from "@/app/_components/forms/form-problem";
 import {
   formatHours,
   formatShipTime,
@@ -15,8 +18,6 @@ import {
 import { MeterReplacementInput, type RegisterCounter, type RegisterView } from "@/server/register/contract";
 import { MeterValue } from "@/server/readings/contract";
 import { readingProblem, round1 } from "@/server/readings/rules";
-import { describedBy, FormField, FormFooter } from "./form-parts";
-import { showProblem } from "./form-problem";
 import { useReplaceMeter } from "./use-register";
 
 type Values = z.input<typeof MeterReplacementInput>;
@@ -149,7 +150,7 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
         )}
       </fieldset>
 
-      <FormField
+      <Field
         id="old-meter-final"
         label="Final value on the old meter (h)"
         hint="Leave empty only if the old meter could not be read."
@@ -164,9 +165,9 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
           {...describedBy("old-meter-final", errors.oldMeterFinal?.message ?? liveProblem ?? undefined, true)}
           {...register("oldMeterFinal")}
         />
-      </FormField>
+      </Field>
 
-      <FormField
+      <Field
         id="new-meter-start"
         label="Value shown by the new meter (h)"
         hint="Usually 0 for a new meter."
@@ -179,9 +180,9 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
           {...describedBy("new-meter-start", errors.newMeterStart?.message, true)}
           {...register("newMeterStart")}
         />
-      </FormField>
+      </Field>
 
-      <FormField id="replacement-reason" label="Reason" error={errors.reason?.message}>
+      <Field id="replacement-reason" label="Reason" error={errors.reason?.message}>
         <textarea
           rows={2}
           className="field"
@@ -189,7 +190,7 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
           {...describedBy("replacement-reason", errors.reason?.message)}
           {...register("reason")}
         />
-      </FormField>
+      </Field>
 
       {totalAtChange !== null && start.success && !liveProblem && (
         <p className="rounded-md bg-ink-100 px-3 py-2 text-ink-700 tabular-nums dark:bg-ink-850 dark:text-ink-200">
@@ -198,7 +199,7 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
         </p>
       )}
 
-      <FormFooter
+      <FormActions
         submitLabel="Record the new meter"
         busyLabel="Recording…"
         busy={isSubmitting}

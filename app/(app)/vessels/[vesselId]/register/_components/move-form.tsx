@@ -4,11 +4,12 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
+import { describedBy, Field } from "@/app/_components/forms/field";
+import { FormActions } from "@/app/_components/forms/form-actions";
+import { showProblem } from "@/app/_components/forms/form-problem";
 import { ComponentMove, type RegisterComponent, type RegisterView } from "@/server/register/contract";
 import { buildTree, descendantIds, inTreeOrder } from "@/server/register/tree";
 import { inheritedUnder, lookupOf } from "./counter-words";
-import { describedBy, FormField, FormFooter } from "./form-parts";
-import { showProblem } from "./form-problem";
 import { useChangeComponent } from "./use-register";
 
 type Values = z.input<typeof ComponentMove>;
@@ -58,7 +59,7 @@ export function MoveForm({ view, component, onDone, onCancel }: Props) {
         Moves <span className="font-mono font-semibold">{component.code}</span> {component.name}
         {below ? ` with the ${below} component${below === 1 ? "" : "s"} below it` : ""}. Codes stay as they are.
       </p>
-      <FormField id="move-parent" label="New place" hint={counterAfter} error={formState.errors.parentId?.message}>
+      <Field id="move-parent" label="New place" hint={counterAfter} error={formState.errors.parentId?.message}>
         <select
           autoFocus
           className="field font-mono"
@@ -73,8 +74,8 @@ export function MoveForm({ view, component, onDone, onCancel }: Props) {
             </option>
           ))}
         </select>
-      </FormField>
-      <FormFooter
+      </Field>
+      <FormActions
         submitLabel="Move component"
         busyLabel="Moving…"
         busy={formState.isSubmitting}

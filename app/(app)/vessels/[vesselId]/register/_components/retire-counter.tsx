@@ -1,9 +1,9 @@
 "use client";
 
 import { useState } from "react";
+import { FormActions } from "@/app/_components/forms/form-actions";
+import { problemSentence } from "@/app/_components/forms/form-problem";
 import type { RegisterCounter } from "@/server/register/contract";
-import { FormFooter } from "./form-parts";
-import { showProblem } from "./form-problem";
 import { useRetireCounter } from "./use-register";
 
 type Props = { vesselId: string; counter: RegisterCounter; onDone: (message: string) => void; onCancel: () => void };
@@ -45,7 +45,7 @@ export function RetireCounter({ vesselId, counter, onDone, onCancel }: Props) {
       await retire.mutateAsync(counter.id);
       onDone(`${counter.name} retired. Its readings stay on record.`);
     } catch (error) {
-      setProblem(showProblem(error, () => undefined, []));
+      setProblem(problemSentence(error));
     }
   }
 
@@ -55,7 +55,7 @@ export function RetireCounter({ vesselId, counter, onDone, onCancel }: Props) {
         {counter.name} leaves the Hour log and can no longer be given to a component. Its readings stay on record for
         audits and surveys.
       </p>
-      <FormFooter
+      <FormActions
         submitLabel="Retire counter"
         busyLabel="Retiring…"
         busy={retire.isPending}

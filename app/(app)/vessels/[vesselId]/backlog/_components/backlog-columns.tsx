@@ -1,0 +1,98 @@
+"use client";
+
+import { createColumnHelper } from "@tanstack/react-table";
+import { StateBadge } from "@/app/_components/state-badge";
+import type { BacklogItem } from "@/server/backlog/contract";
+import { formatHours, formatShipDate } from "@/server/format/hours";
+import { rankLabel } from "./backlog-filters";
+
+const column = createColumnHelper<BacklogItem>();
+
+function Remaining({ item }: { item: BacklogItem }) {
+  const days = item.remainingDays;
+  const hours = item.remainingHours;
+  const late = (days ?? 0) < 0 || (hours ?? 0) < 0;
+  return (
+    <span className={late ? "font-semibold text-alarm-700 dark:text-alarm-300" : ""}>
+      {days !== null && (days < 0 ? `${-days} d over` : days === 0 ? "today" : `${days} d`)}
+      {hours !== null && (
+        <span className="block text-xs text-ink-500">
+          {hours < 0 ? `${formatHours(-hours)} over` : `${formatHours(hours)} left`}
+        </span>
+      )}
+    </span>
+  );
+}
+
+export function backlogColumns(timeZone: string) {
+  return [
+    column.accessor("number", {
+      header: "Work order",
+      cell: (c) => <span className="font-mono text-xs whitespace-nowrap">{c.getValue()}</span>,
+    }),
+    column.accessor("title", {
+      header: "Job",
+      cell: ({ row }) => (
+        <>
+          <span className="block font-medium text-ink-900 dark:text-ink-50">{row.original.title}</span>
+          <span className="block text-xs text-ink-500">
+            <span className="font-mono">{row.original.component.code}</span> {row.original.component.name}
+          </span>
+        </>
+      ),
+    }),
+    column.accessor("state", { header: "State", cell: (c) => <StateBadge state={c.getValue()} /> }),
+    column.accessor("dueDate", {
+      header: "Due",
+      cell: ({ row }) => {
+        const w = row.original;
+        if (!w.dueDate) return <span className="text-ink-400">no reading yet</span>;
+        const projected = w.governing === "hours";
+        return (
+          <span
+            className="whitespace-nowrap"
+            title={
+              projected
+                ? `Projected: due at ${formatHours(w.dueHours ?? 0)}, from the last reading and the running rate`
+                : "Calendar due date"
+            }
+          >
+            {formatShipDate(new Date(w.dueDate), timeZone)}
+            <span className="block text-xs text-ink-500">
+              {projected ? `≈ at ${formatHours(w.dueHours ?? 0)}` : "calendar"}
+            </span>
+          </span>
+        );
+      },
+    }),
+    column.display({ id: "remaining", header: "Remaining", cell: ({ row }) => <Remaining item={row.original} /> }),
+    column.accessor("rank", {
+      header: "Rank",
+      cell: (c) => <span className="whitespace-nowrap">{rankLabel(c.getValue())}</span>,
+    }),
+    column.accessor("estimatedManHours", {
+      header: "Man-hours",
+      cell: (c) => <span className="tabular-nums">{c.getValue()}</span>,
+    }),
+    column.display({
+      id: "flags",
+      header: "Marks",
+      cell: ({ row }) => (
+        <span className="flex flex-wrap gap-1 text-xs">
+          {row.original.critical && <Mark>⚠ critical</Mark>}
+          {row.original.classRelated && <Mark>◆ class</Mark>}
+          {row.original.needsEngineStop && <Mark>⏻ engine stop</Mark>}
+          {row.original.kind === "corrective" && <Mark>✚ corrective</Mark>}
+        </span>
+      ),
+    }),
+  ];
+}
+
+function Mark({ children }: { children: React.ReactNode }) {
+  return (
+    <span className="rounded bg-ink-100 px-1 whitespace-nowrap text-ink-700 dark:bg-ink-800 dark:text-ink-200">
+      {children}
+    </span>
+  );
+}

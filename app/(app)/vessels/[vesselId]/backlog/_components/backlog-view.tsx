@@ -1,0 +1,180 @@
+"use client";
+
+import { flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-table";
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useMemo } from "react";
+import { ageOf } from "@/app/_components/relative-age";
+import { ALL_STATES, BACKLOG_SORTS, type BacklogState, OPEN_STATES } from "@/server/backlog/contract";
+import { backlogColumns } from "./backlog-columns";
+import { BacklogFilters, type FilterValues } from "./backlog-filters";
+import { useBacklog } from "./use-backlog";
+
+const SORT_LABEL: Record<(typeof BACKLOG_SORTS)[number], string> = {
+  urgency: "Most urgent first",
+  due: "Due date, soonest first",
+  "-due": "Due date, latest first",
+  number: "Work-order number",
+  component: "Component code",
+  "remaining-hours": "Fewest hours left",
+};
+const RANKS = ["chief-engineer", "second-engineer", "third-engineer", "fourth-engineer", "motorman", "electrician"];
+const PAGE_SIZE = 50;
+
+function readFilters(params: URLSearchParams): FilterValues {
+  const states = (params.get("state") ?? "")
+    .split(",")
+    .filter((s): s is BacklogState => (ALL_STATES as readonly string[]).includes(s));
+  return {
+    state: states.length ? states : [...OPEN_STATES],
+    q: params.get("q") ?? "",
+    rank: params.get("rank") ?? "",
+    critical: params.get("critical") === "true",
+    classRelated: params.get("classRelated") === "true",
+    engineStop: params.get("engineStop") === "true",
+    dueBefore: params.get("dueBefore") ?? "",
+  };
+}
+
+export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone: string }) {
+  const router = useRouter();
+  const pathname = usePathname();
+  const params = useSearchParams();
+  const values = readFilters(new URLSearchParams(params.toString()));
+  const sort = (BACKLOG_SORTS as readonly string[]).includes(params.get("sort") ?? "")
+    ? params.get("sort")!
+    : "urgency";
+  const page = Math.max(1, Number(params.get("page") ?? 1) || 1);
+
+  // The API's query: the same names as the page's URL, so a link to the page is a link to the list.
+  const search = useMemo(() => {
+    const q = new URLSearchParams(params.toString());
+    q.set("pageSize", String(PAGE_SIZE));
+    return q.toString();
+  }, [params]);
+  const { data, error, isPending, isFetching } = useBacklog(vesselId, search);
+
+  function update(next: Record<string, string | boolean | string[] | undefined>) {
+    const q = new URLSearchParams(params.toString());
+    for (const [key, value] of Object.entries(next)) {
+      const text = Array.isArray(value)
+        ? value.join(",")
+        : value === true
+          ? "true"
+          : value === false
+            ? ""
+            : (value ?? "");
+      const isDefaultState = key === "state" && text === OPEN_STATES.join(",");
+      if (!text || isDefaultState) q.delete(key);
+      else q.set(key, text);
+    }
+    if (!("page" in next)) q.delete("page");
+    router.replace(`${pathname}${q.size ? `?${q}` : ""}`, { scroll: false });
+  }
+
+  const columns = useMemo(() => backlogColumns(timeZone), [timeZone]);
+  // eslint-disable-next-line react-hooks/incompatible-library -- TanStack Table hands back functions the compiler cannot memoise
+  const table = useReactTable({
+    data: data?.items ?? [],
+    columns,
+    getCoreRowModel: getCoreRowModel(),
+    manualPagination: true,
+  });
+  const pages = data ? Math.max(1, Math.ceil(data.total / PAGE_SIZE)) : 1;
+
+  return (
+    <section className="panel" aria-labelledby="backlog-heading" aria-busy={isFetching}>
+      <div className="flex flex-wrap items-center justify-between gap-3 border-b border-ink-200 px-4 py-3 dark:border-ink-800">
+        <h2 id="backlog-heading" className="font-semibold">
+          Backlog{" "}
+          <span className="font-normal text-ink-500">
+            {data ? `${data.total} work order${data.total === 1 ? "" : "s"}` : ""}
+            {data?.computedAt ? ` · worked out ${ageOf(data.computedAt, new Date())}` : ""}
+          </span>
+        </h2>
+        <label className="flex items-center gap-2">
+          <span className="text-ink-600 dark:text-ink-300">Sort</span>
+          <select
+            className="field w-auto"
+            value={sort}
+            onChange={(e) => update({ sort: e.target.value === "urgency" ? "" : e.target.value })}
+          >
+            {BACKLOG_SORTS.map((s) => (
+              <option key={s} value={s}>
+                {SORT_LABEL[s]}
+              </option>
+            ))}
+          </select>
+        </label>
+      </div>
+      <BacklogFilters values={values} counts={data?.counts} ranks={RANKS} onChange={update} />
+      {error ? (
+        <p role="alert" className="p-4 text-alarm-700 dark:text-alarm-300">
+          The Backlog could not be loaded: {error.message}
+        </p>
+      ) : isPending ? (
+        <div className="m-4 h-64 animate-pulse rounded bg-ink-100 dark:bg-ink-850" aria-label="Loading the Backlog" />
+      ) : data.items.length === 0 ? (
+        <div className="p-8 text-center text-ink-600 dark:text-ink-300">
+          <p className="font-medium">No work order matches these filters.</p>
+          <p className="text-sm">Clear a filter above, or choose more states.</p>
+        </div>
+      ) : (
+        <div className="overflow-x-auto">
+          <table className="w-full text-left">
+            <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
+              {table.getHeaderGroups().map((group) => (
+                <tr key={group.id} className="border-b border-ink-200 dark:border-ink-800">
+                  {group.headers.map((h) => (
+                    <th key={h.id} scope="col" className="px-3 py-2 font-semibold first:pl-4">
+                      {flexRender(h.column.columnDef.header, h.getContext())}
+                    </th>
+                  ))}
+                </tr>
+              ))}
+            </thead>
+            <tbody>
+              {table.getRowModel().rows.map((row) => (
+                <tr
+                  key={row.id}
+                  className="border-b border-ink-100 align-top last:border-0 hover:bg-ink-50 dark:border-ink-850 dark:hover:bg-ink-850"
+                >
+                  {row.getVisibleCells().map((cell) => (
+                    <td key={cell.id} className="px-3 py-2 first:pl-4">
+                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                    </td>
+                  ))}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+      {data && pages > 1 && (
+        <nav
+          aria-label="Pages"
+          className="flex items-center justify-between gap-3 border-t border-ink-200 px-4 py-3 dark:border-ink-800"
+        >
+          <button
+            type="button"
+            className="btn-quiet"
+            disabled={page <= 1}
+            onClick={() => update({ page: String(page - 1) })}
+          >
+            ← Previous
+          </button>
+          <span className="text-ink-600 dark:text-ink-300">
+            Page {page} of {pages}
+          </span>
+          <button
+            type="button"
+            className="btn-quiet"
+            disabled={page >= pages}
+            onClick={() => update({ page: String(page + 1) })}
+          >
+            Next →
+          </button>
+        </nav>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,40 @@
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO_PASSWORD } from "@/db/seed/scenario";
+import { launchBrowser, screenshot, signInThroughForm } from "../support/browser";
+
+let browser: Browser;
+let page: Page;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("the demo chief engineer reads the Backlog", () => {
+  it("sees a believable Backlog with every open state, and filters it from the URL", async () => {
+    await signInThroughForm(page, "chief@brightwater.example", DEMO_PASSWORD);
+    await page.getByRole("link", { name: "Hour log" }).first().click();
+    await page.getByRole("link", { name: "Backlog" }).click();
+    await page.waitForURL(/\/backlog$/);
+    const rows = page.locator("tbody tr");
+    await rows.first().waitFor();
+    // Most urgent first: the first row is out of tolerance, said in words.
+    expect(await rows.first().getByText("out of tolerance").count()).toBe(1);
+    for (const state of ["scheduled", "window open", "late", "out of tolerance"]) {
+      expect(await page.locator("tbody").getByText(state, { exact: true }).count(), state).toBeGreaterThan(0);
+    }
+    await screenshot(page, "backlog");
+
+    // Only the critical class items inside their window: the filter goes into the URL.
+    await page.getByLabel("Class items only").check();
+    await page.waitForURL(/classRelated=true/);
+    await expect.poll(async () => (await rows.allTextContents()).every((t) => t.includes("class"))).toBe(true);
+    await page.reload();
+    expect(await page.getByLabel("Class items only").isChecked()).toBe(true);
+    await screenshot(page, "backlog-class-items");
+  });
+});
