@@ -44,6 +44,7 @@ export function StateBadge({ state }: { state: BacklogState }) {
   const look = LOOK[state];
   return (
     <span
+      data-state={state}
       className={`inline-flex items-center gap-1 rounded border px-1.5 py-0.5 text-xs font-semibold whitespace-nowrap ${look.className}`}
     >
       <span aria-hidden="true">{look.glyph}</span>

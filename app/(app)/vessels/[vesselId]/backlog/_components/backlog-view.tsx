@@ -1,7 +1,7 @@
 "use client";
 
 import { flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-table";
-import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { usePathname, useSearchParams } from "next/navigation";
 import { useMemo } from "react";
 import { ageOf } from "@/app/_components/relative-age";
 import { ALL_STATES, BACKLOG_SORTS, type BacklogState, OPEN_STATES } from "@/server/backlog/contract";
@@ -36,7 +36,6 @@ function readFilters(params: URLSearchParams): FilterValues {
 }
 
 export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone: string }) {
-  const router = useRouter();
   const pathname = usePathname();
   const params = useSearchParams();
   const values = readFilters(new URLSearchParams(params.toString()));
@@ -68,7 +67,9 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
       else q.set(key, text);
     }
     if (!("page" in next)) q.delete("page");
-    router.replace(`${pathname}${q.size ? `?${q}` : ""}`, { scroll: false });
+    // The History API, not router.replace: Next keeps useSearchParams in step, and the ship's link
+    // is spared a server round trip for what is only a new query to the route handler.
+    window.history.replaceState(null, "", `${pathname}${q.size ? `?${q}` : ""}`);
   }
 
   const columns = useMemo(() => backlogColumns(timeZone), [timeZone]);
@@ -106,7 +107,7 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
           </select>
         </label>
       </div>
-      <BacklogFilters values={values} counts={data?.counts} ranks={RANKS} onChange={update} />
+      <BacklogFilters key={params.toString()} values={values} counts={data?.counts} ranks={RANKS} onChange={update} />
       {error ? (
         <p role="alert" className="p-4 text-alarm-700 dark:text-alarm-300">
           The Backlog could not be loaded: {error.message}
