@@ -21,12 +21,18 @@ type SidePanelProps = {
  */
 export function SidePanel({ title, subtitle, onClose, children, wide, closeOnBackdrop }: SidePanelProps) {
   const ref = useRef<HTMLDialogElement>(null);
+  const body = useRef<HTMLDivElement>(null);
   const titleId = useId();
 
   useEffect(() => {
     const dialog = ref.current;
     const opener = document.activeElement instanceof HTMLElement ? document.activeElement : null;
     if (dialog && !dialog.open) dialog.showModal();
+    // showModal puts focus on the first focusable element, the Close button; a person opening a
+    // form wants to type, so the first field takes focus instead.
+    body.current
+      ?.querySelector<HTMLElement>("input:not([type=hidden]):not([disabled]), select:not([disabled]), textarea:not([disabled])")
+      ?.focus();
     return () => {
       dialog?.close();
       opener?.focus();
@@ -68,7 +74,9 @@ export function SidePanel({ title, subtitle, onClose, children, wide, closeOnBac
           Close
         </button>
       </div>
-      <div className="p-4">{children}</div>
+      <div ref={body} className="p-4">
+        {children}
+      </div>
     </dialog>
   );
 }
