@@ -21,7 +21,8 @@ export function showProblem<F extends FieldValues>(
   for (const e of errors) {
     const field = fields.find((f) => f === e.field) ?? fields.find((f) => e.field.startsWith(`${f}.`));
     if (field) {
-      setError(field, { message: e.message });
+      // The first refused field takes focus, so the keyboard lands where the correction goes.
+      setError(field, { message: e.message }, { shouldFocus: marked.size === 0 });
       marked.add(field);
     } else {
       unplaced = true;
