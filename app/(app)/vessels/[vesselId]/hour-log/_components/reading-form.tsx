@@ -52,11 +52,13 @@ export function ReadingForm({ view, onShowChart }: Props) {
         setFormProblem("The readings could not be sent. Check the connection and try again; nothing was saved.");
         return;
       }
-      for (const e of error.problem.errors ?? []) {
+      (error.problem.errors ?? []).forEach((e, i) => {
+        // The first refused row takes focus, so the keyboard lands where the correction goes.
+        const options = { shouldFocus: i === 0 };
         const counterId = e.row !== undefined ? batch.entries[e.row]?.counterId : undefined;
-        if (counterId) setError(`values.${counterId}`, { message: e.message });
-        else if (e.field === "time" || e.field === "shipDay") setError(e.field, { message: e.message });
-      }
+        if (counterId) setError(`values.${counterId}`, { message: e.message }, options);
+        else if (e.field === "time" || e.field === "shipDay") setError(e.field, { message: e.message }, options);
+      });
       setFormProblem(`${error.problem.detail} Nothing was saved.`);
     }
   }
