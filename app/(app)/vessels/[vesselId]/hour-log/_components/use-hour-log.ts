@@ -33,6 +33,8 @@ export function useSaveReadings(vesselId: string) {
       await Promise.all([
         client.invalidateQueries({ queryKey: queryKeys.hourLog(vesselId) }),
         client.invalidateQueries({ queryKey: queryKeys.readings(vesselId) }),
+        // New hours move hours-based work orders: the worker rewrites them within a second or two.
+        client.invalidateQueries({ queryKey: ["vessel", vesselId, "backlog"] }),
       ]);
     },
   });
