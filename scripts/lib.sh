@@ -17,10 +17,11 @@ as_root() {
 ensure_node_modules() {
   local stamp="$ROOT/node_modules/.keelson-lock-hash"
   local want
-  want="$(sha256sum "$ROOT/package-lock.json" | cut -d' ' -f1)"
+  want="$(sha256sum "$ROOT/package-lock.json" | cut -d' ' -f1)+dev"
   if [ ! -f "$stamp" ] || [ "$(cat "$stamp")" != "$want" ]; then
     log "installing packages (npm ci)…"
-    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+    # --include=dev: the build needs Tailwind, TypeScript and tsx even when NODE_ENV=production.
+    (cd "$ROOT" && npm ci --include=dev --no-audit --no-fund --loglevel=error)
     echo "$want" > "$stamp"
   fi
 }
