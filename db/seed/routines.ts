@@ -118,6 +118,18 @@ export const generatorRoutines = (n: number): DemoRoutine[] => [
   },
 ];
 
+const compressorValves = (n: number): DemoRoutine => ({
+  component: `AC.${n}`,
+  title: `Main air compressor ${n}: valves overhaul`,
+  intervalHours: 2_000,
+  manHours: 5,
+  rank: "third-engineer",
+  critical: true,
+  checklist: ["Isolate and vent", "Renew suction and delivery valves", "Test run and check the safety valve"],
+  spareParts: "Valve kit, gaskets",
+  cautions: ["isolation", "starting-air"],
+});
+
 export const vesselRoutines: DemoRoutine[] = [
   {
     component: "ME",
@@ -205,28 +217,7 @@ export const vesselRoutines: DemoRoutine[] = [
     ],
     cautions: ["isolation"],
   },
-  {
-    component: "AC.1",
-    title: "Main air compressor 1: valves overhaul",
-    intervalHours: 2_000,
-    manHours: 5,
-    rank: "third-engineer",
-    critical: true,
-    checklist: ["Isolate and vent", "Renew suction and delivery valves", "Test run and check the safety valve"],
-    spareParts: "Valve kit, gaskets",
-    cautions: ["isolation", "starting-air"],
-  },
-  {
-    component: "AC.2",
-    title: "Main air compressor 2: valves overhaul",
-    intervalHours: 2_000,
-    manHours: 5,
-    rank: "third-engineer",
-    critical: true,
-    checklist: ["Isolate and vent", "Renew suction and delivery valves", "Test run and check the safety valve"],
-    spareParts: "Valve kit, gaskets",
-    cautions: ["isolation", "starting-air"],
-  },
+  ...[1, 2].map(compressorValves),
   {
     component: "AC.RCV",
     title: "Starting air receivers: internal inspection",

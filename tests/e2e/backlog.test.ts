@@ -1,14 +1,13 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "@/db/seed/scenario";
-import { launchBrowser, screenshot, signInThroughForm } from "../support/browser";
+import { openPage, screenshot, signInThroughForm } from "../support/browser";
 
 let browser: Browser;
 let page: Page;
 
 beforeAll(async () => {
-  browser = await launchBrowser();
-  page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+  ({ browser, page } = await openPage());
 });
 afterAll(async () => {
   await browser?.close();

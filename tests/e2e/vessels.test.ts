@@ -1,15 +1,14 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD, demoVessels } from "@/db/seed/scenario";
-import { launchBrowser, screenshot, signInThroughForm } from "../support/browser";
+import { openPage, screenshot, signInThroughForm } from "../support/browser";
 
 let browser: Browser;
 let page: Page;
 
+// A tablet held upright.
 beforeAll(async () => {
-  browser = await launchBrowser();
-  // A tablet held upright.
-  page = await browser.newPage({ viewport: { width: 820, height: 1180 } });
+  ({ browser, page } = await openPage({ width: 820, height: 1180 }));
 });
 afterAll(async () => {
   await browser?.close();

@@ -22,6 +22,12 @@ export function launchBrowser(): Promise<Browser> {
   });
 }
 
+/** One browser and page for a test file: call in beforeAll, close in afterAll. */
+export async function openPage(viewport = { width: 1280, height: 900 }): Promise<{ browser: Browser; page: Page }> {
+  const browser = await launchBrowser();
+  return { browser, page: await browser.newPage({ viewport }) };
+}
+
 export async function screenshot(page: Page, name: string): Promise<string> {
   mkdirSync(OUTPUT, { recursive: true });
   const file = path.join(OUTPUT, `${name}.png`);
