@@ -6,6 +6,14 @@ export const queryKeys = {
   readings: (vesselId: string) => ["vessel", vesselId, "readings"] as const,
   register: (vesselId: string) => ["vessel", vesselId, "register"] as const,
   backlog: (vesselId: string, search: string) => ["vessel", vesselId, "backlog", search] as const,
+  workOrder: (vesselId: string, workOrderId: string) => ["vessel", vesselId, "work-order", workOrderId] as const,
+  routines: (vesselId: string) => ["vessel", vesselId, "routines"] as const,
+  routineList: (vesselId: string, component: string, q: string) =>
+    ["vessel", vesselId, "routines", "list", component, q] as const,
+  routine: (vesselId: string, routineId: string) => ["vessel", vesselId, "routines", "one", routineId] as const,
+  routineCopyTargets: (vesselId: string, routineId: string) =>
+    ["vessel", vesselId, "routines", "copy-targets", routineId] as const,
+  backlogAll: (vesselId: string) => ["vessel", vesselId, "backlog"] as const,
   adminVessels: () => ["admin", "vessels"] as const,
   adminPeople: () => ["admin", "people"] as const,
 };

@@ -15,13 +15,15 @@ export type Permission =
   | "vessel:read"
   | "readings:write"
   | "register:edit"
-  | "company:manage";
+  | "company:manage"
+  | "work:approve";
 
 const GRANTS: Record<Permission, readonly Role[]> = {
   "vessel:read": ROLES,
   "readings:write": ["engineer", "chief-engineer"],
   "register:edit": ["chief-engineer", "admin"],
   "company:manage": ["admin"],
+  "work:approve": ["chief-engineer"],
 };
 
 export function can(role: Role, permission: Permission): boolean {

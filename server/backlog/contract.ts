@@ -74,6 +74,8 @@ export type BacklogItem = {
   classRelated: boolean;
   component: { id: string; code: string; name: string };
   computedAt: string;
+  /** A completion is recorded and waits for the chief engineer's approval. */
+  awaitingApproval: boolean;
 };
 
 export type BacklogPage = {

@@ -1,10 +1,13 @@
 import "server-only";
 import { and, asc, eq, ilike, inArray, lte, or, type SQL, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { component, workOrder } from "@/db/schema";
+import { completion, component, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { instantOfShipTime } from "@/server/format/hours";
 import { ALL_STATES, type BacklogFilter, type BacklogPage, type BacklogState } from "./contract";
+
+// A completion the chief has still to decide on: the Backlog marks the work order as waiting for him.
+const AWAITING_APPROVAL = sql<boolean>`exists (select 1 from ${completion} where ${completion.companyId} = ${workOrder.companyId} and ${completion.workOrderId} = ${workOrder.id} and ${completion.status} = 'awaiting-approval')`;
 
 // Most urgent first: out of tolerance, late, inside the window, deferred, scheduled, done.
 const URGENCY = sql`case ${workOrder.state} when 'out-of-tolerance' then 0 when 'late' then 1 when 'window-open' then 2 when 'deferred' then 3 when 'scheduled' then 4 else 5 end`;
@@ -45,7 +48,12 @@ export async function loadBacklog(access: Access, vessel: VesselRef, f: BacklogF
   const db = getDb();
   const base = filters(access, vessel, f);
   const rows = await db
-    .select({ w: workOrder, componentCode: component.code, componentName: component.name })
+    .select({
+      w: workOrder,
+      componentCode: component.code,
+      componentName: component.name,
+      awaitingApproval: AWAITING_APPROVAL,
+    })
     .from(workOrder)
     .innerJoin(component, eq(component.id, workOrder.componentId))
     .where(and(...base, inArray(workOrder.state, f.state)))
@@ -70,7 +78,7 @@ export async function loadBacklog(access: Access, vessel: VesselRef, f: BacklogF
   }
   const iso = (d: Date | null) => (d ? d.toISOString() : null);
   return {
-    items: rows.map(({ w, componentCode, componentName }) => ({
+    items: rows.map(({ w, componentCode, componentName, awaitingApproval }) => ({
       id: w.id,
       number: w.number,
       title: w.title,
@@ -96,6 +104,7 @@ export async function loadBacklog(access: Access, vessel: VesselRef, f: BacklogF
       classRelated: w.classRelated,
       component: { id: w.componentId, code: componentCode, name: componentName },
       computedAt: w.computedAt.toISOString(),
+      awaitingApproval,
     })),
     counts,
     total: f.state.reduce((sum, s) => sum + counts[s], 0),

@@ -3,6 +3,7 @@ import { SectionTabs } from "@/app/_components/section-tabs";
 const SECTIONS = [
   { slug: "hour-log", label: "Hour log" },
   { slug: "backlog", label: "Backlog" },
+  { slug: "routines", label: "Routines" },
   { slug: "register", label: "Machinery register" },
 ] as const;
 

@@ -1,12 +1,26 @@
 "use client";
 
 import { createColumnHelper } from "@tanstack/react-table";
+import Link from "next/link";
+import { useParams } from "next/navigation";
 import { StateBadge } from "@/app/_components/state-badge";
 import type { BacklogItem } from "@/server/backlog/contract";
 import { formatHours, formatShipDate } from "@/server/format/hours";
 import { rankLabel } from "./backlog-filters";
 
 const column = createColumnHelper<BacklogItem>();
+
+function WorkOrderLink({ id, number }: { id: string; number: string }) {
+  const { vesselId } = useParams<{ vesselId: string }>();
+  return (
+    <Link
+      href={`/vessels/${vesselId}/work-orders/${id}`}
+      className="font-mono text-xs whitespace-nowrap text-tide-700 underline underline-offset-2 hover:text-tide-900 dark:text-tide-300 dark:hover:text-tide-100"
+    >
+      {number}
+    </Link>
+  );
+}
 
 function Remaining({ item }: { item: BacklogItem }) {
   const days = item.remainingDays;
@@ -28,7 +42,7 @@ export function backlogColumns(timeZone: string) {
   return [
     column.accessor("number", {
       header: "Work order",
-      cell: (c) => <span className="font-mono text-xs whitespace-nowrap">{c.getValue()}</span>,
+      cell: ({ row }) => <WorkOrderLink id={row.original.id} number={row.original.number} />,
     }),
     column.accessor("title", {
       header: "Job",
@@ -83,6 +97,7 @@ export function backlogColumns(timeZone: string) {
           {row.original.classRelated && <Mark>◆ class</Mark>}
           {row.original.needsEngineStop && <Mark>⏻ engine stop</Mark>}
           {row.original.kind === "corrective" && <Mark>✚ corrective</Mark>}
+          {row.original.awaitingApproval && <Mark>◷ awaiting approval</Mark>}
         </span>
       ),
     }),

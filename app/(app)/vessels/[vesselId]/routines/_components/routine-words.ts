@@ -1,0 +1,26 @@
+// The words the routine pages use for ranks and cautions.
+import type { Rank } from "@/server/routines/contract";
+import type { RoutineCaution } from "@/db/schema/maintenance";
+
+export const RANK_LABEL: Record<Rank, string> = {
+  "chief-engineer": "Chief engineer",
+  "second-engineer": "Second engineer",
+  "third-engineer": "Third engineer",
+  "fourth-engineer": "Fourth engineer",
+  motorman: "Motorman",
+  electrician: "Electrician",
+};
+
+export const rankLabel = (rank: string) => RANK_LABEL[rank as Rank] ?? rank;
+
+/** The usual wording of each caution, as shown on the form and on the work order. */
+export const CAUTION_WORDS: Record<RoutineCaution, string> = {
+  isolation: "Isolation and lock-out before opening machinery",
+  "permit-to-work": "Permit to work issued and signed before the job starts",
+  "enclosed-space": "Enclosed-space entry: atmosphere tested, space ventilated, a standby person outside",
+  "hot-work": "Hot work: permit, fire watch and combustibles cleared away",
+  "starting-air": "Starting air shut off and the lines vented before work on the engine",
+  "turning-gear": "Turning gear engaged and signposted before the engine is opened or turned",
+};
+
+export const CAUTIONS_PREVAIL = "The maker’s instruction manual, local regulations and class requirements prevail.";

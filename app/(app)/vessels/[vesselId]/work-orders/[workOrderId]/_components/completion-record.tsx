@@ -1,0 +1,158 @@
+"use client";
+
+import { useState } from "react";
+import { Field } from "@/app/_components/forms/field";
+import { problemSentence } from "@/app/_components/forms/form-problem";
+import { Notice } from "@/app/_components/notice";
+import type { CompletionRecord } from "@/server/completions/contract";
+import { formatHours, formatShipTime } from "@/server/format/hours";
+import { useDecideCompletion } from "./use-work-order";
+
+const STATUS_WORDS: Record<CompletionRecord["status"], string> = {
+  "awaiting-approval": "◷ Awaiting the chief engineer’s approval",
+  approved: "✓ Approved",
+  returned: "↩ Returned for correction",
+};
+
+type Props = { record: CompletionRecord; timeZone: string; counterName: string | null };
+
+/** What the engineer recorded, as the chief reads it before deciding. */
+export function CompletionRecordView({ record, timeZone, counterName }: Props) {
+  const when = (iso: string) => formatShipTime(new Date(iso), timeZone);
+  return (
+    <section aria-labelledby="record-heading" className="panel p-4">
+      <h2 id="record-heading" className="text-base font-semibold">
+        Completion record
+      </h2>
+      <p className="mt-1 font-semibold" data-status={record.status}>
+        {STATUS_WORDS[record.status]}
+        {record.decidedAt && record.decidedBy && (
+          <span className="font-normal text-ink-500">
+            {" "}
+            · {record.decidedBy}, {when(record.decidedAt)}
+          </span>
+        )}
+      </p>
+      {record.decisionNote && (
+        <p className="mt-2 rounded-md bg-brass-100 px-3 py-2 text-ink-900 dark:bg-brass-700/30 dark:text-ink-50">
+          <span className="font-semibold">Chief engineer’s note:</span> {record.decisionNote}
+        </p>
+      )}
+      <dl className="mt-3 grid grid-cols-2 gap-x-6 gap-y-2 text-sm sm:grid-cols-4">
+        <div>
+          <dt className="label">Done</dt>
+          <dd>{when(record.doneAt)} ship’s time</dd>
+        </div>
+        <div>
+          <dt className="label">By</dt>
+          <dd>{record.doneBy ?? "—"}</dd>
+        </div>
+        <div>
+          <dt className="label">Counter at completion</dt>
+          <dd className="tabular-nums">
+            {record.counterHours !== null
+              ? `${formatHours(record.counterHours)}${counterName ? ` (${counterName})` : ""}`
+              : "—"}
+          </dd>
+        </div>
+        <div>
+          <dt className="label">Man-hours</dt>
+          <dd className="tabular-nums">{record.manHours}</dd>
+        </div>
+      </dl>
+      {record.checklist.length > 0 && (
+        <ol className="mt-3 grid gap-1">
+          {record.checklist.map((t, i) => (
+            <li key={i} className={t.done ? "" : "font-medium text-brass-700 dark:text-brass-300"}>
+              <span aria-hidden="true">{t.done ? "☑" : "☐"}</span> {t.step}
+              <span className="sr-only">{t.done ? " (done)" : " (not done)"}</span>
+              {t.remark && <span className="block pl-5 text-sm">Not done: {t.remark}</span>}
+            </li>
+          ))}
+        </ol>
+      )}
+      {record.measurements.length > 0 && (
+        <table className="mt-3 text-sm">
+          <thead className="text-left text-xs text-ink-500 uppercase">
+            <tr>
+              <th className="pr-4 font-semibold">Measurement</th>
+              <th className="pr-4 font-semibold">Value</th>
+              <th className="font-semibold">Limits</th>
+            </tr>
+          </thead>
+          <tbody>
+            {record.measurements.map((m) => (
+              <tr key={m.name} className={m.outOfLimits ? "font-semibold text-alarm-700 dark:text-alarm-300" : ""}>
+                <td className="pr-4">{m.name}</td>
+                <td className="pr-4 tabular-nums">
+                  {m.value} {m.unit}
+                  {m.outOfLimits && " ▲ out of limits"}
+                </td>
+                <td className="tabular-nums">
+                  {m.lower ?? "—"} … {m.upper ?? "—"} {m.unit}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+      {record.remarks && <p className="mt-3 whitespace-pre-line">{record.remarks}</p>}
+    </section>
+  );
+}
+
+type DecisionProps = { vesselId: string; workOrderId: string; onDecided: (message: string) => void };
+
+/** The chief engineer's answer: approve, or return with a note saying what to correct. */
+export function DecisionForm({ vesselId, workOrderId, onDecided }: DecisionProps) {
+  const decide = useDecideCompletion(vesselId, workOrderId);
+  const [note, setNote] = useState("");
+  const [problem, setProblem] = useState<string | null>(null);
+  const [noteError, setNoteError] = useState<string | null>(null);
+
+  async function send(decision: "approve" | "return") {
+    setProblem(null);
+    setNoteError(null);
+    if (decision === "return" && !note.trim()) {
+      setNoteError("Say what needs correcting before returning it.");
+      return;
+    }
+    try {
+      await decide.mutateAsync({ decision, note });
+      onDecided(
+        decision === "approve"
+          ? "Approved: the work order is done and the next occurrence is being scheduled."
+          : "Returned to the engineer with your note.",
+      );
+    } catch (error) {
+      setProblem(problemSentence(error, "nothing was decided"));
+    }
+  }
+
+  return (
+    <section aria-labelledby="decision-heading" className="no-print grid gap-3 panel p-4">
+      <h2 id="decision-heading" className="text-base font-semibold">
+        Your decision
+      </h2>
+      <Field id="decision-note" label="Note (needed to return it)" error={noteError ?? undefined}>
+        <textarea
+          id="decision-note"
+          className="field min-h-20"
+          value={note}
+          onChange={(e) => setNote(e.target.value)}
+          aria-invalid={noteError ? true : undefined}
+          aria-describedby={noteError ? "decision-note-error" : undefined}
+        />
+      </Field>
+      <Notice tone="problem" message={problem} />
+      <div className="flex gap-2">
+        <button type="button" className="btn-primary" disabled={decide.isPending} onClick={() => send("approve")}>
+          Approve
+        </button>
+        <button type="button" className="btn-quiet" disabled={decide.isPending} onClick={() => send("return")}>
+          Return with note
+        </button>
+      </div>
+    </section>
+  );
+}

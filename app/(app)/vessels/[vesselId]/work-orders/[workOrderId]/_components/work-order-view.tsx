@@ -1,0 +1,89 @@
+"use client";
+
+import Link from "next/link";
+import { useState } from "react";
+import { LoadProblem, Notice } from "@/app/_components/notice";
+import type { WorkOrderDetail } from "@/server/completions/contract";
+import { Cautions } from "./cautions";
+import { ComponentHistory } from "./component-history";
+import { CompletionForm } from "./completion-form";
+import { CompletionRecordView, DecisionForm } from "./completion-record";
+import { useWorkOrder } from "./use-work-order";
+import { WorkOrderSummary } from "./work-order-summary";
+
+type Props = { vesselId: string; workOrderId: string };
+
+export function WorkOrderView({ vesselId, workOrderId }: Props) {
+  const query = useWorkOrder(vesselId, workOrderId);
+  const [message, setMessage] = useState<string | null>(null);
+  if (query.error) return <LoadProblem what="work order" error={query.error} />;
+  if (!query.data) return <div className="h-96 animate-pulse panel" aria-busy="true" />;
+  const detail = query.data;
+  return (
+    <div className="grid gap-4">
+      <p className="no-print text-sm">
+        <Link
+          href={`/vessels/${vesselId}/backlog`}
+          className="text-tide-700 underline-offset-2 hover:underline dark:text-tide-300"
+        >
+          ← Backlog
+        </Link>
+      </p>
+      <WorkOrderSummary detail={detail} />
+      <Cautions cautions={detail.routine?.cautions ?? []} />
+      {detail.routine?.spareParts && (
+        <section aria-labelledby="parts-heading" className="panel p-4">
+          <h2 id="parts-heading" className="text-base font-semibold">
+            Spare parts to have ready
+          </h2>
+          <p className="mt-1 whitespace-pre-line">{detail.routine.spareParts}</p>
+        </section>
+      )}
+      <Notice message={message} className="no-print" />
+      <CompletionPart detail={detail} onMessage={setMessage} />
+      <ComponentHistory detail={detail} />
+    </div>
+  );
+}
+
+/** What this user may do with the completion now: record it, read it, decide on it, or correct it. */
+function CompletionPart({ detail, onMessage }: { detail: WorkOrderDetail; onMessage: (m: string) => void }) {
+  const { completion, may } = detail;
+  const counterName = detail.counter?.name ?? null;
+  const record = completion && (
+    <CompletionRecordView record={completion} timeZone={detail.vessel.timeZone} counterName={counterName} />
+  );
+  if (!completion) {
+    if (may.record) return <CompletionForm key="new" detail={detail} onDone={onMessage} />;
+    return (
+      <p className="panel p-4 text-ink-600 dark:text-ink-300">
+        {detail.workOrder.state === "done"
+          ? "This work order is done."
+          : "No completion is recorded yet; engineers and the chief engineer record it here."}
+      </p>
+    );
+  }
+  if (completion.status === "awaiting-approval") {
+    return (
+      <>
+        {record}
+        {may.approve ? (
+          <DecisionForm vesselId={detail.vessel.id} workOrderId={detail.workOrder.id} onDecided={onMessage} />
+        ) : (
+          <p className="text-ink-600 dark:text-ink-300">
+            The chief engineer approves it; until then it shows as awaiting approval.
+          </p>
+        )}
+      </>
+    );
+  }
+  if (completion.status === "returned" && may.record) {
+    return (
+      <>
+        {record}
+        <CompletionForm key={`resubmit-${completion.id}`} detail={detail} onDone={onMessage} />
+      </>
+    );
+  }
+  return record;
+}

@@ -1,0 +1,14 @@
+import { withAccess } from "@/server/http/with-access";
+import { RoutineCopyInput } from "@/server/routines/contract";
+import { copyRoutine, copyTargets } from "@/server/routines/copies";
+
+/** The components the routine may be copied to. */
+export const GET = withAccess({ permission: "register:edit", vessel: true }, ({ access, vessel, params }) =>
+  copyTargets(access, vessel, params.routineId ?? ""),
+);
+
+export const POST = withAccess(
+  { permission: "register:edit", vessel: true, body: RoutineCopyInput },
+  async ({ access, vessel, params, body }) =>
+    Response.json(await copyRoutine(access, vessel, params.routineId ?? "", body.componentIds), { status: 201 }),
+);

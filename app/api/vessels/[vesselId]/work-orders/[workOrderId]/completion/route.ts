@@ -1,0 +1,16 @@
+import { CompletionInput } from "@/server/completions/contract";
+import { recordCompletion, resubmitCompletion } from "@/server/completions/record";
+import { withAccess } from "@/server/http/with-access";
+
+/** Records the job as done; it then awaits the chief engineer's approval. */
+export const POST = withAccess(
+  { permission: "readings:write", vessel: true, body: CompletionInput },
+  async ({ access, vessel, params, body }) =>
+    Response.json(await recordCompletion(access, vessel, params.workOrderId ?? "", body), { status: 201 }),
+);
+
+/** Resubmits a completion the chief returned for correction. */
+export const PUT = withAccess(
+  { permission: "readings:write", vessel: true, body: CompletionInput },
+  ({ access, vessel, params, body }) => resubmitCompletion(access, vessel, params.workOrderId ?? "", body),
+);

@@ -1,0 +1,7 @@
+import { loadWorkOrderDetail } from "@/server/completions/queries";
+import { withAccess } from "@/server/http/with-access";
+
+/** A work order with its routine, counter, completion and the component's earlier work. */
+export const GET = withAccess({ permission: "vessel:read", vessel: true }, ({ access, vessel, params }) =>
+  loadWorkOrderDetail(access, vessel, params.workOrderId ?? ""),
+);

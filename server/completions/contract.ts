@@ -1,0 +1,209 @@
+// Completing a work order: the form's input, the record the chief approves, and the pure check of
+// measurements against the routine's limits. Shared by the form (react-hook-form + zod) and the
+// route handlers.
+import { z } from "zod";
+import type { RecordedMeasurement, RoutineCaution, RoutineMeasurement } from "@/db/schema";
+import type { BacklogState } from "@/server/backlog/contract";
+import { MeterValue, ShipClock, ShipDay } from "@/server/readings/contract";
+
+/** A number as typed on a tablet: "0.42", "0,42" or a number; a blank is not 0. */
+function typedNumber(message: string) {
+  return z.union([z.number(), z.string()], { message }).transform((raw, ctx) => {
+    const text = typeof raw === "number" ? String(raw) : raw.trim().replace(",", ".");
+    const ok = typeof raw === "number" ? Number.isFinite(raw) : /^-?\d+(\.\d+)?$/.test(text);
+    if (!ok) {
+      ctx.addIssue({ code: "custom", message });
+      return z.NEVER;
+    }
+    return Number(text);
+  });
+}
+
+const Remark = z.string().trim().max(500, { message: "Keep the remark under 500 characters." });
+
+export const ChecklistTick = z.object({
+  step: z.string().trim().min(1, { message: "A checklist step needs its text." }).max(500),
+  done: z.boolean({ message: "Say whether the step was done." }),
+  /** Why a step was not done: an unticked step without one is refused. */
+  remark: Remark.optional(),
+});
+export type ChecklistTick = z.infer<typeof ChecklistTick>;
+
+export const MeasurementValue = z.object({
+  name: z.string().trim().min(1, { message: "A measurement needs its name." }).max(200),
+  value: typedNumber("Enter the measured value as a number, e.g. 0.42."),
+});
+export type MeasurementValue = z.infer<typeof MeasurementValue>;
+
+export const CompletionInput = z
+  .object({
+    doneOn: ShipDay,
+    time: ShipClock,
+    /** The counter's total hours when the job was done; required for an hours routine (checked by the server). */
+    counterHours: z.union([z.literal("").transform(() => null), MeterValue]).nullish(),
+    manHours: typedNumber("Enter the man-hours spent as a number, e.g. 6.5.").pipe(
+      z
+        .number()
+        .positive({ message: "Man-hours must be more than 0." })
+        .max(9_999, { message: "That is more man-hours than one job takes (at most 9,999)." }),
+    ),
+    checklist: z.array(ChecklistTick).max(200, { message: "At most 200 checklist steps." }),
+    measurements: z.array(MeasurementValue).max(100, { message: "At most 100 measurements." }),
+    remarks: z.string().trim().max(4_000, { message: "Keep the remarks under 4,000 characters." }).default(""),
+  })
+  .superRefine((input, ctx) => {
+    input.checklist.forEach((tick, index) => {
+      if (!tick.done && !tick.remark) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["checklist", index, "remark"],
+          message: `Step ${index + 1} is not ticked: tick it, or say in a remark why it was not done.`,
+        });
+      }
+    });
+  });
+export type CompletionInput = z.input<typeof CompletionInput>;
+export type Completion = z.output<typeof CompletionInput>;
+
+export const DecisionInput = z
+  .object({
+    decision: z.enum(["approve", "return"], { message: "The decision is approve or return." }),
+    note: z.string().trim().max(2_000, { message: "Keep the note under 2,000 characters." }).default(""),
+  })
+  .superRefine((input, ctx) => {
+    if (input.decision === "return" && !input.note) {
+      ctx.addIssue({ code: "custom", path: ["note"], message: "Say what needs correcting before returning it." });
+    }
+  });
+export type DecisionInput = z.input<typeof DecisionInput>;
+
+/** Where a value lies against its limits; null limits are open-ended. Limits themselves are inside. */
+export function limitSide(m: Pick<RoutineMeasurement, "lower" | "upper">, value: number): "low" | "high" | null {
+  if (m.lower !== null && value < m.lower) return "low";
+  if (m.upper !== null && value > m.upper) return "high";
+  return null;
+}
+
+/** Each value of a known measurement with its unit and limits, flagged when outside them. */
+export function assessMeasurements(
+  routineMeasurements: readonly RoutineMeasurement[],
+  values: readonly MeasurementValue[],
+): RecordedMeasurement[] {
+  const byName = new Map(routineMeasurements.map((m) => [m.name, m]));
+  return values.flatMap((v) => {
+    const m = byName.get(v.name);
+    if (!m) return [];
+    return [
+      {
+        name: m.name,
+        unit: m.unit,
+        value: v.value,
+        lower: m.lower,
+        upper: m.upper,
+        outOfLimits: limitSide(m, v.value) !== null,
+      },
+    ];
+  });
+}
+
+/** Values that do not match the routine's measurements: unknown, repeated, or missing names. */
+export function measurementMismatches(
+  routineMeasurements: readonly RoutineMeasurement[],
+  values: readonly MeasurementValue[],
+): { field: string; message: string }[] {
+  const known = new Set(routineMeasurements.map((m) => m.name));
+  const seen = new Set<string>();
+  const problems: { field: string; message: string }[] = [];
+  values.forEach((v, index) => {
+    if (!known.has(v.name)) {
+      problems.push({
+        field: `measurements.${index}.name`,
+        message: `“${v.name}” is not a measurement of this routine.`,
+      });
+    } else if (seen.has(v.name)) {
+      problems.push({ field: `measurements.${index}.name`, message: `“${v.name}” is entered twice.` });
+    }
+    seen.add(v.name);
+  });
+  for (const m of routineMeasurements) {
+    if (!seen.has(m.name)) problems.push({ field: "measurements", message: `Enter the value of “${m.name}”.` });
+  }
+  return problems;
+}
+
+export type CompletionStatus = "awaiting-approval" | "approved" | "returned";
+
+export type CompletionRecord = {
+  id: string;
+  status: CompletionStatus;
+  doneAt: string;
+  counterHours: number | null;
+  manHours: number;
+  checklist: ChecklistTick[];
+  measurements: RecordedMeasurement[];
+  remarks: string;
+  doneBy: string | null;
+  decidedBy: string | null;
+  decidedAt: string | null;
+  decisionNote: string | null;
+};
+
+export type ComponentHistoryEntry = {
+  workOrderId: string;
+  number: string;
+  title: string;
+  kind: "planned" | "corrective";
+  doneAt: string;
+  counterHours: number | null;
+  manHours: number;
+  doneBy: string | null;
+  outOfLimits: string[];
+  remarks: string;
+};
+
+export type WorkOrderDetail = {
+  vessel: { id: string; name: string; code: string; timeZone: string };
+  now: string;
+  workOrder: {
+    id: string;
+    number: string;
+    title: string;
+    kind: "planned" | "corrective";
+    occurrence: number;
+    state: BacklogState;
+    dueDate: string | null;
+    dueHours: number | null;
+    governing: "hours" | "calendar" | null;
+    windowOpensAt: string | null;
+    graceEndsAt: string | null;
+    windowOpensHours: number | null;
+    graceEndsHours: number | null;
+    remainingHours: number | null;
+    remainingDays: number | null;
+    rank: string;
+    estimatedManHours: number;
+    needsEngineStop: boolean;
+    critical: boolean;
+    classRelated: boolean;
+    completedAt: string | null;
+  };
+  component: { id: string; code: string; name: string };
+  routine: {
+    id: string;
+    description: string;
+    checklist: string[];
+    intervalHours: number | null;
+    calendarRule: string | null;
+    measurements: RoutineMeasurement[];
+    cautions: RoutineCaution[];
+    spareParts: string;
+  } | null;
+  counter: { id: string; name: string; latest: { readAt: string; totalHours: number } | null } | null;
+  /** An hours routine cannot be scheduled again without the counter value at completion. */
+  counterRequired: boolean;
+  completion: CompletionRecord | null;
+  history: ComponentHistoryEntry[];
+  may: { record: boolean; approve: boolean };
+};
+
+export type CompletionResult = { completionId: string; status: CompletionStatus; followUpNumber: string | null };

@@ -1,0 +1,70 @@
+// The chief engineer's decision on a completion: approve it (the work order is done and the worker
+// schedules the next occurrence) or return it with a note for the engineer to correct.
+import "server-only";
+import { and, eq } from "drizzle-orm";
+import { z } from "zod";
+import { getDb } from "@/db/client";
+import { completion, workOrder, workOrderStateChange } from "@/db/schema";
+import type { Access, VesselRef } from "@/server/auth/access";
+import { AppError } from "@/server/http/problem";
+import { type CompletionStatus, DecisionInput } from "./contract";
+import { lockVesselWorkOrders } from "./follow-up";
+import { isUuid } from "./queries";
+
+export type Decision = z.output<typeof DecisionInput>;
+
+export async function decideCompletion(
+  access: Access,
+  vessel: VesselRef,
+  workOrderId: string,
+  decision: Decision,
+  now = new Date(),
+): Promise<{ status: CompletionStatus; workOrderState: string }> {
+  if (!isUuid(workOrderId)) throw new AppError("not-found", "There is no such work order on this vessel.");
+  const companyId = access.company.id;
+  return getDb().transaction(async (tx) => {
+    // The worker's lock: a recompute running now must not put a done work order back to late.
+    await lockVesselWorkOrders(tx, vessel.id);
+    const [w] = await tx
+      .select()
+      .from(workOrder)
+      .where(and(eq(workOrder.companyId, companyId), eq(workOrder.vesselId, vessel.id), eq(workOrder.id, workOrderId)))
+      .for("update");
+    if (!w) throw new AppError("not-found", "There is no such work order on this vessel.");
+    const [c] = await tx
+      .select()
+      .from(completion)
+      .where(and(eq(completion.companyId, companyId), eq(completion.workOrderId, w.id)));
+    if (!c || c.status !== "awaiting-approval") {
+      throw new AppError(
+        "conflict",
+        c?.status === "approved"
+          ? `${w.number} is already approved.`
+          : c?.status === "returned"
+            ? `${w.number} was returned for correction and has not been resubmitted.`
+            : `${w.number} has no completion awaiting approval.`,
+      );
+    }
+
+    const decided = { decidedBy: access.user.id, decidedAt: now, decisionNote: decision.note || null };
+    if (decision.decision === "return") {
+      await tx
+        .update(completion)
+        .set({ ...decided, status: "returned" })
+        .where(eq(completion.id, c.id));
+      return { status: "returned", workOrderState: w.state };
+    }
+    await tx
+      .update(completion)
+      .set({ ...decided, status: "approved" })
+      .where(eq(completion.id, c.id));
+    await tx
+      .update(workOrder)
+      .set({ state: "done", stateChangedAt: now, completedAt: c.doneAt })
+      .where(eq(workOrder.id, w.id));
+    await tx
+      .insert(workOrderStateChange)
+      .values({ companyId, workOrderId: w.id, fromState: w.state, toState: "done", changedAt: now });
+    return { status: "approved", workOrderState: "done" };
+  });
+}
