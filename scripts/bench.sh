@@ -15,3 +15,4 @@ trap 'exit 130' INT TERM
 stack_database
 stack_start_app bench-output
 node_modules/.bin/tsx --conditions=react-server scripts/bench/run.ts
+node_modules/.bin/tsx --conditions=react-server scripts/bench/fleet.ts

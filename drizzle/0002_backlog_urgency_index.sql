@@ -1,0 +1,1 @@
+CREATE INDEX "work_order_backlog_urgency" ON "work_order" USING btree ("company_id","vessel_id",(case "state" when 'out-of-tolerance' then 0 when 'late' then 1 when 'window-open' then 2 when 'deferred' then 3 when 'scheduled' then 4 else 5 end),"due_date","number");
