@@ -16,4 +16,5 @@ export const queryKeys = {
   backlogAll: (vesselId: string) => ["vessel", vesselId, "backlog"] as const,
   adminVessels: () => ["admin", "vessels"] as const,
   adminPeople: () => ["admin", "people"] as const,
+  adminToleranceRules: () => ["admin", "tolerance-rules"] as const,
 };

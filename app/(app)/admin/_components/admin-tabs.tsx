@@ -4,6 +4,7 @@ const SECTIONS = [
   { href: "/admin", label: "Overview", exact: true },
   { href: "/admin/vessels", label: "Vessels" },
   { href: "/admin/people", label: "People" },
+  { href: "/admin/tolerance-rules", label: "Tolerance rules" },
 ] as const;
 
 export function AdminTabs() {

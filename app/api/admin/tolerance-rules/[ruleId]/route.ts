@@ -1,0 +1,15 @@
+import { withAccess } from "@/server/http/with-access";
+import { ToleranceRulePatch } from "@/server/tolerance/contract";
+import { deleteToleranceRule, updateToleranceRule } from "@/server/tolerance/queries";
+
+// The queries look the rule up within the administrator's company: another company's id is a 404.
+
+export const PATCH = withAccess(
+  { permission: "company:manage", body: ToleranceRulePatch },
+  ({ access, params, body }) => updateToleranceRule(access, params.ruleId ?? "", body),
+);
+
+/** Refused with 409 while routines have chosen the rule by hand. */
+export const DELETE = withAccess({ permission: "company:manage" }, ({ access, params }) =>
+  deleteToleranceRule(access, params.ruleId ?? ""),
+);
