@@ -30,10 +30,7 @@ const RANK_LABEL: Record<string, string> = {
 };
 export const rankLabel = (rank: string) => RANK_LABEL[rank] ?? rank;
 
-/**
- * Uncontrolled inputs, re-mounted by the caller whenever the URL changes: a click shows at once,
- * and the URL stays the one source of the filters.
- */
+/** Controlled by the caller's filter values, which follow the URL (or the change just made). */
 export function BacklogFilters({ values, counts, ranks, onChange }: Props) {
   const toggleState = (s: BacklogState) => {
     const has = values.state.includes(s);

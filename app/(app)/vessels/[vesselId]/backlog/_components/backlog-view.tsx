@@ -2,7 +2,7 @@
 
 import { flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-table";
 import { usePathname, useSearchParams } from "next/navigation";
-import { useMemo } from "react";
+import { useMemo, useState } from "react";
 import { ageOf } from "@/app/_components/relative-age";
 import { ALL_STATES, BACKLOG_SORTS, type BacklogState, OPEN_STATES } from "@/server/backlog/contract";
 import { backlogColumns } from "./backlog-columns";
@@ -37,8 +37,13 @@ function readFilters(params: URLSearchParams): FilterValues {
 
 export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone: string }) {
   const pathname = usePathname();
-  const params = useSearchParams();
-  const values = readFilters(new URLSearchParams(params.toString()));
+  const urlParams = useSearchParams();
+  // The filter just chosen shows at once, before the URL round-trips through the router: while
+  // the URL is still the one it was changed from, the pending query stands in for it.
+  const [pending, setPending] = useState<{ from: string; to: string } | null>(null);
+  const current = pending && pending.from === urlParams.toString() ? pending.to : urlParams.toString();
+  const params = useMemo(() => new URLSearchParams(current), [current]);
+  const values = readFilters(params);
   const sort = (BACKLOG_SORTS as readonly string[]).includes(params.get("sort") ?? "")
     ? params.get("sort")!
     : "urgency";
@@ -69,6 +74,7 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
     if (!("page" in next)) q.delete("page");
     // The History API, not router.replace: Next keeps useSearchParams in step, and the ship's link
     // is spared a server round trip for what is only a new query to the route handler.
+    setPending({ from: urlParams.toString(), to: q.toString() });
     window.history.replaceState(null, "", `${pathname}${q.size ? `?${q}` : ""}`);
   }
 
@@ -107,7 +113,7 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
           </select>
         </label>
       </div>
-      <BacklogFilters key={params.toString()} values={values} counts={data?.counts} ranks={RANKS} onChange={update} />
+      <BacklogFilters values={values} counts={data?.counts} ranks={RANKS} onChange={update} />
       {error ? (
         <p role="alert" className="p-4 text-alarm-700 dark:text-alarm-300">
           The Backlog could not be loaded: {error.message}
