@@ -1,5 +1,6 @@
 // The machinery register's input and output, shared by the page's forms and the route handlers.
 import { z } from "zod";
+import { optionalText, requiredText } from "@/server/http/text-fields";
 import { MeterValue, ShipClock, ShipDay } from "@/server/readings/contract";
 import type { EffectiveCounter } from "./tree";
 
@@ -22,22 +23,9 @@ export const ComponentCode = z
     if (message) ctx.addIssue({ code: "custom", message });
   });
 
-function requiredText(what: string, max: number) {
-  return z
-    .string({ message: `Enter the ${what}.` })
-    .trim()
-    .min(1, { message: `Enter the ${what}.` })
-    .max(max, { message: `Keep the ${what} to ${max} characters or fewer.` });
-}
-
 /** Text that may be left empty: an empty field is stored as no value; `undefined` leaves it as it is. */
-function optionalText(what: string, max: number) {
-  return z
-    .string({ message: `The ${what} must be text.` })
-    .trim()
-    .max(max, { message: `Keep the ${what} to ${max} characters or fewer.` })
-    .nullish()
-    .transform((v) => (v === undefined ? undefined : v || null));
+function optionalStoredText(what: string, max: number) {
+  return optionalText(what, max).transform((v) => (v === undefined ? undefined : v || null));
 }
 
 const ComponentId = (what: string) => z.uuid({ message: `The ${what} is not a component of this register.` });
@@ -48,10 +36,10 @@ const componentFields = {
   name: requiredText("component’s name", 120),
   parentId: ComponentId("parent").nullable(),
   critical: z.boolean({ message: "Critical must be yes or no." }),
-  classItemRef: optionalText("class item reference", 40),
+  classItemRef: optionalStoredText("class item reference", 40),
   counterId: CounterId.nullable(),
-  maker: optionalText("maker", 80),
-  model: optionalText("model", 80),
+  maker: optionalStoredText("maker", 80),
+  model: optionalStoredText("model", 80),
 };
 
 export const ComponentInput = z.object({

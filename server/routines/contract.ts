@@ -2,6 +2,7 @@
 // comes either from the friendly form ("every 6 months") or as a raw RFC 5545 RRULE; both end up
 // as one stored rule text.
 import { z } from "zod";
+import { optionalText, requiredText } from "@/server/http/text-fields";
 import type { RoutineCaution, RoutineMeasurement } from "@/db/schema/maintenance";
 import { AppError } from "@/server/http/problem";
 import { MeterValue, ShipDay } from "@/server/readings/contract";
@@ -30,21 +31,6 @@ export const CAUTIONS = [
 export const CALENDAR_UNITS = ["day", "week", "month", "year"] as const;
 export const WEEKDAYS = ["MO", "TU", "WE", "TH", "FR", "SA", "SU"] as const;
 
-function requiredText(what: string, max: number) {
-  return z
-    .string({ message: `Enter the ${what}.` })
-    .trim()
-    .min(1, { message: `Enter the ${what}.` })
-    .max(max, { message: `Keep the ${what} to ${max} characters or fewer.` });
-}
-
-function optionalText(what: string, max: number) {
-  return z
-    .string({ message: `The ${what} must be text.` })
-    .trim()
-    .max(max, { message: `Keep the ${what} to ${max} characters or fewer.` })
-    .nullish();
-}
 
 /** A number typed with at most one decimal; an empty field is no value. */
 function tenths(what: string, { min, above }: { min?: number; above?: number }) {
