@@ -7,27 +7,13 @@ import * as s from "../schema";
 import { TOLERANCE_PRESETS } from "../../server/scheduling/presets";
 import { calendarIntervalDays } from "../../server/scheduling/tolerance";
 import { parseCalendarRule } from "../../server/scheduling/calendar-rule";
+import { presetRow } from "../../server/tolerance/rows";
 import { seededRandom } from "./readings";
 import { routinesFor } from "./routines";
 import { componentsFor, type DemoVessel } from "./scenario";
 
 export async function seedTolerancePresets(tx: Tx, companyId: string) {
-  await tx.insert(s.toleranceRule).values(
-    TOLERANCE_PRESETS.map((p, i) => ({
-      companyId,
-      name: p.name,
-      kind: p.kind,
-      minInterval: p.minInterval,
-      maxInterval: p.maxInterval,
-      windowBeforeValue: p.windowBefore.value,
-      windowBeforeUnit: p.windowBefore.unit,
-      graceAfterValue: p.graceAfter.value,
-      graceAfterUnit: p.graceAfter.unit,
-      capHours: p.capHours ?? null,
-      keepsAnniversary: p.keepsAnniversary,
-      sortOrder: i,
-    })),
-  );
+  await tx.insert(s.toleranceRule).values(TOLERANCE_PRESETS.map((_, i) => presetRow(companyId, i)));
 }
 
 /** How far through its interval a routine is at the seed: mostly ahead, some due, a few overdue. */

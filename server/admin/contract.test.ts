@@ -25,7 +25,7 @@ describe("VesselInput", () => {
     });
   });
 
-  // Vectors from /work/shared/SOURCES.md, "IMO ship identification number": 9074728 and 9241062 are invalid.
+  // Vectors from ../shared/SOURCES.md, "IMO ship identification number": 9074728 and 9241062 are invalid.
   it.each(["9074728", "IMO 9241062"])("refuses the IMO number %s by its check digit", (imoNumber) => {
     expect(messageFor(VesselInput.safeParse({ ...vessel, imoNumber }), "imoNumber")).toMatch(
       /^IMO number: the check digit does not match/,

@@ -30,11 +30,6 @@ export async function recomputeVessel(
   });
 }
 
-/** Only the running rates, in a transaction of their own (kept for callers that need no more). */
-export async function refreshRunningRates(db: Db, companyId: string, vesselId: string, now = new Date()) {
-  return db.transaction(async (tx) => (await refreshRunningRatesIn(tx, companyId, vesselId, now)).size);
-}
-
 async function refreshRunningRatesIn(
   tx: Tx,
   companyId: string,

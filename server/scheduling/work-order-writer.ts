@@ -8,6 +8,7 @@ import { completion, component, routine, toleranceRule, vessel, workOrder, workO
 import { resolveCounters } from "@/server/register/tree";
 import { round1 } from "@/server/readings/rules";
 import { type LastCompletion, planWorkOrder, type WorkOrderPlan } from "./plan-work-order";
+import { toleranceRuleFromRow } from "@/server/tolerance/rows";
 import { presetToleranceRules } from "./presets";
 import type { ToleranceRule } from "./tolerance";
 import type { CounterNow } from "./recompute";
@@ -35,17 +36,7 @@ async function companyRules(tx: Tx, companyId: string): Promise<ToleranceRule[]>
   const rows = await tx.select().from(toleranceRule).where(eq(toleranceRule.companyId, companyId));
   // A company that has not configured any rule gets the presets (the same ones it is offered).
   if (rows.length === 0) return presetToleranceRules();
-  return rows.map((r) => ({
-    id: r.id,
-    name: r.name,
-    kind: r.kind,
-    minInterval: r.minInterval,
-    maxInterval: r.maxInterval,
-    windowBefore: { value: r.windowBeforeValue, unit: r.windowBeforeUnit },
-    graceAfter: { value: r.graceAfterValue, unit: r.graceAfterUnit },
-    ...(r.capHours !== null ? { capHours: r.capHours } : {}),
-    keepsAnniversary: r.keepsAnniversary,
-  }));
+  return rows.map(toleranceRuleFromRow);
 }
 
 export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRunSummary> {
@@ -228,7 +219,12 @@ type WorkOrderFields = {
 };
 type WorkOrderUpdate = WorkOrderFields & { id: string; state: WorkOrderState; stateChanged: boolean };
 type WorkOrderState = (typeof workOrder.$inferSelect)["state"];
-type WorkOrderInsert = WorkOrderFields & { routineId: string; number: string; occurrence: number; state: WorkOrderState };
+type WorkOrderInsert = WorkOrderFields & {
+  routineId: string;
+  number: string;
+  occurrence: number;
+  state: WorkOrderState;
+};
 
 /** The fields both statements write, as unnest arrays, in the order of FIELD_COLUMNS. */
 function fieldArrays(rows: WorkOrderFields[]) {

@@ -14,13 +14,12 @@ import {
   ToleranceRuleInput,
   type ToleranceRuleValues,
 } from "./contract";
+import { presetRow, toleranceRuleColumns, type ToleranceRuleRow } from "./rows";
 
 // The company administrator's tolerance rules: every query is scoped by the administrator's company.
 // Work-order states depend on the rules, so every change asks the worker to recompute each vessel.
 
-type RuleRow = typeof toleranceRule.$inferSelect;
-
-function toAdminRule(r: RuleRow, overridingRoutines: number): AdminToleranceRule {
+function toAdminRule(r: ToleranceRuleRow, overridingRoutines: number): AdminToleranceRule {
   return {
     id: r.id,
     name: r.name,
@@ -32,22 +31,6 @@ function toAdminRule(r: RuleRow, overridingRoutines: number): AdminToleranceRule
     capHours: r.capHours,
     keepsAnniversary: r.keepsAnniversary,
     overridingRoutines,
-  };
-}
-
-function toColumns(values: ToleranceRuleValues) {
-  return {
-    name: values.name,
-    kind: values.kind,
-    minInterval: values.minInterval,
-    maxInterval: values.maxInterval,
-    windowBeforeValue: values.windowBefore.value,
-    windowBeforeUnit: values.windowBefore.unit,
-    graceAfterValue: values.graceAfter.value,
-    graceAfterUnit: values.graceAfter.unit,
-    // A cap only means something on an hours rule; the contract refuses one elsewhere.
-    capHours: values.capHours ?? null,
-    keepsAnniversary: values.keepsAnniversary,
   };
 }
 
@@ -95,24 +78,6 @@ async function recomputeCompany(companyId: string): Promise<void> {
   await Promise.all(vessels.map((v) => requestRecompute(companyId, v.id)));
 }
 
-function presetColumns(companyId: string, index: number) {
-  const p = TOLERANCE_PRESETS[index]!;
-  return {
-    companyId,
-    name: p.name,
-    kind: p.kind,
-    minInterval: p.minInterval,
-    maxInterval: p.maxInterval,
-    windowBeforeValue: p.windowBefore.value,
-    windowBeforeUnit: p.windowBefore.unit,
-    graceAfterValue: p.graceAfter.value,
-    graceAfterUnit: p.graceAfter.unit,
-    capHours: p.capHours ?? null,
-    keepsAnniversary: p.keepsAnniversary,
-    sortOrder: index,
-  };
-}
-
 /**
  * A company with no rule saved is scheduled with the presets (work-order-writer.ts). Its first own
  * rule would end that silently, so the presets are saved alongside it: the administrator then
@@ -124,7 +89,7 @@ async function savePresetsIfNone(tx: Tx, companyId: string): Promise<void> {
     .from(toleranceRule)
     .where(eq(toleranceRule.companyId, companyId))
     .limit(1);
-  if (!any) await tx.insert(toleranceRule).values(TOLERANCE_PRESETS.map((_, i) => presetColumns(companyId, i)));
+  if (!any) await tx.insert(toleranceRule).values(TOLERANCE_PRESETS.map((_, i) => presetRow(companyId, i)));
 }
 
 export async function createToleranceRule(access: Access, values: ToleranceRuleValues): Promise<AdminToleranceRule> {
@@ -141,7 +106,7 @@ export async function createToleranceRule(access: Access, values: ToleranceRuleV
           .where(eq(toleranceRule.companyId, companyId));
         const [row] = await tx
           .insert(toleranceRule)
-          .values({ companyId, ...toColumns(values), sortOrder: (last?.max ?? -1) + 1 })
+          .values({ companyId, ...toleranceRuleColumns(values), sortOrder: (last?.max ?? -1) + 1 })
           .returning({ id: toleranceRule.id });
         return row!.id;
       }),
@@ -170,7 +135,7 @@ export async function updateToleranceRule(
         await assertUniqueName(tx, companyId, values.name, ruleId);
         await tx
           .update(toleranceRule)
-          .set({ ...toColumns(values), updatedAt: new Date() })
+          .set({ ...toleranceRuleColumns(values), updatedAt: new Date() })
           .where(and(eq(toleranceRule.companyId, companyId), eq(toleranceRule.id, ruleId)));
       }),
     () => assertUniqueName(db, companyId, values.name, ruleId),
@@ -221,7 +186,7 @@ export async function restoreTolerancePresets(access: Access): Promise<RestoredP
     if (missing.length) {
       await tx
         .insert(toleranceRule)
-        .values(missing.map((i) => presetColumns(companyId, i)))
+        .values(missing.map((i) => presetRow(companyId, i)))
         // Two administrators restoring at once: the second finds the names taken and adds nothing.
         .onConflictDoNothing();
     }

@@ -20,7 +20,7 @@ beforeAll(async () => {
 });
 afterAll(closeTestDb);
 
-// IMO vectors from /work/shared/SOURCES.md, "IMO ship identification number": 9074729, 7654329 and
+// IMO vectors from ../shared/SOURCES.md, "IMO ship identification number": 9074729, 7654329 and
 // 9241061 are valid; 9074728 is not. The fixture's own vessels use other, generated numbers.
 const corran = { name: "Corran Ness", imoNumber: "IMO 9074729", code: "cn", timeZone: "europe/oslo" };
 
