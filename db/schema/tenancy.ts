@@ -1,6 +1,6 @@
 // The tenant (company), who belongs to it with which role, and its vessels.
 import { sql } from "drizzle-orm";
-import { check, index, integer, pgEnum, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, index, integer, pgEnum, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 
 export const memberRole = pgEnum("member_role", ["admin", "superintendent", "chief-engineer", "engineer", "viewer"]);
@@ -9,6 +9,8 @@ export const company = pgTable("company", {
   id: uuid().primaryKey().defaultRandom(),
   name: text().notNull(),
   slug: text().notNull().unique(),
+  /** Whether a chief engineer may decide deferrals of work that is neither critical nor class-related. */
+  chiefDecidesDeferrals: boolean().notNull().default(true),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
 

@@ -16,7 +16,9 @@ export type Permission =
   | "readings:write"
   | "register:edit"
   | "company:manage"
-  | "work:approve";
+  | "work:approve"
+  | "work:plan"
+  | "deferral:decide";
 
 const GRANTS: Record<Permission, readonly Role[]> = {
   "vessel:read": ROLES,
@@ -24,6 +26,10 @@ const GRANTS: Record<Permission, readonly Role[]> = {
   "register:edit": ["chief-engineer", "admin"],
   "company:manage": ["admin"],
   "work:approve": ["chief-engineer"],
+  /** Port stays, work packages, planned dates, deferral requests. */
+  "work:plan": ["chief-engineer"],
+  /** Which deferrals each may decide is narrower: server/deferrals (critical and class → office). */
+  "deferral:decide": ["superintendent", "chief-engineer"],
 };
 
 export function can(role: Role, permission: Permission): boolean {
