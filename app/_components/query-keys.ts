@@ -14,6 +14,11 @@ export const queryKeys = {
   routineCopyTargets: (vesselId: string, routineId: string) =>
     ["vessel", vesselId, "routines", "copy-targets", routineId] as const,
   backlogAll: (vesselId: string) => ["vessel", vesselId, "backlog"] as const,
+  calendar: (vesselId: string, start: string, end: string) => ["vessel", vesselId, "calendar", start, end] as const,
+  calendarAll: (vesselId: string) => ["vessel", vesselId, "calendar"] as const,
+  portStays: (vesselId: string) => ["vessel", vesselId, "port-stays"] as const,
+  portStay: (vesselId: string, stayId: string) => ["vessel", vesselId, "port-stays", stayId] as const,
+  deferrals: (vesselId: string) => ["vessel", vesselId, "deferrals"] as const,
   adminVessels: () => ["admin", "vessels"] as const,
   adminPeople: () => ["admin", "people"] as const,
   adminToleranceRules: () => ["admin", "tolerance-rules"] as const,

@@ -3,6 +3,8 @@ import { SectionTabs } from "@/app/_components/section-tabs";
 const SECTIONS = [
   { slug: "hour-log", label: "Hour log" },
   { slug: "backlog", label: "Backlog" },
+  { slug: "calendar", label: "Calendar" },
+  { slug: "port-stays", label: "Port stays" },
   { slug: "routines", label: "Routines" },
   { slug: "register", label: "Machinery register" },
 ] as const;
