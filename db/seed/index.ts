@@ -6,6 +6,7 @@ import { hashPassword } from "better-auth/crypto";
 import { eq } from "drizzle-orm";
 import { closeDb, getDb, type Tx } from "../client";
 import * as s from "../schema";
+import { seedPortStays } from "./port-stays";
 import { instantOfShipTime } from "../../server/format/hours";
 import { recomputeVessel } from "../../server/scheduling/recompute";
 import { seedRoutines, seedTolerancePresets } from "./plan";
@@ -67,6 +68,7 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
 
       const totals = await seedReadings(tx, companyId, vesselId, v, counters, counterIds, now);
       await seedRoutines(tx, companyId, vesselId, v, componentIds, totals, now);
+      await seedPortStays(tx, companyId, vesselId, v, now);
     }
 
     const passwordHash = await hashPassword(DEMO_PASSWORD);
