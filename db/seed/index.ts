@@ -6,6 +6,7 @@ import { hashPassword } from "better-auth/crypto";
 import { eq } from "drizzle-orm";
 import { closeDb, getDb, type Tx } from "../client";
 import * as s from "../schema";
+import { seedHistory } from "./history";
 import { seedPortStays } from "./port-stays";
 import { instantOfShipTime } from "../../server/format/hours";
 import { recomputeVessel } from "../../server/scheduling/recompute";
@@ -72,8 +73,10 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
     }
 
     const passwordHash = await hashPassword(DEMO_PASSWORD);
+    const userIds = new Map<string, string>();
     for (const u of demoUsers) {
       const userId = randomUUID();
+      userIds.set(u.email, userId);
       await tx.insert(s.user).values({ id: userId, name: u.name, email: u.email, emailVerified: true, role: "user" });
       await tx.insert(s.account).values({
         id: randomUUID(),
@@ -86,6 +89,21 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
       for (const code of u.vessels) {
         await tx.insert(s.vesselAssignment).values({ companyId, userId, vesselId: vesselIds.get(code)! });
       }
+    }
+
+    // The completed work of the past year, recorded by each vessel's engineer and approved by its chief.
+    const engineerOf = (code: string) =>
+      demoUsers.find((u) => u.role === "engineer" && u.vessels.includes(code))?.email ?? "";
+    const chiefOf = (code: string) =>
+      demoUsers.find((u) => u.role === "chief-engineer" && u.vessels.includes(code))?.email ?? "";
+    for (const v of demoVessels) {
+      await seedHistory(
+        tx,
+        companyId,
+        { id: vesselIds.get(v.code)!, code: v.code, seed: v.seed },
+        { doneBy: userIds.get(engineerOf(v.code)) ?? null, decidedBy: userIds.get(chiefOf(v.code)) ?? null },
+        now,
+      );
     }
   });
   // What the worker would write after the readings: rates, work orders and their states.
@@ -153,16 +171,14 @@ async function seedReadings(
         totalHours: total,
       });
     }
-    await tx
-      .insert(s.counterSegment)
-      .values({
-        companyId,
-        counterId,
-        segment: 1,
-        startedAt: instantOfShipTime(format(firstDay, "yyyy-MM-dd"), "00:00", v.timeZone),
-        startMeter: c.start,
-        offsetHours: 0,
-      });
+    await tx.insert(s.counterSegment).values({
+      companyId,
+      counterId,
+      segment: 1,
+      startedAt: instantOfShipTime(format(firstDay, "yyyy-MM-dd"), "00:00", v.timeZone),
+      startMeter: c.start,
+      offsetHours: 0,
+    });
     if (segment === 2) await tx.update(s.counter).set({ currentSegment: 2 }).where(eq(s.counter.id, counterId));
     totals.set(c.key, { total, hoursPerDay: (total - c.start) / DAYS });
   }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { planWorkOrder, type PlannedRoutine } from "./plan-work-order";
+import { planCorrective, planWorkOrder, type PlannedRoutine } from "./plan-work-order";
 import { presetToleranceRules } from "./presets";
 
 const rules = presetToleranceRules();
@@ -95,5 +95,107 @@ describe("planWorkOrder", () => {
     expect(plan.calendarWindow!.graceEndsAt.toISOString().slice(0, 10)).toBe("2026-07-15");
     // 15 June is after the anniversary, inside the grace: late.
     expect(plan.state).toBe("late");
+  });
+});
+
+// Worked by hand, UTC vessel, the presets (hours: window 10 % capped at 500 h, grace 5 %;
+// annual: 3 months either side).
+describe("plan range", () => {
+  it("dates an hours window by the running rate: 13,800–14,100 h from 13,200 h at 20 h/day", () => {
+    const plan = planWorkOrder({
+      routine: routine({ intervalHours: 2000 }),
+      rules,
+      last: { at: new Date("2026-01-01T00:00:00Z"), counterHours: 12000, previousCalendarDue: null },
+      counter: { totalHours: 13200, readAt: now, hoursPerDay: 20 },
+      now,
+      timeZone: "UTC",
+    });
+    // 600 h to the window at 20 h/day = 30 days → 15 July; 900 h to the grace end = 45 days → 30 July.
+    expect(plan.planFrom).toBe("2026-07-15");
+    expect(plan.planUntil).toBe("2026-07-30");
+    expect(plan.outOfToleranceAt?.toISOString()).toBe("2026-07-30T04:00:00.000Z");
+  });
+
+  it("takes the earlier window and the earlier grace end when both limits apply", () => {
+    const plan = planWorkOrder({
+      routine: routine({ intervalHours: 2000, calendarRule: "FREQ=MONTHLY" }),
+      rules,
+      last: { at: new Date("2026-06-01T04:00:00Z"), counterHours: 13000, previousCalendarDue: null },
+      counter: { totalHours: 13200, readAt: now, hoursPerDay: 20 },
+      now,
+      timeZone: "UTC",
+    });
+    // Calendar due 1 July; hours due 15,000 h ≈ 15 Sep: the calendar window and grace come first.
+    expect(plan.planFrom! <= "2026-07-01").toBe(true);
+    expect(plan.planUntil).toBe(plan.calendarWindow && plan.calendarWindow.graceEndsAt.toISOString().slice(0, 10));
+  });
+});
+
+describe("deferred work orders: the tolerance rules apply to the new limit", () => {
+  const annual = {
+    routine: routine({ calendarRule: "FREQ=YEARLY" }),
+    rules,
+    // Done 1 June 2025: due 1 June 2026, late on 15 June 2026 without the deferral.
+    last: { at: new Date("2025-06-01T04:00:00Z"), counterHours: 0, previousCalendarDue: null },
+    counter: null,
+    timeZone: "UTC",
+    deferral: { dueDate: new Date("2026-09-30T12:00:00Z"), dueHours: null },
+  };
+
+  it("a calendar deferral to 30 Sep: deferred now, late in October, out of tolerance after 30 Dec", () => {
+    expect(planWorkOrder({ ...annual, deferral: null, now }).state).toBe("late");
+    const plan = planWorkOrder({ ...annual, now });
+    expect(plan.state).toBe("deferred");
+    // 3 months before 30 Sep is 30 Jun, so the window opens on 1 Jul; the grace ends 30 Dec.
+    expect(plan.planFrom).toBe("2026-07-01");
+    expect(plan.planUntil).toBe("2026-12-30");
+    // 15 Jun → 30 Sep: 15 + 31 + 31 + 30 = 107 days.
+    expect(plan.remainingDays).toBe(107);
+    expect(plan.calendarDue?.toISOString().slice(0, 10)).toBe("2026-06-01"); // the computed due stays
+    expect(planWorkOrder({ ...annual, now: new Date("2026-10-05T04:00:00Z") }).state).toBe("late");
+    expect(planWorkOrder({ ...annual, now: new Date("2026-12-31T04:00:00Z") }).state).toBe("out-of-tolerance");
+  });
+
+  it("an hours deferral from 14,000 h to 14,600 h: window 14,400 h, grace to 14,700 h", () => {
+    const base = {
+      routine: routine({ intervalHours: 2000 }),
+      rules,
+      last: { at: new Date("2026-01-01T00:00:00Z"), counterHours: 12000, previousCalendarDue: null },
+      now,
+      timeZone: "UTC",
+      deferral: { dueDate: null, dueHours: 14600 },
+    };
+    const at = (totalHours: number) => ({ totalHours, readAt: now, hoursPerDay: 20 });
+    const plan = planWorkOrder({ ...base, counter: at(14050) });
+    expect(plan.state).toBe("deferred");
+    expect(plan.hoursWindow).toEqual({ opensAtHours: 14400, dueHours: 14600, graceEndsHours: 14700 });
+    expect(plan.remainingHours).toBe(550);
+    // 350 h to 14,400 h at 20 h/day = 17.5 days → 2 Jul 16:00; 650 h = 32.5 days → 17 Jul 16:00.
+    expect(plan.planFrom).toBe("2026-07-02");
+    expect(plan.planUntil).toBe("2026-07-17");
+    expect(planWorkOrder({ ...base, counter: at(14650) }).state).toBe("late");
+    expect(planWorkOrder({ ...base, counter: at(14700.1) }).state).toBe("out-of-tolerance");
+  });
+});
+
+describe("corrective follow-ups", () => {
+  const raised = {
+    dueDate: new Date("2026-06-17T08:00:00Z"),
+    raisedAt: new Date("2026-06-10T08:00:00Z"),
+    timeZone: "UTC",
+  };
+  it("open from the day raised, late for a week past the due day, then out of tolerance", () => {
+    const plan = planCorrective({ ...raised, now });
+    expect(plan.state).toBe("window-open");
+    expect(plan.planFrom).toBe("2026-06-10");
+    expect(plan.planUntil).toBe("2026-06-24"); // 17 June + CORRECTIVE_GRACE_DAYS (7)
+    expect(plan.remainingDays).toBe(2);
+    expect(planCorrective({ ...raised, now: new Date("2026-06-20T00:00:00Z") }).state).toBe("late");
+    expect(planCorrective({ ...raised, now: new Date("2026-06-25T00:00:00Z") }).state).toBe("out-of-tolerance");
+  });
+  it("a deferral's date takes the due day's place", () => {
+    const deferral = { dueDate: new Date("2026-07-10T12:00:00Z"), dueHours: null };
+    expect(planCorrective({ ...raised, deferral, now: new Date("2026-06-20T00:00:00Z") }).state).toBe("deferred");
+    expect(planCorrective({ ...raised, deferral, now: new Date("2026-07-12T00:00:00Z") }).state).toBe("late");
   });
 });

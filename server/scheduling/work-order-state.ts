@@ -38,7 +38,8 @@ export type WorkOrderStateInput = {
   hours?: HoursWindow | null;
   /**
    * An approved deferral is in force. Pass the windows of the deferred-to due point: the work
-   * order shows `deferred` until those are exceeded too, and then `out-of-tolerance` so that
+   * order shows `deferred` until that new due point passes; then the tolerance rules apply to
+   * it as to any limit — `late` inside its grace, `out-of-tolerance` past it, so that
    * escalation still fires.
    */
   deferred?: boolean;
@@ -53,7 +54,7 @@ export function workOrderState(input: WorkOrderStateInput): ToleranceState | "de
   if (input.calendar) states.push(calendarState(input.now, input.calendar));
   if (input.hours && input.currentHours !== null) states.push(hoursState(input.currentHours, input.hours));
   const state = states.reduce<ToleranceState>((a, b) => (toleranceRank(b) > toleranceRank(a) ? b : a), "scheduled");
-  if (input.deferred && state !== "out-of-tolerance") return "deferred";
+  if (input.deferred && toleranceRank(state) <= toleranceRank("window-open")) return "deferred";
   return state;
 }
 

@@ -2,12 +2,18 @@
 // transaction). A routine's open work order is its next occurrence; the unique index on
 // (routine, occurrence) makes a second writer's insert a no-op, never a duplicate.
 import "server-only";
-import { and, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
+import { and, desc, eq, inArray, isNotNull, isNull, ne, sql } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { completion, component, routine, toleranceRule, vessel, workOrder, workOrderStateChange } from "@/db/schema";
 import { resolveCounters } from "@/server/register/tree";
 import { round1 } from "@/server/readings/rules";
-import { type LastCompletion, planWorkOrder, type WorkOrderPlan } from "./plan-work-order";
+import {
+  type DeferredLimit,
+  type LastCompletion,
+  planCorrective,
+  planWorkOrder,
+  type WorkOrderPlan,
+} from "./plan-work-order";
 import { toleranceRuleFromRow } from "@/server/tolerance/rows";
 import { presetToleranceRules } from "./presets";
 import type { ToleranceRule } from "./tolerance";
@@ -52,8 +58,9 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
     .select()
     .from(routine)
     .where(and(eq(routine.companyId, companyId), eq(routine.vesselId, vesselId), isNull(routine.retiredAt)));
-  if (routines.length === 0) return summary;
-  const routineIds = routines.map((r) => r.id);
+
+  // A sentinel id keeps the two lookups valid SQL on a vessel with no routine (only follow-ups).
+  const routineIds = routines.length ? routines.map((r) => r.id) : ["00000000-0000-0000-0000-000000000000"];
 
   const open = await tx
     .select()
@@ -96,6 +103,7 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
           previousCalendarDue: done.calendarDue,
         }
       : null;
+    const existing = openByRoutine.get(r.id);
     let plan: WorkOrderPlan;
     try {
       plan = planWorkOrder({
@@ -117,6 +125,7 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
         counter: counterNow,
         now,
         timeZone: ctx.vessel.timeZone,
+        deferral: existing ? deferralOf(existing) : null,
       });
     } catch (error) {
       summary.skipped.push({ routineId: r.id, reason: error instanceof Error ? error.message : String(error) });
@@ -137,15 +146,16 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
       graceEndsHours: plan.hoursWindow?.graceEndsHours ?? null,
       remainingHours: plan.remainingHours,
       remainingDays: plan.remainingDays === null ? null : round1(plan.remainingDays),
+      planFrom: plan.planFrom,
+      planUntil: plan.planUntil,
+      outOfToleranceAt: plan.outOfToleranceAt,
       rank: r.rank,
       estimatedManHours: r.estimatedManHours,
       needsEngineStop: r.needsEngineStop,
       critical: r.critical,
       classRelated: r.classRelated,
     };
-    const existing = openByRoutine.get(r.id);
-    // A deferral in force keeps its state until the worker's deferral rules (a later issue) move it.
-    const state = existing?.state === "deferred" ? "deferred" : plan.state;
+    const state = plan.state;
     if (existing) {
       const stateChanged = existing.state !== state;
       if (stateChanged || changed(existing, fields)) {
@@ -165,6 +175,28 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
       state,
       ...fields,
     });
+  }
+
+  for (const w of await openCorrective(tx, companyId, vesselId)) {
+    const plan = planCorrective({
+      dueDate: w.dueDate!,
+      raisedAt: w.createdAt,
+      deferral: deferralOf(w),
+      now,
+      timeZone: ctx.vessel.timeZone,
+    });
+    const fields: WorkOrderFields = {
+      ...pickFields(w),
+      windowOpensAt: plan.calendarWindow?.opensAt ?? null,
+      graceEndsAt: plan.calendarWindow?.graceEndsAt ?? null,
+      remainingDays: plan.remainingDays,
+      planFrom: plan.planFrom,
+      planUntil: plan.planUntil,
+      outOfToleranceAt: plan.outOfToleranceAt,
+    };
+    const stateChanged = w.state !== plan.state;
+    if (stateChanged || changed(w, fields)) updates.push({ id: w.id, state: plan.state, stateChanged, ...fields });
+    if (stateChanged) stateChanges.push({ workOrderId: w.id, fromState: w.state, toState: plan.state });
   }
 
   // Written in a few statements rather than one per work order: a vessel of 3,000 routines made
@@ -188,6 +220,34 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
 
 // Each statement binds one array per column, so any number of rows fits its parameters; chunks
 // only keep one statement's arrays and its returned rows modest on a very large vessel.
+type WorkOrderRow = typeof workOrder.$inferSelect;
+
+function deferralOf(w: WorkOrderRow): DeferredLimit | null {
+  if (w.deferredDueDate === null && w.deferredDueHours === null) return null;
+  return { dueDate: w.deferredDueDate, dueHours: w.deferredDueHours };
+}
+
+/** Open corrective work orders (follow-ups with a due date): their state moves with the calendar. */
+function openCorrective(tx: Tx, companyId: string, vesselId: string) {
+  return tx
+    .select()
+    .from(workOrder)
+    .where(
+      and(
+        eq(workOrder.companyId, companyId),
+        eq(workOrder.vesselId, vesselId),
+        eq(workOrder.kind, "corrective"),
+        isNull(workOrder.routineId),
+        ne(workOrder.state, "done"),
+        isNotNull(workOrder.dueDate),
+      ),
+    );
+}
+
+function pickFields(w: WorkOrderRow): WorkOrderFields {
+  return Object.fromEntries(FIELD_KEYS.map((k) => [k, w[k]])) as WorkOrderFields;
+}
+
 const INSERT_CHUNK = 2_000;
 const UPDATE_CHUNK = 2_000;
 const STATE_CHANGE_CHUNK = 5_000;
@@ -211,6 +271,9 @@ type WorkOrderFields = {
   graceEndsHours: number | null;
   remainingHours: number | null;
   remainingDays: number | null;
+  planFrom: string | null;
+  planUntil: string | null;
+  outOfToleranceAt: Date | null;
   rank: string;
   estimatedManHours: number;
   needsEngineStop: boolean;
@@ -234,13 +297,40 @@ function fieldArrays(rows: WorkOrderFields[]) {
     ${column("calendarDue")}::timestamptz[], ${column("governing")}::interval_kind[],
     ${column("windowOpensAt")}::timestamptz[], ${column("graceEndsAt")}::timestamptz[],
     ${column("windowOpensHours")}::numeric[], ${column("graceEndsHours")}::numeric[],
-    ${column("remainingHours")}::numeric[], ${column("remainingDays")}::numeric[], ${column("rank")}::text[],
+    ${column("remainingHours")}::numeric[], ${column("remainingDays")}::numeric[],
+    ${column("planFrom")}::date[], ${column("planUntil")}::date[], ${column("outOfToleranceAt")}::timestamptz[],
+    ${column("rank")}::text[],
     ${column("estimatedManHours")}::numeric[], ${column("needsEngineStop")}::boolean[],
     ${column("critical")}::boolean[], ${column("classRelated")}::boolean[]`;
 }
 const FIELD_COLUMNS = sql.raw(`component_id, counter_id, title, due_date, due_hours, projected_date, calendar_due,
   governing, window_opens_at, grace_ends_at, window_opens_hours, grace_ends_hours, remaining_hours,
-  remaining_days, rank, estimated_man_hours, needs_engine_stop, critical, class_related`);
+  remaining_days, plan_from, plan_until, out_of_tolerance_at, rank, estimated_man_hours, needs_engine_stop,
+  critical, class_related`);
+const FIELD_KEYS = [
+  "componentId",
+  "counterId",
+  "title",
+  "dueDate",
+  "dueHours",
+  "projectedDate",
+  "calendarDue",
+  "governing",
+  "windowOpensAt",
+  "graceEndsAt",
+  "windowOpensHours",
+  "graceEndsHours",
+  "remainingHours",
+  "remainingDays",
+  "planFrom",
+  "planUntil",
+  "outOfToleranceAt",
+  "rank",
+  "estimatedManHours",
+  "needsEngineStop",
+  "critical",
+  "classRelated",
+] as const satisfies readonly (keyof WorkOrderFields)[];
 
 /**
  * One INSERT … SELECT FROM unnest(…) for many new work orders: a multi-row VALUES of 1,000 rows
@@ -275,7 +365,8 @@ async function updateWorkOrders(tx: Tx, rows: WorkOrderUpdate[], now: Date) {
     update work_order as w set
       (${FIELD_COLUMNS}) = (select v.component_id, v.counter_id, v.title, v.due_date, v.due_hours,
         v.projected_date, v.calendar_due, v.governing, v.window_opens_at, v.grace_ends_at,
-        v.window_opens_hours, v.grace_ends_hours, v.remaining_hours, v.remaining_days, v.rank,
+        v.window_opens_hours, v.grace_ends_hours, v.remaining_hours, v.remaining_days, v.plan_from,
+        v.plan_until, v.out_of_tolerance_at, v.rank,
         v.estimated_man_hours, v.needs_engine_stop, v.critical, v.class_related),
       state = v.state, computed_at = ${now}::timestamptz,
       state_changed_at = case when v.state_changed then ${now}::timestamptz else w.state_changed_at end
