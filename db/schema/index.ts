@@ -3,3 +3,5 @@ export * from "./machinery";
 export * from "./readings";
 export * from "./tenancy";
 export * from "./maintenance";
+export * from "./mail";
+export * from "./fleet";

@@ -11,6 +11,11 @@ export const company = pgTable("company", {
   slug: text().notNull().unique(),
   /** Whether a chief engineer may decide deferrals of work that is neither critical nor class-related. */
   chiefDecidesDeferrals: boolean().notNull().default(true),
+  /** The vessel-local hour (0–23) of the daily due digest. */
+  digestHour: integer().notNull().default(6),
+  /** Hours without a reading before the first missing-readings reminder, and between its steps. */
+  missingReadingsHours: integer().notNull().default(36),
+  missingReadingsStepHours: integer().notNull().default(24),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -25,6 +30,8 @@ export const membership = pgTable(
       .references(() => user.id, { onDelete: "cascade" }),
     role: memberRole().notNull(),
     rank: text(),
+    /** Set when an administrator invited the user by e-mail; cleared when they set a password. */
+    invitedAt: timestamp({ withTimezone: true }),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [unique().on(t.companyId, t.userId), index().on(t.userId)],
