@@ -31,7 +31,6 @@ export const CAUTIONS = [
 export const CALENDAR_UNITS = ["day", "week", "month", "year"] as const;
 export const WEEKDAYS = ["MO", "TU", "WE", "TH", "FR", "SA", "SU"] as const;
 
-
 /** A number typed with at most one decimal; an empty field is no value. */
 function tenths(what: string, { min, above }: { min?: number; above?: number }) {
   const limit = above !== undefined ? `above ${above}` : `of ${min ?? 0} or more`;
@@ -274,10 +273,33 @@ export type RoutineView = Omit<NewRoutine, "baselineAt"> & {
   updatedAt: string;
 };
 
+/**
+ * A row of the Routines list: only what the table shows. The whole definition (checklist,
+ * measurements, cautions, baseline…) is fetched one routine at a time when it is opened.
+ */
+export type RoutineSummary = Pick<
+  RoutineView,
+  | "id"
+  | "title"
+  | "component"
+  | "intervalWords"
+  | "rank"
+  | "estimatedManHours"
+  | "critical"
+  | "classRelated"
+  | "classItemRef"
+  | "needsEngineStop"
+> & {
+  /** The fixed anniversary of an anchored routine, else null. */
+  anchoredOn: string | null;
+};
+
 export type RoutineList = {
   vessel: { id: string; name: string; code: string };
   canEdit: boolean;
-  routines: RoutineView[];
+  routines: RoutineSummary[];
+  /** Routines matching the filter; more than `routines` holds when the list was cut at its limit. */
+  total: number;
   components: { id: string; code: string; name: string }[];
   toleranceRules: { id: string; name: string; kind: "hours" | "calendar" }[];
 };

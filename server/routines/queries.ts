@@ -14,6 +14,7 @@ import {
   type RoutineChange,
   RoutineInput,
   type RoutineList,
+  type RoutineSummary,
   type RoutineView,
 } from "./contract";
 import { intervalWords } from "./interval-words";
@@ -79,12 +80,12 @@ function componentFilter(scope: Scope, componentId: string): SQL {
     ) select id from sub)`;
 }
 
-/** The vessel's routines in use (the component's subtree with `component`), by component code. */
+/** The vessel's routines in use (the component's subtree with `component`), by component code, as list rows. */
 export async function listRoutines(
   access: Access,
   vessel: VesselRef,
   filter: { component?: string; q?: string },
-): Promise<RoutineList & { total: number }> {
+): Promise<RoutineList> {
   const db = getDb();
   const scope = { access, vessel };
   const where: SQL[] = [routineScope(scope)!];
@@ -93,15 +94,25 @@ export async function listRoutines(
     const like = `%${filter.q.replace(/[%_\\]/g, (ch) => `\\${ch}`)}%`;
     where.push(or(ilike(routine.title, like), ilike(component.code, like), ilike(component.name, like))!);
   }
+  // Only the columns the table shows: checklists, measurements and texts stay in the database.
   const rows = await db
     .select({
-      r: routine,
-      c: { id: component.id, code: component.code, name: component.name },
-      rule: toleranceRule.name,
+      id: routine.id,
+      title: routine.title,
+      component: { id: component.id, code: component.code, name: component.name },
+      intervalHours: routine.intervalHours,
+      calendarRule: routine.calendarRule,
+      anchored: routine.anchored,
+      anchorDate: routine.anchorDate,
+      rank: routine.rank,
+      estimatedManHours: routine.estimatedManHours,
+      critical: routine.critical,
+      classRelated: routine.classRelated,
+      classItemRef: routine.classItemRef,
+      needsEngineStop: routine.needsEngineStop,
     })
     .from(routine)
     .innerJoin(component, eq(component.id, routine.componentId))
-    .leftJoin(toleranceRule, eq(toleranceRule.id, routine.toleranceRuleId))
     .where(and(...where))
     .orderBy(asc(component.code), asc(routine.title))
     .limit(LIST_LIMIT);
@@ -123,7 +134,12 @@ export async function listRoutines(
   return {
     vessel: { id: vessel.id, name: vessel.name, code: vessel.code },
     canEdit: can(access.role, "register:edit"),
-    routines: rows.map(({ r, c, rule }) => toView(r, c, rule, vessel.timeZone)),
+    routines: rows.map(({ intervalHours, calendarRule, anchored, anchorDate, rank, ...shown }): RoutineSummary => ({
+      ...shown,
+      rank: rank as Rank,
+      intervalWords: intervalWords(intervalHours, calendarRule),
+      anchoredOn: anchored ? anchorDate : null,
+    })),
     total: total?.n ?? 0,
     components,
     toleranceRules: rules,

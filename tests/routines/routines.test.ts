@@ -222,6 +222,70 @@ describe("routines become work orders through the worker", () => {
     expect(byCyl.body.routines.map((r) => r.title)).toEqual(["Fuel valve test"]);
   });
 
+  it("lists only what the table shows; the whole definition comes with the routine itself", async () => {
+    const list = await api<RoutineList>(sessions.viewer, "GET", path(one, `?q=crankcase`));
+    const [row] = list.body.routines;
+    expect(Object.keys(row ?? {}).sort()).toEqual(
+      [
+        "id",
+        "title",
+        "component",
+        "intervalWords",
+        "anchoredOn",
+        "rank",
+        "estimatedManHours",
+        "critical",
+        "classRelated",
+        "classItemRef",
+        "needsEngineStop",
+      ].sort(),
+    );
+    expect(row).toMatchObject({
+      id: created.id,
+      component: { id: reg.me.id, code: "ME" },
+      rank: "second-engineer",
+      estimatedManHours: 6,
+      critical: true,
+      needsEngineStop: true,
+      classRelated: false,
+      anchoredOn: null,
+    });
+    expect(list.body.total).toBe(1);
+    const full = await api<RoutineView>(sessions.viewer, "GET", path(one, `/${created.id}`));
+    expect(full.status).toBe(200);
+    expect(full.body).toMatchObject({
+      checklist: valid(reg.me.id).checklist,
+      measurements: valid(reg.me.id).measurements,
+      cautions: ["isolation", "enclosed-space", "turning-gear"],
+      baselineAt: "2026-01-01",
+      baselineHours: 900,
+    });
+  });
+
+  it("an anchored routine's list row carries its anniversary", async () => {
+    const res = await api<RoutineView>(chief(), "POST", path(one), {
+      ...valid(reg.ae1.id, "Generator annual survey"),
+      intervalHours: null,
+      baselineHours: null,
+      calendar: { every: 12, unit: "month" },
+      anchored: true,
+      anchorDate: "2026-05-15",
+      classRelated: true,
+      classItemRef: "AE-1",
+    });
+    expect(res.status).toBe(201);
+    const list = await api<RoutineList>(sessions.viewer, "GET", path(one, `?q=${encodeURIComponent("annual survey")}`));
+    expect(list.body.routines).toMatchObject([
+      {
+        title: "Generator annual survey",
+        intervalWords: "every 12 months",
+        anchoredOn: "2026-05-15",
+        classItemRef: "AE-1",
+      },
+    ]);
+    expect((await api(chief(), "DELETE", path(one, `/${res.body.id}`))).status).toBe(200);
+  });
+
   it("an edit bumps the revision and moves the work order's due point", async () => {
     const res = await api<RoutineView>(chief(), "PATCH", path(one, `/${created.id}`), {
       intervalHours: 300,

@@ -13,7 +13,7 @@ import {
   type ToleranceRuleValues,
   UNITS_FOR_KIND,
 } from "@/server/tolerance/contract";
-import { previewWords } from "./tolerance-words";
+import { matchesWords, previewWords } from "./tolerance-words";
 import { useSaveToleranceRule } from "./use-tolerance-rules";
 
 const FIELDS = [
@@ -237,6 +237,10 @@ export function ToleranceRuleForm({ rule, kind, onDone }: Props) {
       <div className="rounded-md bg-ink-50 px-3 py-2 text-ink-700 dark:bg-ink-850 dark:text-ink-200" aria-live="polite">
         <p className="text-xs font-semibold tracking-wide text-ink-500 uppercase dark:text-ink-400">In plain words</p>
         <p>{previewWords(values)}</p>
+        {Number.isFinite(values.minInterval) && Number.isFinite(values.maxInterval) && (
+          // The range in words too: a calendar range is typed in days but thought of in months.
+          <p className="mt-1 text-xs text-ink-500 dark:text-ink-400">Applies to {matchesWords(values)}.</p>
+        )}
       </div>
       <FormActions submitLabel={rule ? "Save rule" : "Add rule"} busy={isSubmitting} problem={problem} />
     </form>

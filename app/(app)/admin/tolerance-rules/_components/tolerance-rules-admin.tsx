@@ -207,7 +207,7 @@ function RuleTable({ ruleKind, rules, onAdd, onEdit, onDelete }: RuleTableProps)
                 <td className={TD}>{spanWords(rule.windowBefore)}</td>
                 <td className={TD}>{spanWords(rule.graceAfter)}</td>
                 {hours && (
-                  <td className={`${TD} text-right tabular-nums`}>
+                  <td className={`${TD} text-right whitespace-nowrap tabular-nums`}>
                     {rule.capHours === null ? "none" : `${rule.capHours.toLocaleString("en-GB")} h`}
                   </td>
                 )}

@@ -4,10 +4,11 @@ import { useState } from "react";
 import { FormActions } from "@/app/_components/forms/form-actions";
 import { problemSentence } from "@/app/_components/forms/form-problem";
 import { LoadProblem } from "@/app/_components/notice";
-import type { CopyTarget, RoutineView } from "@/server/routines/contract";
+import { SearchField } from "@/app/_components/search-field";
+import type { CopyTarget, RoutineSummary } from "@/server/routines/contract";
 import { useCopyRoutine, useCopyTargets } from "./use-routines";
 
-type Props = { vesselId: string; routine: RoutineView; onDone: (message: string) => void; onCancel: () => void };
+type Props = { vesselId: string; routine: RoutineSummary; onDone: (message: string) => void; onCancel: () => void };
 
 /** Targets by vessel: this vessel's components first, then sister ships' components with the same code. */
 function byVessel(targets: CopyTarget[], vesselId: string): [string, CopyTarget[]][] {
@@ -22,10 +23,17 @@ export function CopyRoutine({ vesselId, routine, onDone, onCancel }: Props) {
   const targets = useCopyTargets(vesselId, routine.id);
   const copy = useCopyRoutine(vesselId);
   const [chosen, setChosen] = useState<Set<string>>(new Set());
+  // A register runs to hundreds of components: the list narrows as one types a code or a name.
+  const [find, setFind] = useState("");
   const [problem, setProblem] = useState<string | null>(null);
 
   if (targets.isPending) return <p aria-busy="true">Finding components to copy to…</p>;
   if (targets.error) return <LoadProblem what="components to copy to" error={targets.error} />;
+
+  const needle = find.trim().toLowerCase();
+  const shown = needle
+    ? targets.data.filter((t) => `${t.code} ${t.name}`.toLowerCase().includes(needle))
+    : targets.data;
 
   const toggle = (id: string) =>
     setChosen((current) => {
@@ -58,8 +66,24 @@ export function CopyRoutine({ vesselId, routine, onDone, onCancel }: Props) {
         sister ships. Each copy keeps this routine’s interval, checklist, limits and baseline; its work orders are its
         own.
       </p>
-      {targets.data.length === 0 && <p>There is no other component to copy to.</p>}
-      {byVessel(targets.data, vesselId).map(([vesselName, list]) => (
+      {targets.data.length === 0 ? (
+        <p>There is no other component to copy to.</p>
+      ) : (
+        // Enter in the search box narrows the list; it must not send the copy.
+        <div
+          className="flex flex-wrap items-center gap-3"
+          onKeyDown={(event) => {
+            if (event.key === "Enter") event.preventDefault();
+          }}
+        >
+          <SearchField label="Find a component" placeholder="Code or name" value={find} onChange={setFind} />
+          <p className="text-xs text-ink-500 dark:text-ink-400" aria-live="polite">
+            {chosen.size === 0 ? "None chosen yet" : `${chosen.size} chosen`}
+          </p>
+        </div>
+      )}
+      {targets.data.length > 0 && shown.length === 0 && <p>No component matches “{find.trim()}”.</p>}
+      {byVessel(shown, vesselId).map(([vesselName, list]) => (
         <fieldset key={vesselName} className="grid gap-1">
           <legend className="label">{vesselName}</legend>
           {list.map((t) => (

@@ -3,10 +3,10 @@
 import { useState } from "react";
 import { FormActions } from "@/app/_components/forms/form-actions";
 import { problemSentence } from "@/app/_components/forms/form-problem";
-import type { RoutineView } from "@/server/routines/contract";
+import type { RoutineSummary } from "@/server/routines/contract";
 import { useRetireRoutine } from "./use-routines";
 
-type Props = { vesselId: string; routine: RoutineView; onDone: (message: string) => void; onCancel: () => void };
+type Props = { vesselId: string; routine: RoutineSummary; onDone: (message: string) => void; onCancel: () => void };
 
 export function RetireRoutine({ vesselId, routine, onDone, onCancel }: Props) {
   const retire = useRetireRoutine(vesselId);

@@ -57,8 +57,10 @@ export function RoutinesTable({ list, onAction }: Props) {
               <td className="px-3 py-1.5 font-medium text-ink-900 dark:text-ink-50">{r.title}</td>
               <td className="px-3 py-1.5">
                 {r.intervalWords}
-                {r.anchored && r.anchorDate && (
-                  <span className="block text-xs text-ink-500 dark:text-ink-400">anchored on {r.anchorDate}</span>
+                {r.anchoredOn && (
+                  <span className="block text-xs whitespace-nowrap text-ink-500 dark:text-ink-400">
+                    anchored on {r.anchoredOn}
+                  </span>
                 )}
               </td>
               <td className="px-3 py-1.5 whitespace-nowrap">{rankLabel(r.rank)}</td>

@@ -4,7 +4,7 @@ import { useDeferredValue, useState } from "react";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
 import { SearchField } from "@/app/_components/search-field";
-import type { RoutineList, RoutineView } from "@/server/routines/contract";
+import type { RoutineList, RoutineSummary } from "@/server/routines/contract";
 import { CopyRoutine } from "./copy-routine";
 import { RetireRoutine } from "./retire-routine";
 import { RoutineEditor } from "./routine-editor";
@@ -12,7 +12,7 @@ import { RoutinesTable } from "./routines-table";
 import { useRoutines } from "./use-routines";
 
 /** Which panel is open beside the list, and on which routine. */
-export type Sheet = { kind: "add" } | { kind: "edit" | "copy" | "retire"; routine: RoutineView };
+export type Sheet = { kind: "add" } | { kind: "edit" | "copy" | "retire"; routine: RoutineSummary };
 
 export function RoutinesView({ vesselId }: { vesselId: string }) {
   const [component, setComponent] = useState("");
@@ -73,7 +73,7 @@ export function RoutinesView({ vesselId }: { vesselId: string }) {
   );
 }
 
-function countWords(list: RoutineList & { total: number }): string {
+function countWords(list: RoutineList): string {
   const shown = list.routines.length;
   if (list.total > shown)
     return `Showing the first ${shown} of ${list.total} routines: narrow the filter to see the rest.`;

@@ -12,18 +12,17 @@ import type {
   RoutineView,
 } from "@/server/routines/contract";
 
-type Listed = RoutineList & { total: number };
-
 export function useRoutines(vesselId: string, component: string, q: string) {
   const search = new URLSearchParams({ ...(component ? { component } : {}), ...(q ? { q } : {}) }).toString();
   return useQuery({
     queryKey: queryKeys.routineList(vesselId, component, q),
-    queryFn: () => fetchJson<Listed>(`/api/vessels/${vesselId}/routines${search ? `?${search}` : ""}`),
+    queryFn: () => fetchJson<RoutineList>(`/api/vessels/${vesselId}/routines${search ? `?${search}` : ""}`),
     // Typing in the filter keeps the last rows on screen instead of flashing an empty table.
     placeholderData: keepPreviousData,
   });
 }
 
+/** One routine's whole definition, loaded when it is opened for editing. */
 export function useRoutine(vesselId: string, routineId: string) {
   return useQuery({
     queryKey: queryKeys.routine(vesselId, routineId),
