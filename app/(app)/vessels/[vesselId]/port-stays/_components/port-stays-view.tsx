@@ -1,0 +1,157 @@
+"use client";
+
+import Link from "next/link";
+import { useState } from "react";
+import { SidePanel } from "@/app/_components/forms/side-panel";
+import { LoadProblem, Notice } from "@/app/_components/notice";
+import type { PortStayView } from "@/server/port-stays/contract";
+import { StayForm } from "./stay-form";
+import { immobilisationWords, stayPeriod } from "./stay-words";
+import { usePortStays } from "./use-port-stays";
+
+type Props = { vesselId: string; timeZone: string };
+
+export function PortStaysView({ vesselId, timeZone }: Props) {
+  const { data, error, isPending } = usePortStays(vesselId);
+  const [adding, setAdding] = useState(false);
+  const [notice, setNotice] = useState<string | null>(null);
+
+  if (isPending) return <div className="h-64 animate-pulse panel" aria-busy="true" aria-label="Loading the port stays" />;
+  if (error) return <LoadProblem what="port stays" error={error} />;
+
+  return (
+    <div className="grid gap-6">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1 className="text-xl font-bold">Port stays</h1>
+          <p className="text-ink-600 dark:text-ink-300">
+            Port calls with the crew’s hours for maintenance; plan each one’s work package. Times are ship’s time ({timeZone}).
+          </p>
+        </div>
+        {data.may.plan && (
+          <button type="button" className="btn-primary" onClick={() => setAdding(true)}>
+            Add port stay
+          </button>
+        )}
+      </div>
+      <Notice message={notice} />
+      <StayTable
+        vesselId={vesselId}
+        timeZone={timeZone}
+        title="Upcoming"
+        stays={data.upcoming}
+        empty={
+          data.may.plan
+            ? "No port stay is planned. Add the next port call to plan its work package."
+            : "No port stay is planned yet; the chief engineer adds them."
+        }
+      />
+      <StayTable
+        vesselId={vesselId}
+        timeZone={timeZone}
+        title="Past"
+        stays={data.past}
+        empty="No past port stays are recorded."
+      />
+      {adding && (
+        <SidePanel
+          title="Add a port stay"
+          subtitle="The crew table starts from the latest stay."
+          onClose={() => setAdding(false)}
+          wide
+        >
+          <StayForm
+            vesselId={vesselId}
+            timeZone={timeZone}
+            crew={data.latestCrew}
+            onDone={(message) => {
+              setAdding(false);
+              setNotice(message);
+            }}
+          />
+        </SidePanel>
+      )}
+    </div>
+  );
+}
+
+const TH = "px-3 py-2 font-semibold";
+const TD = "px-3 py-2 align-top";
+
+function StayTable({
+  vesselId,
+  timeZone,
+  title,
+  stays,
+  empty,
+}: {
+  vesselId: string;
+  timeZone: string;
+  title: string;
+  stays: PortStayView[];
+  empty: string;
+}) {
+  const id = `stays-${title.toLowerCase()}`;
+  return (
+    <section aria-labelledby={id}>
+      <h2 id={id} className="mb-2 text-base font-semibold">
+        {title}
+      </h2>
+      {stays.length === 0 ? (
+        <p className="panel p-4 text-ink-600 dark:text-ink-300">{empty}</p>
+      ) : (
+        <div className="overflow-x-auto panel">
+          <table className="w-full text-left text-sm">
+            <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
+              <tr className="border-b border-ink-200 dark:border-ink-800">
+                <th scope="col" className={`${TH} pl-4`}>
+                  Port
+                </th>
+                <th scope="col" className={TH}>
+                  Arrival – departure
+                </th>
+                <th scope="col" className={TH}>
+                  Main engine
+                </th>
+                <th scope="col" className={`${TH} pr-4`}>
+                  Work package
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {stays.map((s) => (
+                <tr key={s.id} className="border-b border-ink-100 last:border-0 dark:border-ink-850">
+                  <th scope="row" className={`${TD} pl-4`}>
+                    <Link
+                      href={`/vessels/${vesselId}/port-stays/${s.id}`}
+                      className="font-semibold text-tide-700 underline-offset-2 hover:underline dark:text-tide-300"
+                    >
+                      {s.port}
+                    </Link>
+                    {s.remarks && <span className="block font-normal text-ink-500 dark:text-ink-400">{s.remarks}</span>}
+                  </th>
+                  <td className={`${TD} whitespace-nowrap tabular-nums`}>
+                    {stayPeriod(s.arrivesAt, s.departsAt, timeZone)}
+                    <span className="block text-ink-500 dark:text-ink-400">
+                      {s.days.length} ship’s day{s.days.length === 1 ? "" : "s"}
+                    </span>
+                  </td>
+                  <td className={TD}>{immobilisationWords(s.engineMayStop, s.immobilisationHours)}</td>
+                  <td className={`${TD} pr-4`}>
+                    {s.packageAcceptedAt ? (
+                      <span className="font-medium text-go-700 dark:text-go-300">
+                        ✓ accepted, {s.itemCount} job{s.itemCount === 1 ? "" : "s"}
+                      </span>
+                    ) : (
+                      <span className="text-ink-600 dark:text-ink-300">not planned yet</span>
+                    )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </section>
+  );
+}

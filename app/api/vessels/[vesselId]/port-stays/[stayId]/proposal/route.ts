@@ -1,0 +1,7 @@
+import { proposePackage } from "@/server/port-stays/proposal";
+import { withAccess } from "@/server/http/with-access";
+
+/** A proposed work package for the stay, each item with its reason; nothing is written. */
+export const POST = withAccess({ permission: "work:plan", vessel: true }, ({ access, vessel, params }) =>
+  proposePackage(access, vessel, params.stayId ?? ""),
+);

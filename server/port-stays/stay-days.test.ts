@@ -1,0 +1,32 @@
+import { describe, expect, it } from "vitest";
+import { instantOfShipDateTime, shipDateTimeOf, stayDays } from "./stay-days";
+
+describe("a port stay's ship's days", () => {
+  it("counts the arrival's and the departure's day, across the end of summer time", () => {
+    // Europe/Amsterdam leaves summer time on Sunday 25 Oct 2026 (03:00 CEST → 02:00 CET, EU rule:
+    // last Sunday of October). 24 Oct 20:00 CEST = 18:00 UTC; 26 Oct 08:00 CET = 07:00 UTC.
+    const arrives = instantOfShipDateTime("2026-10-24T20:00", "Europe/Amsterdam");
+    const departs = instantOfShipDateTime("2026-10-26T08:00", "Europe/Amsterdam");
+    expect(arrives.toISOString()).toBe("2026-10-24T18:00:00.000Z");
+    expect(departs.toISOString()).toBe("2026-10-26T07:00:00.000Z");
+    expect(stayDays(arrives, departs, "Europe/Amsterdam")).toEqual(["2026-10-24", "2026-10-25", "2026-10-26"]);
+  });
+
+  it("gives two days to a stay over midnight and one to a stay inside a day", () => {
+    const z = "Asia/Singapore";
+    expect(stayDays(instantOfShipDateTime("2026-12-04T23:30", z), instantOfShipDateTime("2026-12-05T00:30", z), z)).toEqual([
+      "2026-12-04",
+      "2026-12-05",
+    ]);
+    expect(stayDays(instantOfShipDateTime("2026-12-04T06:00", z), instantOfShipDateTime("2026-12-04T22:00", z), z)).toEqual([
+      "2026-12-04",
+    ]);
+  });
+
+  it("names the days by the ship's zone, not UTC's", () => {
+    // Pacific/Auckland keeps NZDT (UTC+13) in December: 20:00 UTC on 3 Dec is 09:00 on 4 Dec aboard.
+    const instant = new Date("2026-12-03T20:00:00Z");
+    expect(shipDateTimeOf(instant, "Pacific/Auckland")).toBe("2026-12-04T09:00");
+    expect(stayDays(instant, new Date("2026-12-04T05:00:00Z"), "Pacific/Auckland")).toEqual(["2026-12-04"]);
+  });
+});
