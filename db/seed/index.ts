@@ -113,6 +113,7 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
     if (run.skipped.length)
       console.warn(`[keelson] ${v.code}: ${run.skipped.length} routines skipped`, run.skipped.slice(0, 3));
   }
+  await (await import("./deferrals")).seedDeferrals(db, co!.id, now);
   return "created";
 }
 

@@ -35,6 +35,8 @@ export const BacklogQuery = z.object({
   critical: flag,
   classRelated: flag,
   dueBefore: z.iso.date({ message: "dueBefore is a date, YYYY-MM-DD." }).optional(),
+  /** Only work orders with a deferral request awaiting a decision. */
+  deferral: z.enum(["pending"], { message: "deferral is pending (or left out)." }).optional(),
   q: z.string().trim().max(80, { message: "Search at most 80 characters." }).optional(),
   sort: z.enum(BACKLOG_SORTS, { message: `sort is one of ${BACKLOG_SORTS.join(", ")}.` }).default("urgency"),
   page: z.coerce.number({ message: "page is a number." }).int().min(1, { message: "page starts at 1." }).default(1),
@@ -76,6 +78,8 @@ export type BacklogItem = {
   computedAt: string;
   /** A completion is recorded and waits for the chief engineer's approval. */
   awaitingApproval: boolean;
+  /** A deferral request waits for the chief's or the superintendent's decision. */
+  pendingDeferral: boolean;
 };
 
 export type BacklogPage = {
@@ -85,6 +89,8 @@ export type BacklogPage = {
   total: number;
   page: number;
   pageSize: number;
+  /** Open work orders of the vessel with a deferral request awaiting a decision, under no filter. */
+  pendingDeferrals: number;
   /** When the worker last wrote these rows. */
   computedAt: string | null;
 };

@@ -1,13 +1,16 @@
 import "server-only";
 import { and, asc, eq, ilike, inArray, lte, or, type SQL, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { completion, component, workOrder } from "@/db/schema";
+import { completion, component, deferral, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { instantOfShipTime } from "@/server/format/hours";
 import { ALL_STATES, type BacklogFilter, type BacklogPage, type BacklogState } from "./contract";
 
 // A completion the chief has still to decide on: the Backlog marks the work order as waiting for him.
 const AWAITING_APPROVAL = sql<boolean>`exists (select 1 from ${completion} where ${completion.companyId} = ${workOrder.companyId} and ${completion.workOrderId} = ${workOrder.id} and ${completion.status} = 'awaiting-approval')`;
+
+// A deferral request nobody has decided yet (at most one per work order: a partial unique index).
+const PENDING_DEFERRAL = sql<boolean>`exists (select 1 from ${deferral} where ${deferral.companyId} = ${workOrder.companyId} and ${deferral.workOrderId} = ${workOrder.id} and ${deferral.status} = 'pending')`;
 
 // Most urgent first: out of tolerance, late, inside the window, deferred, scheduled, done.
 const URGENCY = sql`case ${workOrder.state} when 'out-of-tolerance' then 0 when 'late' then 1 when 'window-open' then 2 when 'deferred' then 3 when 'scheduled' then 4 else 5 end`;
@@ -27,6 +30,7 @@ function filters(access: Access, vessel: VesselRef, f: BacklogFilter): SQL[] {
   if (f.critical !== undefined) where.push(eq(workOrder.critical, f.critical));
   if (f.classRelated !== undefined) where.push(eq(workOrder.classRelated, f.classRelated));
   if (f.dueBefore) where.push(lte(workOrder.dueDate, instantOfShipTime(f.dueBefore, "23:59", vessel.timeZone)));
+  if (f.deferral === "pending") where.push(PENDING_DEFERRAL);
   if (f.q) {
     const like = `%${f.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
     where.push(or(ilike(workOrder.title, like), ilike(workOrder.number, like), ilike(component.code, like))!);
@@ -53,6 +57,7 @@ export async function loadBacklog(access: Access, vessel: VesselRef, f: BacklogF
       componentCode: component.code,
       componentName: component.name,
       awaitingApproval: AWAITING_APPROVAL,
+      pendingDeferral: PENDING_DEFERRAL,
     })
     .from(workOrder)
     .innerJoin(component, eq(component.id, workOrder.componentId))
@@ -70,6 +75,12 @@ export async function loadBacklog(access: Access, vessel: VesselRef, f: BacklogF
     .innerJoin(component, eq(component.id, workOrder.componentId))
     .where(and(...base))
     .groupBy(workOrder.state);
+  const [pending] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(deferral)
+    .where(
+      and(eq(deferral.companyId, access.company.id), eq(deferral.vesselId, vessel.id), eq(deferral.status, "pending")),
+    );
   const counts = Object.fromEntries(ALL_STATES.map((s) => [s, 0])) as Record<BacklogState, number>;
   let computedAt: string | null = null;
   for (const c of countRows) {
@@ -78,7 +89,7 @@ export async function loadBacklog(access: Access, vessel: VesselRef, f: BacklogF
   }
   const iso = (d: Date | null) => (d ? d.toISOString() : null);
   return {
-    items: rows.map(({ w, componentCode, componentName, awaitingApproval }) => ({
+    items: rows.map(({ w, componentCode, componentName, awaitingApproval, pendingDeferral }) => ({
       id: w.id,
       number: w.number,
       title: w.title,
@@ -105,11 +116,13 @@ export async function loadBacklog(access: Access, vessel: VesselRef, f: BacklogF
       component: { id: w.componentId, code: componentCode, name: componentName },
       computedAt: w.computedAt.toISOString(),
       awaitingApproval,
+      pendingDeferral,
     })),
     counts,
     total: f.state.reduce((sum, s) => sum + counts[s], 0),
     page: f.page,
     pageSize: f.pageSize,
+    pendingDeferrals: pending?.n ?? 0,
     computedAt: computedAt ? new Date(computedAt).toISOString() : null,
   };
 }

@@ -7,6 +7,8 @@ import { getDb } from "@/db/client";
 import { completion, component, counter, reading, routine, user, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
+import type { WorkOrderWithDeferrals } from "@/server/deferrals/contract";
+import { loadWorkOrderDeferrals } from "@/server/deferrals/queries";
 import { AppError } from "@/server/http/problem";
 import { ChecklistTick, type CompletionRecord, type ComponentHistoryEntry, type WorkOrderDetail } from "./contract";
 
@@ -26,7 +28,7 @@ export async function loadWorkOrderDetail(
   vessel: VesselRef,
   workOrderId: string,
   now = new Date(),
-): Promise<WorkOrderDetail> {
+): Promise<WorkOrderWithDeferrals> {
   if (!isUuid(workOrderId)) throw new AppError("not-found", "There is no such work order on this vessel.");
   const db = getDb();
   const companyId = access.company.id;
@@ -106,6 +108,7 @@ export async function loadWorkOrderDetail(
       record: can(access.role, "readings:write") && w.state !== "done",
       approve: can(access.role, "work:approve"),
     },
+    deferrals: await loadWorkOrderDeferrals(access, vessel, w, now),
   };
 }
 

@@ -199,3 +199,24 @@ describe("corrective follow-ups", () => {
     expect(planCorrective({ ...raised, deferral, now: new Date("2026-07-12T00:00:00Z") }).state).toBe("late");
   });
 });
+
+describe("a deferral names one limit; the other stays in force", () => {
+  it("deferring the hours of a whichever-first job leaves its calendar limit deciding", () => {
+    const base = {
+      // Every 2,000 h or every month: done 1 June at 13,000 h, so due 1 July by the calendar.
+      routine: routine({ intervalHours: 2000, calendarRule: "FREQ=MONTHLY" }),
+      rules,
+      last: { at: new Date("2026-06-01T04:00:00Z"), counterHours: 13000, previousCalendarDue: null },
+      counter: { totalHours: 15050, readAt: now, hoursPerDay: 20 },
+      timeZone: "UTC",
+      deferral: { dueDate: null, dueHours: 16000 },
+    };
+    // On 15 June the hours (15,050 > 15,000 h) are late but deferred to 16,000 h; the calendar
+    // limit (1 July) is not yet reached: deferred.
+    expect(planWorkOrder({ ...base, now }).state).toBe("deferred");
+    // On 20 July the monthly limit is past its grace (the monthly preset), deferral or not.
+    const later = planWorkOrder({ ...base, now: new Date("2026-07-20T04:00:00Z") });
+    expect(later.state).not.toBe("deferred");
+    expect(later.calendarWindow?.dueAt.toISOString().slice(0, 10)).toBe("2026-07-01");
+  });
+});

@@ -147,7 +147,15 @@ export function planWorkOrder(input: PlanInput): WorkOrderPlan {
       : null;
   const rulesUsed = { hours: hoursMatch?.rule.id ?? null, calendar: calendarMatch?.rule.id ?? null };
   if (input.deferral) {
-    return deferredPlan(input.deferral, due, { calendarMatch, hoursMatch, calendarRule }, input, rulesUsed);
+    const routineWindows = { calendar: calWindow, hours: hrsWindow };
+    return deferredPlan(
+      input.deferral,
+      due,
+      { calendarMatch, hoursMatch, calendarRule },
+      routineWindows,
+      input,
+      rulesUsed,
+    );
   }
   const state = workOrderState({
     now,
@@ -166,12 +174,13 @@ export function planWorkOrder(input: PlanInput): WorkOrderPlan {
 }
 
 /**
- * A work order under an approved deferral. The deferral's limits replace the routine's (a limit
- * it does not name is lifted: deferring an hours job to a date makes the date its only limit),
- * and the routine's tolerance rules apply to them: `deferred` until the new due point, then
- * `late` in its grace and `out-of-tolerance` past it. A date limit on a routine without a calendar
- * rule has no calendar tolerance to borrow, so it gets none (the strict fallback). The computed
- * due point stays as it was; the remaining figures count to the new limit.
+ * A work order under an approved deferral. Each limit the deferral names replaces the routine's
+ * limit of that kind; a limit it does not name stays in force (deferring the hours of a
+ * whichever-first job leaves its calendar limit as it was — the request said nothing about it).
+ * The routine's tolerance rules apply to the new limits: `deferred` until the new due point, then
+ * `late` in its grace and `out-of-tolerance` past it. A date on a routine without a calendar rule
+ * has no calendar tolerance to borrow, so it gets none (the strict fallback). The computed due
+ * point stays as it was; the remaining figures count to the new limits.
  */
 function deferredPlan(
   deferral: DeferredLimit,
@@ -181,6 +190,7 @@ function deferredPlan(
     hoursMatch: ReturnType<typeof matchToleranceRule>;
     calendarRule: CalendarRule | null;
   },
+  routineWindows: { calendar: CalendarWindow | null; hours: HoursWindow | null },
   input: PlanInput,
   rules: WorkOrderPlan["rules"],
 ): WorkOrderPlan {
@@ -192,11 +202,11 @@ function deferredPlan(
         timeZone,
         matched.calendarRule ? calendarIntervalDays(matched.calendarRule) : undefined,
       )
-    : null;
+    : routineWindows.calendar;
   const hours =
     deferral.dueHours !== null && routine.intervalHours
       ? hoursWindow(deferral.dueHours, routine.intervalHours, matched.hoursMatch?.rule ?? FALLBACK_TOLERANCE.hours)
-      : null;
+      : routineWindows.hours;
   const state = workOrderState({
     now,
     currentHours: counter?.totalHours ?? null,

@@ -98,6 +98,7 @@ export function backlogColumns(timeZone: string) {
           {row.original.needsEngineStop && <Mark>⏻ engine stop</Mark>}
           {row.original.kind === "corrective" && <Mark>✚ corrective</Mark>}
           {row.original.awaitingApproval && <Mark>◷ awaiting approval</Mark>}
+          {row.original.pendingDeferral && <Mark>⇢ deferral asked</Mark>}
         </span>
       ),
     }),

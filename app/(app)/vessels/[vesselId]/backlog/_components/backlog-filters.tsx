@@ -11,6 +11,8 @@ export type FilterValues = {
   classRelated: boolean;
   engineStop: boolean;
   dueBefore: string;
+  /** Only work orders with a deferral request awaiting a decision (the notice above sets it). */
+  deferral: boolean;
 };
 
 type Props = {

@@ -32,6 +32,7 @@ function readFilters(params: URLSearchParams): FilterValues {
     classRelated: params.get("classRelated") === "true",
     engineStop: params.get("engineStop") === "true",
     dueBefore: params.get("dueBefore") ?? "",
+    deferral: params.get("deferral") === "pending",
   };
 }
 
@@ -113,6 +114,11 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
           </select>
         </label>
       </div>
+      <PendingDeferrals
+        count={data?.pendingDeferrals ?? 0}
+        filtered={values.deferral}
+        onFilter={(on) => update({ deferral: on ? "pending" : "" })}
+      />
       <BacklogFilters values={values} counts={data?.counts} ranks={RANKS} onChange={update} />
       {error ? (
         <p role="alert" className="p-4 text-alarm-700 dark:text-alarm-300">
@@ -183,5 +189,34 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
         </nav>
       )}
     </section>
+  );
+}
+
+/** Requests someone has to decide: said above the list, with the filter that shows just those. */
+function PendingDeferrals({
+  count,
+  filtered,
+  onFilter,
+}: {
+  count: number;
+  filtered: boolean;
+  onFilter: (on: boolean) => void;
+}) {
+  if (count === 0 && !filtered) return null;
+  return (
+    <div
+      role="status"
+      className="flex flex-wrap items-center gap-3 border-b border-brass-400 bg-brass-100 px-4 py-2 text-ink-900 dark:border-brass-500 dark:bg-brass-700/30 dark:text-ink-50"
+    >
+      <p className="font-medium">
+        <span aria-hidden="true">⇢ </span>
+        {count === 0
+          ? "No deferral request awaits a decision."
+          : `${count} deferral request${count === 1 ? " awaits" : "s await"} a decision.`}
+      </p>
+      <button type="button" className="btn-quiet px-2 py-1" onClick={() => onFilter(!filtered)}>
+        {filtered ? "Show every work order" : count === 1 ? "Show it" : "Show them"}
+      </button>
+    </div>
   );
 }

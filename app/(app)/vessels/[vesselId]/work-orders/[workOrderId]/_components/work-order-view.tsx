@@ -8,6 +8,7 @@ import { Cautions } from "./cautions";
 import { ComponentHistory } from "./component-history";
 import { CompletionForm } from "./completion-form";
 import { CompletionRecordView, DecisionForm } from "./completion-record";
+import { DeferralSection } from "./deferral-section";
 import { useWorkOrder } from "./use-work-order";
 import { WorkOrderSummary } from "./work-order-summary";
 
@@ -41,6 +42,9 @@ export function WorkOrderView({ vesselId, workOrderId }: Props) {
       )}
       <Notice message={message} className="no-print" />
       <CompletionPart detail={detail} onMessage={setMessage} />
+      {(detail.workOrder.state !== "done" || detail.deferrals.history.length > 0) && (
+        <DeferralSection detail={detail} onMessage={setMessage} />
+      )}
       <ComponentHistory detail={detail} />
     </div>
   );
