@@ -11,5 +11,6 @@ export function proxy(request: NextRequest) {
 }
 
 export const config = {
-  matcher: ["/((?!api|_next|sign-in|favicon.ico|icon.svg|fonts).*)"],
+  // Signed-out pages: sign-in, the password links of invitations and resets, one-click unsubscribe.
+  matcher: ["/((?!api|_next|sign-in|forgot-password|set-password|unsubscribe|favicon.ico|icon.svg|fonts).*)"],
 };

@@ -148,6 +148,25 @@ stack_env() {
   rm -rf "$ROOT/$KEELSON_DIST_DIR"
   export KEELSON_CRON_MONITOR_SECONDS=2
   export NODE_ENV=production
+  mail_fake_env
+}
+
+# The local SMTP fake's ports and the settings that point the app and worker at it.
+mail_fake_env() {
+  export KEELSON_SMTP_HOST=127.0.0.1
+  export KEELSON_SMTP_PORT; KEELSON_SMTP_PORT="$(free_port)"
+  export KEELSON_MAIL_FAKE_PORT; KEELSON_MAIL_FAKE_PORT="$(free_port)"
+  export KEELSON_MAIL_FAKE_URL="http://127.0.0.1:$KEELSON_MAIL_FAKE_PORT"
+  export KEELSON_SMTP_IGNORE_TLS=true
+  export KEELSON_SMTP_SECURE=false
+}
+
+# mail_fake_start FILE LOG: starts scripts/mail-fake.ts keeping messages in FILE (JSON lines), sets
+# MAIL_FAKE_PID and waits until it answers.
+mail_fake_start() {
+  KEELSON_MAIL_FAKE_FILE="$1" node_modules/.bin/tsx scripts/mail-fake.ts >"$2" 2>&1 &
+  MAIL_FAKE_PID=$!
+  wait_for_http "$KEELSON_MAIL_FAKE_URL/health"
 }
 
 stack_database() {
@@ -159,6 +178,8 @@ stack_start_app() {
   local out="$1"
   log "building the app…"
   node_modules/.bin/next build >"$out/build.log" 2>&1 || { cat "$out/build.log"; return 1; }
+  mail_fake_start "$out/mail-fake.jsonl" "$out/mail-fake.log"
+  stack_pids+=("$MAIL_FAKE_PID")
   node_modules/.bin/tsx --conditions=react-server workers/index.ts >"$out/worker.log" 2>&1 &
   stack_pids+=($!)
   node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$out/app.log" 2>&1 &

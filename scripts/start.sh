@@ -37,11 +37,25 @@ if [ "$KEELSON_DEMO" = 1 ]; then node_modules/.bin/tsx --conditions=react-server
 log "building the app…"
 node_modules/.bin/next build >.data/build.log 2>&1 || { cat .data/build.log; exit 1; }
 
+# No relay configured: the local SMTP fake catches every message (Company → Mail shows them).
+if [ -z "${KEELSON_SMTP_HOST:-}" ]; then
+  mail_fake_env
+  mail_fake_start .data/mail-fake/messages.jsonl .data/mail-fake.log
+  pids+=("$MAIL_FAKE_PID")
+fi
+
 node_modules/.bin/tsx --conditions=react-server workers/index.ts &
 pids+=($!)
 node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" &
 pids+=($!)
 wait_for_http "http://127.0.0.1:$PORT/sign-in"
+
+if [ -n "${MAIL_FAKE_PID:-}" ]; then
+  mail_line="  Caught mail (sign in as admin): http://127.0.0.1:$PORT/admin/mail
+    every message goes to the local SMTP fake on 127.0.0.1:$KEELSON_SMTP_PORT, not to an inbox"
+else
+  mail_line="  Mail goes to the relay $KEELSON_SMTP_HOST:${KEELSON_SMTP_PORT:-587}"
+fi
 
 cat <<MSG
 
@@ -53,6 +67,8 @@ cat <<MSG
     super@brightwater.example    technical superintendent, whole fleet
     admin@brightwater.example    company administrator
     viewer@brightwater.example   viewer, Aster Gale
+
+$mail_line
 
   Ctrl-C stops Keelson and its database.
 

@@ -2,8 +2,11 @@
 // pg-boss hands each job to one of them.
 import PgBoss from "pg-boss";
 import { closeDb, databaseUrl, getDb } from "@/db/client";
+import { closeMailTransport } from "@/server/mail/transport";
+import { mailSend, stopMailFollowUp } from "./jobs/mail-send";
 import { recomputeFleet } from "./jobs/recompute-fleet";
 import { recomputeVessel } from "./jobs/recompute-vessel";
+import { scheduledJobs } from "./jobs/schedule";
 
 const boss = new PgBoss({
   connectionString: databaseUrl(),
@@ -32,10 +35,30 @@ await boss.work(recomputeFleet.name, async () => {
   console.log(`[worker] ${recomputeFleet.name}: ${result.vessels} vessels queued`);
 });
 await boss.schedule(recomputeFleet.name, recomputeFleet.cron, {}, { tz: "UTC" });
+
+// Cron jobs (workers/jobs/schedule.ts): "singleton", one run at a time across all workers. A run
+// that outlives its worker (kill -9) holds the queue until pg-boss expires it, hence the short
+// expiry; the mail sender also runs on start and on its own timer, so mail never waits for that.
+for (const job of scheduledJobs) {
+  await boss.createQueue(job.name, { name: job.name, policy: "singleton", expireInSeconds: 300 });
+  await boss.work(job.name, { pollingIntervalSeconds: 1 }, async () => {
+    const line = await job.handle(db, boss);
+    if (line) console.log(`[worker] ${job.name}: ${line}`);
+  });
+  await boss.schedule(job.name, job.cron, {}, { tz: "UTC" });
+}
+
+// Mail queued while no worker ran goes out now, not at the next minute.
+mailSend
+  .handle(db, boss)
+  .then((line) => line && console.log(`[worker] ${mailSend.name} on start: ${line}`))
+  .catch((error) => console.error("[worker] mail-send on start failed", error));
 console.log("[worker] ready");
 
 async function shutdown() {
+  stopMailFollowUp();
   await boss.stop({ graceful: true, wait: true, timeout: 10_000 });
+  closeMailTransport();
   await closeDb();
   process.exit(0);
 }

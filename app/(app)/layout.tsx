@@ -31,6 +31,11 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             <Link href="/" className="rounded px-2 py-1 font-medium text-ink-700 hover:bg-ink-100 dark:text-ink-200 dark:hover:bg-ink-800">
               Vessels
             </Link>
+            {can(access.role, "fleet:read") && (
+              <Link href="/fleet" className="rounded px-2 py-1 font-medium text-ink-700 hover:bg-ink-100 dark:text-ink-200 dark:hover:bg-ink-800">
+                Fleet board
+              </Link>
+            )}
             {can(access.role, "company:manage") && (
               <Link href="/admin" className="rounded px-2 py-1 font-medium text-ink-700 hover:bg-ink-100 dark:text-ink-200 dark:hover:bg-ink-800">
                 Company
@@ -42,6 +47,9 @@ export default async function AppLayout({ children }: { children: React.ReactNod
               <span className="block font-medium">{access.user.name}</span>
               <span className="block text-xs text-ink-500 dark:text-ink-400">{ROLE_LABEL[access.role]}</span>
             </span>
+            <Link href="/account" className="rounded px-2 py-1 font-medium text-ink-700 hover:bg-ink-100 dark:text-ink-200 dark:hover:bg-ink-800">
+              My e-mail
+            </Link>
             <ThemeToggle />
             <SignOutButton />
           </div>

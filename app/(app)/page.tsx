@@ -3,7 +3,7 @@ import Link from "next/link";
 import { redirect } from "next/navigation";
 import { ageOf } from "@/app/_components/relative-age";
 import { requirePageAccess } from "@/server/auth/access";
-import { seesWholeFleet } from "@/server/auth/roles";
+import { can, seesWholeFleet } from "@/server/auth/roles";
 import { formatShipTime } from "@/server/format/hours";
 import { listAccessibleVessels } from "@/server/vessels/queries";
 
@@ -19,6 +19,18 @@ export default async function VesselsPage() {
 
   return (
     <main>
+      {can(access.role, "fleet:read") && (
+        <Link
+          href="/fleet"
+          className="mb-4 block panel border-l-4 border-l-tide-500 p-4 hover:bg-ink-50 dark:hover:bg-ink-850"
+        >
+          <span className="block text-base font-semibold">Fleet board →</span>
+          <span className="text-ink-600 dark:text-ink-300">
+            Every vessel at a glance: work out of tolerance and late, vessels that stopped reporting, on-time rate and
+            the deferral requests awaiting your decision.
+          </span>
+        </Link>
+      )}
       <h1 className="mb-4 text-lg font-bold">Vessels</h1>
       {vessels.length === 0 ? (
         <div className="panel p-6 text-ink-600 dark:text-ink-300">

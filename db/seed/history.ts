@@ -5,11 +5,23 @@
 import { and, asc, eq, isNotNull } from "drizzle-orm";
 import type { Tx } from "../client";
 import * as s from "../schema";
-import { calendarIntervalDays } from "../../server/scheduling/tolerance";
+import {
+  calendarIntervalDays,
+  calendarWindow,
+  matchToleranceRule,
+  type ToleranceRule,
+} from "../../server/scheduling/tolerance";
 import { parseCalendarRule } from "../../server/scheduling/calendar-rule";
 import { resolveCounters } from "../../server/register/tree";
 import { workOrderNumber } from "../../server/scheduling/work-order-writer";
 import { seededRandom } from "./readings";
+import { toleranceRuleFromRow } from "../../server/tolerance/rows";
+
+function windowOf(rules: ToleranceRule[], rule: string, dueAt: Date, timeZone: string) {
+  const parsed = parseCalendarRule(rule);
+  const match = matchToleranceRule(rules, { calendarRule: parsed }, "calendar");
+  return match ? calendarWindow(dueAt, match.rule, timeZone, calendarIntervalDays(parsed)) : null;
+}
 
 const DAY = 86_400_000;
 const REMARKS = [
@@ -26,11 +38,14 @@ export type HistoryCrew = { doneBy: string | null; decidedBy: string | null };
 export async function seedHistory(
   tx: Tx,
   companyId: string,
-  vessel: { id: string; code: string; seed: number },
+  vessel: { id: string; code: string; seed: number; timeZone: string },
   crew: HistoryCrew,
   now: Date,
 ) {
   const random = seededRandom(vessel.seed * 13 + 5);
+  const rules = (await tx.select().from(s.toleranceRule).where(eq(s.toleranceRule.companyId, companyId))).map(
+    toleranceRuleFromRow,
+  );
   const routines = await tx
     .select()
     .from(s.routine)
@@ -60,8 +75,11 @@ export async function seedHistory(
     if (period > 120) continue;
     let at = last.getTime();
     while (at - period * DAY > yearAgo) {
-      // Done a little before or after the day it fell due (mostly on time, now and then late).
-      const lateBy = Math.round((random() * 6 - 2) * 10) / 10;
+      // Done a little before or after the day it fell due; about one in twelve well past its grace.
+      const lateBy =
+        random() < 0.08
+          ? Math.round(period * (0.25 + random() * 0.3) * 10) / 10
+          : Math.round((random() * 6 - 2) * 10) / 10;
       const earlier = at - (period + lateBy) * DAY;
       done.push({ routine: r, doneAt: new Date(earlier), counterHours: null, dueAt: new Date(at - lateBy * DAY) });
       at = earlier;
@@ -79,6 +97,8 @@ export async function seedHistory(
     const n = (occurrence.get(r.id) ?? 0) + 1;
     occurrence.set(r.id, n);
     const eff = counters.get(r.componentId);
+    // The window the work order had, by the company's rules, so on-time figures have a grace to judge.
+    const window = d.dueAt && r.calendarRule ? windowOf(rules, r.calendarRule, d.dueAt, vessel.timeZone) : null;
     const decidedAt = new Date(Math.min(d.doneAt.getTime() + (0.2 + random()) * DAY, now.getTime() - 3_600_000));
     sequence++;
     workOrders.push({
@@ -102,6 +122,9 @@ export async function seedHistory(
       classRelated: r.classRelated,
       computedAt: decidedAt,
       completedAt: d.doneAt,
+      windowOpensAt: window?.opensAt ?? null,
+      graceEndsAt: window?.graceEndsAt ?? null,
+      outOfToleranceAt: window?.graceEndsAt ?? null,
       createdAt: new Date(d.doneAt.getTime() - 20 * DAY),
     });
     records.push({

@@ -100,7 +100,7 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
       await seedHistory(
         tx,
         companyId,
-        { id: vesselIds.get(v.code)!, code: v.code, seed: v.seed },
+        { id: vesselIds.get(v.code)!, code: v.code, seed: v.seed, timeZone: v.timeZone },
         { doneBy: userIds.get(engineerOf(v.code)) ?? null, decidedBy: userIds.get(chiefOf(v.code)) ?? null },
         now,
       );
@@ -114,6 +114,7 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
       console.warn(`[keelson] ${v.code}: ${run.skipped.length} routines skipped`, run.skipped.slice(0, 3));
   }
   await (await import("./deferrals")).seedDeferrals(db, co!.id, now);
+  await (await import("./snapshots")).seedSnapshots(db, co!.id, now);
   return "created";
 }
 

@@ -9,6 +9,7 @@ import { Pool } from "pg";
 import * as s from "@/db/schema";
 import type { BacklogPage } from "@/server/backlog/contract";
 import { recomputeVessel } from "@/server/scheduling/recompute";
+import { seedSnapshots } from "@/db/seed/snapshots";
 import { closeTestDb, createCompany, PASSWORD, testDb } from "@/tests/support/fixtures";
 import { api, signIn } from "@/tests/support/http";
 import { measure, type Timing } from "./measure";
@@ -270,6 +271,123 @@ await timeBacklog(
   ["out-of-tolerance", "late"],
   "and w.critical = true",
 );
+
+// The chief engineer's planning on the measured vessel: the Calendar of its busiest month, and the
+// proposed work package for a port stay, each beside a bare SELECT of the rows it reads.
+await db.insert(s.vesselAssignment).values({ companyId, userId: f.users["chief-engineer"].id, vesselId: one });
+const chief = await signIn(f.users["chief-engineer"].email, PASSWORD);
+const busiest = await pool.query<{ month: string }>(
+  `select to_char(date_trunc('month', due_date at time zone 'UTC'), 'YYYY-MM-DD') as month
+   from work_order where company_id = $1 and vessel_id = $2 and due_date is not null
+   group by 1 order by count(*) desc limit 1`,
+  [companyId, one],
+);
+const monthStart = busiest.rows[0]!.month;
+const monthEnd = day(new Date(new Date(`${monthStart}T00:00:00Z`).getTime() + 41 * DAY));
+const CALENDAR_SQL = `
+  select w.id, w.number, w.title, w.state, w.due_date, w.projected_date, w.planned_date, w.governing,
+         w.plan_from, w.plan_until, w.critical, w.class_related, w.needs_engine_stop
+  from work_order w
+  where w.company_id = $1 and w.vessel_id = $2
+    and coalesce(w.planned_date, (coalesce(w.deferred_due_date, w.due_date) at time zone 'UTC')::date) between $3 and $4`;
+let calendarRows = 0;
+const calendarTiming = {
+  handler: await measure(RUNS, async () => {
+    const r = await api<{ workOrders?: unknown[]; events?: unknown[] }>(
+      chief,
+      "GET",
+      `/api/vessels/${one}/calendar?start=${monthStart}&end=${monthEnd}`,
+    );
+    if (r.status !== 200) throw new Error(`calendar ${r.status} ${JSON.stringify(r.body)}`);
+  }),
+  bare: await measure(RUNS, async () => {
+    calendarRows = (await pool.query(CALENDAR_SQL, [companyId, one, monthStart, monthEnd])).rowCount ?? 0;
+  }),
+};
+backlog.push({
+  what: `GET calendar, the busiest 6 weeks (from ${monthStart})`,
+  ...calendarTiming,
+  rows: calendarRows,
+});
+
+const stayStart = new Date(now.getTime() + 5 * DAY);
+const [stay] = await db
+  .insert(s.portStay)
+  .values({
+    companyId,
+    vesselId: one,
+    port: "Bench harbour",
+    arrivesAt: stayStart,
+    departsAt: new Date(stayStart.getTime() + 2.5 * DAY),
+    engineMayStop: true,
+    immobilisationHours: 24,
+    crew: [
+      { rank: "chief-engineer", manHoursPerDay: 2 },
+      { rank: "second-engineer", manHoursPerDay: 8 },
+      { rank: "third-engineer", manHoursPerDay: 8 },
+      { rank: "motorman", manHoursPerDay: 16 },
+      { rank: "electrician", manHoursPerDay: 6 },
+    ],
+  })
+  .returning();
+const CANDIDATES_SQL = `
+  select id, number, title, state, rank, estimated_man_hours, needs_engine_stop, critical, class_related,
+         due_date, deferred_due_date, out_of_tolerance_at, plan_from, plan_until
+  from work_order where company_id = $1 and vessel_id = $2 and state <> 'done'`;
+let candidates = 0;
+backlog.push({
+  what: `POST port-stay proposal (3-day stay, ${ROUTINES.toLocaleString("en")} open work orders considered)`,
+  handler: await measure(RUNS, async () => {
+    const r = await api(chief, "POST", `/api/vessels/${one}/port-stays/${stay!.id}/proposal`);
+    if (r.status !== 200) throw new Error(`proposal ${r.status} ${JSON.stringify(r.body)}`);
+  }),
+  bare: await measure(RUNS, async () => {
+    candidates = (await pool.query(CANDIDATES_SQL, [companyId, one])).rowCount ?? 0;
+  }),
+  rows: candidates,
+});
+
+// The Fleet board for the superintendent: every vessel's figures and a 90-day trend, read from the
+// worker's snapshots (recompute wrote today's; 89 earlier days are generated as the demo does).
+await seedSnapshots(db, companyId, now);
+await db.execute(sql`analyze vessel_snapshot`);
+const office = await signIn(f.users.superintendent.email, PASSWORD);
+const trendFrom = day(new Date(now.getTime() - 89 * DAY));
+let boardVessels = 0;
+backlog.push({
+  what: `GET fleet board (${vessels.length} vessels, 90-day trend)`,
+  handler: await measure(RUNS, async () => {
+    const r = await api<{ vessels: unknown[] }>(office, "GET", "/api/fleet/board");
+    if (r.status !== 200) throw new Error(`board ${r.status} ${JSON.stringify(r.body)}`);
+    boardVessels = r.body.vessels.length;
+  }),
+  bare: await measure(RUNS, () =>
+    Promise.all([
+      pool.query(
+        `select v.id, v.name, v.code, co.missing_readings_hours, s.*
+         from vessel v join company co on co.id = v.company_id
+         left join lateral (select * from vessel_snapshot vs where vs.company_id = v.company_id and vs.vessel_id = v.id
+                            order by vs.day desc limit 1) s on true
+         where v.company_id = $1 and v.retired_at is null`,
+        [companyId],
+      ),
+      pool.query(
+        `select vessel_id, day, late, out_of_tolerance, completed90, on_time_rate
+         from vessel_snapshot where company_id = $1 and day >= $2::date order by day`,
+        [companyId, trendFrom],
+      ),
+      pool.query(
+        `select d.*, w.number, w.title, w.state, w.critical, w.class_related, v.name, v.code
+         from deferral d join work_order w on w.id = d.work_order_id join vessel v on v.id = d.vessel_id
+         where d.company_id = $1 and w.company_id = $1 and d.status = 'pending' order by d.requested_at desc`,
+        [companyId],
+      ),
+    ]),
+  ),
+  get rows() {
+    return boardVessels;
+  },
+});
 
 const ms = (x: Timing) => `${x.p50} / ${x.p95}`;
 const table = [

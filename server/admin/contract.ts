@@ -120,14 +120,25 @@ export const Password = z
   .min(MIN_PASSWORD, { message: `The password needs at least ${MIN_PASSWORD} characters.` })
   .max(MAX_PASSWORD, { message: `Keep the password to ${MAX_PASSWORD} characters.` });
 
-export const UserInput = z.object({
-  name: PersonName,
-  email: Email,
-  role: MemberRole,
-  rank: Rank,
-  vesselIds: VesselIds.default([]),
-  initialPassword: Password,
-});
+export const UserInput = z
+  .object({
+    name: PersonName,
+    email: Email,
+    role: MemberRole,
+    rank: Rank,
+    vesselIds: VesselIds.default([]),
+    /** Send an invitation by e-mail: the person chooses their own password through the link. */
+    invite: z.boolean({ message: "Invite is true or false." }).default(false),
+    initialPassword: Password.optional(),
+  })
+  .superRefine((v, ctx) => {
+    if (!v.invite && v.initialPassword === undefined)
+      ctx.addIssue({
+        code: "custom",
+        path: ["initialPassword"],
+        message: "Give a first password, or send an invitation by e-mail instead.",
+      });
+  });
 export type UserInput = z.input<typeof UserInput>;
 export type UserValues = z.output<typeof UserInput>;
 
@@ -163,6 +174,8 @@ export type AdminPerson = {
   rank: string | null;
   vessels: { id: string; name: string; code: string }[];
   disabled: boolean;
+  /** When an invitation was sent that the person has not yet answered by choosing a password. */
+  invitedAt: string | null;
   /** When their newest open session began; sessions end at sign-out, so this can be empty. */
   lastSignInAt: string | null;
   isYou: boolean;

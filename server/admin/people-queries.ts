@@ -9,6 +9,8 @@ import { AppError, invalidInput } from "@/server/http/problem";
 import type { AdminPerson, UserChanges, UserValues } from "./contract";
 import { explainUniqueViolation, foreignVesselErrors } from "./queries";
 import { lastAdminError } from "./rules";
+import { SET_PASSWORD_PATH } from "@/server/accounts/account-mail";
+import { auth } from "@/server/auth/auth";
 
 // The company administrator's people: accounts, roles, ranks and vessel assignments, every query
 // scoped by the administrator's company. Accounts themselves (user, account, session) are
@@ -25,6 +27,7 @@ export async function listCompanyPeople(access: Access, onlyUserId?: string): Pr
       banned: user.banned,
       role: membership.role,
       rank: membership.rank,
+      invitedAt: membership.invitedAt,
       lastSignInAt: sql<string | null>`(select max(s.created_at) from ${session} s where s.user_id = ${user}.id)`,
     })
     .from(membership)
@@ -47,6 +50,7 @@ export async function listCompanyPeople(access: Access, onlyUserId?: string): Pr
     rank: r.rank,
     vessels: assignments.filter((a) => a.userId === r.id).map(({ id, name, code }) => ({ id, name, code })),
     disabled: r.banned === true,
+    invitedAt: r.invitedAt?.toISOString() ?? null,
     lastSignInAt: r.lastSignInAt ? new Date(r.lastSignInAt).toISOString() : null,
     isYou: r.id === access.user.id,
   }));
@@ -87,7 +91,7 @@ async function replaceAssignments(tx: Tx, companyId: string, userId: string, ves
 export async function createPerson(access: Access, values: UserValues): Promise<AdminPerson> {
   const db = getDb();
   const companyId = access.company.id;
-  const passwordHash = await hashPassword(values.initialPassword);
+  const passwordHash = values.invite || !values.initialPassword ? null : await hashPassword(values.initialPassword);
   const userId = randomUUID();
   await explainUniqueViolation(
     () =>
@@ -98,15 +102,45 @@ export async function createPerson(access: Access, values: UserValues): Promise<
         await tx
           .insert(user)
           .values({ id: userId, name: values.name, email: values.email, emailVerified: false, role: "user" });
-        await tx
-          .insert(account)
-          .values({ id: randomUUID(), accountId: userId, providerId: "credential", userId, password: passwordHash });
-        await tx.insert(membership).values({ companyId, userId, role: values.role, rank: values.rank ?? null });
+        // An invited person has no password until they choose one (better-auth creates the
+        // credential account then); until that, signing in simply fails.
+        if (passwordHash)
+          await tx
+            .insert(account)
+            .values({ id: randomUUID(), accountId: userId, providerId: "credential", userId, password: passwordHash });
+        await tx.insert(membership).values({
+          companyId,
+          userId,
+          role: values.role,
+          rank: values.rank ?? null,
+          invitedAt: passwordHash ? null : new Date(),
+        });
         await replaceAssignments(tx, companyId, userId, values.vesselIds);
       }),
     () => assertEmailFree(db, values.email),
   );
+  if (!passwordHash) await sendPasswordLink(values.email);
   return loadCompanyPerson(access, userId);
+}
+
+/** Asks better-auth for a one-time link; its hook words it as an invitation or a reset. */
+async function sendPasswordLink(email: string): Promise<void> {
+  await auth.api.requestPasswordReset({ body: { email, redirectTo: SET_PASSWORD_PATH } });
+}
+
+/**
+ * Sends a person of the company a link to choose a password: the invitation again while it is
+ * unanswered, otherwise a password reset. A disabled person gets none.
+ */
+export async function sendPersonPasswordLink(
+  access: Access,
+  userId: string,
+): Promise<{ sent: "invitation" | "password-reset" }> {
+  const person = await loadCompanyPerson(access, userId);
+  if (person.disabled)
+    throw new AppError("conflict", `${person.name} is disabled: enable the account before sending a password link.`);
+  await sendPasswordLink(person.email);
+  return { sent: person.invitedAt ? "invitation" : "password-reset" };
 }
 
 /** Role changes and disabling are checked against the company's other administrators, locked meanwhile. */

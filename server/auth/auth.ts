@@ -5,6 +5,7 @@ import { nextCookies } from "better-auth/next-js";
 import { admin } from "better-auth/plugins";
 import { getDb } from "@/db/client";
 import * as schema from "@/db/schema";
+import { markPasswordSet, RESET_LINK_HOURS, sendAccountMail } from "@/server/accounts/account-mail";
 
 const baseURL = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000";
 
@@ -26,6 +27,12 @@ export const auth = betterAuth({
     // Accounts are created by the company administrator, never by self sign-up.
     disableSignUp: true,
     minPasswordLength: 10,
+    // Invitations and password resets: a one-time link by e-mail (server/accounts/account-mail.ts).
+    sendResetPassword: (data) => sendAccountMail(data),
+    resetPasswordTokenExpiresIn: RESET_LINK_HOURS * 3600,
+    onPasswordReset: ({ user }) => markPasswordSet(user.id),
+    // A new password ends every session of the account, as a disabled account's do.
+    revokeSessionsOnPasswordReset: true,
   },
   session: {
     expiresIn: 60 * 60 * 24 * 14,
@@ -43,7 +50,10 @@ export const auth = betterAuth({
     enabled: process.env.KEELSON_AUTH_RATE_LIMIT !== "off",
     window: 60,
     max: 100,
-    customRules: { "/sign-in/email": { window: 60, max: 10 } },
+    customRules: {
+      "/sign-in/email": { window: 60, max: 10 },
+      "/request-password-reset": { window: 300, max: 5 },
+    },
   },
   telemetry: { enabled: false },
   plugins: [admin(), nextCookies()],

@@ -18,7 +18,8 @@ export type Permission =
   | "company:manage"
   | "work:approve"
   | "work:plan"
-  | "deferral:decide";
+  | "deferral:decide"
+  | "fleet:read";
 
 const GRANTS: Record<Permission, readonly Role[]> = {
   "vessel:read": ROLES,
@@ -30,6 +31,8 @@ const GRANTS: Record<Permission, readonly Role[]> = {
   "work:plan": ["chief-engineer"],
   /** Which deferrals each may decide is narrower: server/deferrals (critical and class → office). */
   "deferral:decide": ["superintendent", "chief-engineer"],
+  /** The Fleet board: the office's view of every vessel. */
+  "fleet:read": ["admin", "superintendent"],
 };
 
 export function can(role: Role, permission: Permission): boolean {

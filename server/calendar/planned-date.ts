@@ -10,7 +10,7 @@ import { isUuid } from "@/server/completions/queries";
 import { shipDayKey } from "@/server/format/ship-day";
 import { AppError, invalidInput } from "@/server/http/problem";
 import type { PlannedDateInput, PlannedDateResult } from "./contract";
-import { isPlannable, outsideWindowMessage } from "./plannable-days";
+import { dayInWords, isPlannable, outsideWindowMessage } from "./plannable-days";
 
 export async function setPlannedDate(
   access: Access,
@@ -31,6 +31,11 @@ export async function setPlannedDate(
     if (!w) throw new AppError("not-found", "There is no such work order on this vessel.");
     if (w.state === "done") throw new AppError("conflict", `${w.number} is done; a done work order is not planned.`);
     const day = input.plannedDate;
+    const today = shipDayKey(Date.now(), vessel.timeZone);
+    if (day !== null && day < today) {
+      const message = `A planned day is today or later; ${dayInWords(day)} has passed on board.`;
+      throw invalidInput([{ field: "plannedDate", message }], message);
+    }
     if (day !== null && !isPlannable(day, w)) {
       const message = outsideWindowMessage(w.number, day, w);
       throw invalidInput([{ field: "plannedDate", message }], message);

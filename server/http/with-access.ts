@@ -88,3 +88,60 @@ async function readJson(request: Request): Promise<unknown> {
     throw invalidInput([{ field: "(body)", message: "The request body is not valid JSON." }]);
   }
 }
+
+type TokenOptions<B, Q> = { body?: B; query?: Q };
+
+export type TokenContext<B, Q> = {
+  request: Request;
+  params: Record<string, string>;
+  body: Parsed<B>;
+  query: Parsed<Q>;
+};
+
+/**
+ * The second door, for the few public routes whose request carries its own proof — a signed
+ * token from a link in an e-mail — instead of a session. It reads no session; it parses query and
+ * body with the zod contract (422 problem+json, as `withAccess`) and turns errors into problem
+ * answers. The handler must verify the token before it touches anything, and scope every query by
+ * what the token names. The body may be JSON, a form (urlencoded or multipart: what a browser's
+ * form and an RFC 8058 one-click client send) or empty (parsed as `{}`).
+ */
+export function withToken<B extends Schema | undefined = undefined, Q extends Schema | undefined = undefined>(
+  options: TokenOptions<B, Q>,
+  handler: (ctx: TokenContext<B, Q>) => Promise<unknown>,
+) {
+  return async (request: Request, context: RouteContext): Promise<Response> => {
+    try {
+      const params = Object.fromEntries(
+        Object.entries((await context.params) ?? {}).map(([k, v]) => [k, String(v)]),
+      );
+      const query = options.query
+        ? parseWith(options.query, Object.fromEntries(new URL(request.url).searchParams), "query")
+        : undefined;
+      const body = options.body ? parseWith(options.body, await readAnyBody(request), "") : undefined;
+      const result = await handler({ request, params, body: body as Parsed<B>, query: query as Parsed<Q> });
+      return result instanceof Response ? result : Response.json(result);
+    } catch (error) {
+      return problemResponse(error);
+    }
+  };
+}
+
+async function readAnyBody(request: Request): Promise<unknown> {
+  const type = request.headers.get("content-type") ?? "";
+  if (type.startsWith("application/x-www-form-urlencoded") || type.startsWith("multipart/form-data")) {
+    try {
+      const form = await request.formData();
+      return Object.fromEntries([...form.entries()].map(([k, v]) => [k, typeof v === "string" ? v : v.name]));
+    } catch {
+      throw invalidInput([{ field: "(body)", message: "The request body is not a readable form." }]);
+    }
+  }
+  const text = await request.text();
+  if (!text.trim()) return {};
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw invalidInput([{ field: "(body)", message: "The request body is not valid JSON." }]);
+  }
+}

@@ -5,6 +5,7 @@ import "server-only";
 import { and, asc, eq, gte, inArray, isNull, lt, sql } from "drizzle-orm";
 import type { Db, Tx } from "@/db/client";
 import { counter, reading, vessel } from "@/db/schema";
+import { takeVesselSnapshot } from "@/server/fleet/snapshot";
 import { DEFAULT_LOOKBACK_DAYS, type RateReading, runningRate } from "./running-rate";
 import { writeWorkOrders, type WorkOrderRunSummary } from "./work-order-writer";
 
@@ -26,6 +27,8 @@ export async function recomputeVessel(
     if (!v) return { counters: 0, created: 0, updated: 0, stateChanges: 0, skipped: [] };
     const counters = await refreshRunningRatesIn(tx, companyId, vesselId, now);
     const summary = await writeWorkOrders(tx, { companyId, vesselId, vessel: v, counters, now });
+    // Today's Fleet board figures, from the rows just written (server/fleet/snapshot.ts).
+    await takeVesselSnapshot(tx, companyId, vesselId, now);
     return { counters: counters.size, ...summary };
   });
 }

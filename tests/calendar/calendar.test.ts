@@ -62,11 +62,48 @@ beforeAll(async () => {
     .values([
       // Every 100 h from 925 h with the counter at 1,000 h: due at 1,025 h, projected at the
       // counter's planned 12 h/day (no history yet) from yesterday's reading.
-      { companyId, vesselId, componentId: me!.id, title: "Turbocharger wash", critical: true, intervalHours: 100, baselineHours: 925, baselineAt: new Date(Date.now() - 5 * DAY) },
-      { companyId, vesselId, componentId: pump!.id, title: "Fire pump monthly run", calendarRule: "FREQ=MONTHLY", baselineAt: new Date(Date.now() - 20 * DAY) },
-      { companyId, vesselId, componentId: ac!.id, title: "Compressor valves", calendarRule: "FREQ=MONTHLY;INTERVAL=3", baselineAt: new Date(Date.now() - 30 * DAY) },
-      { companyId, vesselId, componentId: ac!.id, title: "Compressor drain traps", calendarRule: "FREQ=MONTHLY;INTERVAL=2", baselineAt: new Date(Date.now() - 30 * DAY) },
-      { companyId, vesselId, componentId: pump!.id, title: "Fire pump gland check", calendarRule: "FREQ=MONTHLY;INTERVAL=6", baselineAt: new Date(Date.now() - 30 * DAY) },
+      {
+        companyId,
+        vesselId,
+        componentId: me!.id,
+        title: "Turbocharger wash",
+        critical: true,
+        intervalHours: 100,
+        baselineHours: 925,
+        baselineAt: new Date(Date.now() - 5 * DAY),
+      },
+      {
+        companyId,
+        vesselId,
+        componentId: pump!.id,
+        title: "Fire pump monthly run",
+        calendarRule: "FREQ=MONTHLY",
+        baselineAt: new Date(Date.now() - 20 * DAY),
+      },
+      {
+        companyId,
+        vesselId,
+        componentId: ac!.id,
+        title: "Compressor valves",
+        calendarRule: "FREQ=MONTHLY;INTERVAL=3",
+        baselineAt: new Date(Date.now() - 30 * DAY),
+      },
+      {
+        companyId,
+        vesselId,
+        componentId: ac!.id,
+        title: "Compressor drain traps",
+        calendarRule: "FREQ=MONTHLY;INTERVAL=2",
+        baselineAt: new Date(Date.now() - 30 * DAY),
+      },
+      {
+        companyId,
+        vesselId,
+        componentId: pump!.id,
+        title: "Fire pump gland check",
+        calendarRule: "FREQ=MONTHLY;INTERVAL=6",
+        baselineAt: new Date(Date.now() - 30 * DAY),
+      },
     ])
     .returning();
   await recomputeVessel(db, companyId, vesselId);
@@ -137,12 +174,20 @@ describe("GET /api/vessels/[vesselId]/calendar", () => {
     expect(wash.critical).toBe(true);
     // The reading the fixture took 24 h ago, on the ship's calendar.
     const readingDay = format(new TZDate(f.lastReadAt, TZ), "d MMM");
-    expect(wash.basis).toBe(`due at 1,025 h; projected at 12.0 h/day (the planned rate: too little history) from the reading of ${readingDay}, 1,000 h`);
+    expect(wash.basis).toBe(
+      `due at 1,025 h; projected at 12.0 h/day (the planned rate: too little history) from the reading of ${readingDay}, 1,000 h`,
+    );
     // Done work appears on the day it was done.
     expect(res.body.workOrders.find((w) => w.id === wo.done)).toMatchObject({ state: "done", day: day(-2) });
     // Only the stay inside the range, with its ship's days.
     expect(res.body.portStays).toEqual([
-      expect.objectContaining({ port: "Test harbour", firstDay: day(5), lastDay: day(6), engineMayStop: true, packageAccepted: false }),
+      expect.objectContaining({
+        port: "Test harbour",
+        firstDay: day(5),
+        lastDay: day(6),
+        engineMayStop: true,
+        packageAccepted: false,
+      }),
     ]);
     // Ordered by day.
     const days = res.body.workOrders.map((w) => w.day);
@@ -159,7 +204,10 @@ describe("GET /api/vessels/[vesselId]/calendar", () => {
 
   it("gives the same answer for the same range, and the same days inside a wider range", async () => {
     const q = `?start=${day(0)}&end=${day(28)}`;
-    const [a, b] = await Promise.all([api<CalendarRange>(chief, "GET", calendar(q)), api<CalendarRange>(chief, "GET", calendar(q))]);
+    const [a, b] = await Promise.all([
+      api<CalendarRange>(chief, "GET", calendar(q)),
+      api<CalendarRange>(chief, "GET", calendar(q)),
+    ]);
     expect(a.body.workOrders.length).toBeGreaterThan(0);
     expect(b.body).toEqual(a.body);
     const wide = await api<CalendarRange>(chief, "GET", calendar(`?start=${day(-14)}&end=${day(56)}`));
@@ -197,7 +245,9 @@ describe("PUT /api/vessels/[vesselId]/work-orders/[workOrderId]/planned-date", (
     expect((await api(viewer, "PUT", plannedDate(wo.pump), { plannedDate: day(5) })).status).toBe(403);
     const otherChief = await signIn(other.users["chief-engineer"].email, PASSWORD);
     expect((await api(otherChief, "PUT", plannedDate(wo.pump), { plannedDate: day(5) })).status).toBe(404);
-    expect((await api(otherChief, "PUT", plannedDate(wo.pump, other.vesselA.id), { plannedDate: day(5) })).status).toBe(404);
+    expect((await api(otherChief, "PUT", plannedDate(wo.pump, other.vesselA.id), { plannedDate: day(5) })).status).toBe(
+      404,
+    );
     expect((await readWorkOrder(wo.pump)).plannedDate).toBeNull();
   });
 
@@ -260,7 +310,11 @@ describe("PUT /api/vessels/[vesselId]/work-orders/[workOrderId]/planned-date", (
     expect(onDue.body.workOrders.map((w) => w.id)).toContain(wo.pump);
   });
 
-  it("refuses to plan done work with 409", async () => {
+  it("refuses a day already past (422) and done work (409)", async () => {
+    // A day already gone on board is refused even where the window has no lower bound.
+    const past = await api<Problem>(chief, "PUT", plannedDate(wo.lateEvening), { plannedDate: day(-1) });
+    expect(past.status).toBe(422);
+    expect(past.body.errors?.find((e) => e.field === "plannedDate")?.message).toMatch(/has passed/);
     const res = await api<Problem>(chief, "PUT", plannedDate(wo.done), { plannedDate: day(1) });
     expect(res.status).toBe(409);
     expect(res.body.detail).toMatch(/is done/);

@@ -30,7 +30,9 @@ function daysOf(range: CalendarRange): string[] {
 function planCandidate(range: CalendarRange): { workOrder: CalendarWorkOrder; day: string } {
   for (const w of range.workOrders) {
     if (w.state === "done" || w.plannedDate) continue;
-    const day = daysOf(range).find((d) => d !== w.day && isPlannable(d, w));
+    // After UTC today: every ship's today is at most one day ahead of it, and a past day is refused.
+    const utcToday = new Date().toISOString().slice(0, 10);
+    const day = daysOf(range).find((d) => d !== w.day && d > utcToday && isPlannable(d, w));
     if (day) return { workOrder: w, day };
   }
   throw new Error("The demo month has no work order to plan.");

@@ -1,6 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
@@ -89,6 +90,11 @@ export function SignInForm({ demo }: { demo: Demo }) {
         <button type="submit" className="btn-primary w-full py-2" disabled={isSubmitting}>
           {isSubmitting ? "Signing in…" : "Sign in"}
         </button>
+        <p className="text-center">
+          <Link href="/forgot-password" className="text-tide-700 underline-offset-2 hover:underline dark:text-tide-300">
+            Forgot your password?
+          </Link>
+        </p>
       </form>
       {demo && (
         <section aria-labelledby="demo-heading" className="mt-6 border-t border-ink-200 pt-4 dark:border-ink-800">

@@ -5,6 +5,7 @@ const SECTIONS = [
   { href: "/admin/vessels", label: "Vessels" },
   { href: "/admin/people", label: "People" },
   { href: "/admin/tolerance-rules", label: "Tolerance rules" },
+  { href: "/admin/mail", label: "Mail" },
   { href: "/admin/settings", label: "Settings" },
 ] as const;
 

@@ -141,6 +141,10 @@ export function PeopleAdmin() {
                 <td className={TD}>
                   {p.disabled ? (
                     <span className="font-semibold text-alarm-700 dark:text-alarm-300">disabled</span>
+                  ) : p.invitedAt ? (
+                    <span className="font-medium text-brass-700 dark:text-brass-300" title="No password chosen yet">
+                      invited
+                    </span>
                   ) : (
                     <span className="font-medium text-go-700 dark:text-go-300">active</span>
                   )}

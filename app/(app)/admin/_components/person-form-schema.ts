@@ -6,8 +6,20 @@ import { suggestPassword } from "@/server/admin/rules";
 
 const shared = { name: PersonName, role: MemberRole, rank: Rank, vesselIds: VesselIds };
 
-export const NewPersonForm = z.object({ ...shared, email: Email, initialPassword: Password });
-export const EditPersonForm = z.object({ ...shared, email: z.string(), initialPassword: z.string() });
+export const NewPersonForm = z
+  .object({ ...shared, email: Email, access: z.enum(["invite", "password"]), initialPassword: z.string() })
+  .superRefine((v, ctx) => {
+    if (v.access !== "password") return;
+    const checked = Password.safeParse(v.initialPassword);
+    if (!checked.success)
+      ctx.addIssue({ code: "custom", path: ["initialPassword"], message: checked.error.issues[0]!.message });
+  });
+export const EditPersonForm = z.object({
+  ...shared,
+  email: z.string(),
+  access: z.enum(["invite", "password"]),
+  initialPassword: z.string(),
+});
 export type PersonFormInput = z.input<typeof NewPersonForm>;
 export type PersonFormValues = z.output<typeof NewPersonForm>;
 

@@ -36,24 +36,31 @@ export function PersonForm({ person, vessels, onDone }: Props) {
       role: person?.role ?? "engineer",
       rank: person?.rank ?? "",
       vesselIds: person?.vessels.map((v) => v.id) ?? [],
+      access: "invite",
       initialPassword: "",
     },
   });
   const { errors, isSubmitting } = formState;
   const role = useWatch({ control, name: "role" });
+  const access = useWatch({ control, name: "access" });
   // Retired vessels are offered only where the person is still assigned to one.
   const offered = vessels.filter((v) => !v.retiredAt || person?.vessels.some((pv) => pv.id === v.id));
 
-  async function onSubmit({ initialPassword, email, ...values }: PersonFormValues) {
+  async function onSubmit({ initialPassword, email, access, ...values }: PersonFormValues) {
     setProblem(null);
     try {
       if (person) {
         const saved = await update.mutateAsync({ id: person.id, changes: values });
         onDone(`${saved.name} saved.`);
       } else {
-        const saved = await create.mutateAsync({ ...values, email, initialPassword });
+        const invite = access === "invite";
+        const saved = await create.mutateAsync(
+          invite ? { ...values, email, invite } : { ...values, email, initialPassword },
+        );
         onDone(
-          `${saved.name} added. Hand over the initial password in person or by phone, never in the same e-mail as the address.`,
+          invite
+            ? `${saved.name} added; an invitation is on its way to ${saved.email}. The link works for a week.`
+            : `${saved.name} added. Hand over the initial password in person or by phone, never in the same e-mail as the address.`,
         );
       }
     } catch (error) {
@@ -149,6 +156,30 @@ export function PersonForm({ person, vessels, onDone }: Props) {
       </fieldset>
 
       {!person && (
+        <fieldset>
+          <legend className="label">How they get in</legend>
+          <label className="flex items-start gap-2 py-0.5">
+            <input type="radio" value="invite" className="mt-1 accent-tide-600" {...register("access")} />
+            <span>
+              Send an invitation by e-mail
+              <span className="block text-xs text-ink-500 dark:text-ink-400">
+                They choose their own password through a link that works for a week.
+              </span>
+            </span>
+          </label>
+          <label className="flex items-start gap-2 py-0.5">
+            <input type="radio" value="password" className="mt-1 accent-tide-600" {...register("access")} />
+            <span>
+              Set a first password now
+              <span className="block text-xs text-ink-500 dark:text-ink-400">
+                For someone without e-mail on board yet; hand it over in person.
+              </span>
+            </span>
+          </label>
+        </fieldset>
+      )}
+
+      {!person && access === "password" && (
         <PasswordField
           id="person-initialPassword"
           label="Initial password"
@@ -158,7 +189,11 @@ export function PersonForm({ person, vessels, onDone }: Props) {
         />
       )}
 
-      <FormActions submitLabel={person ? "Save" : "Add person"} busy={isSubmitting} problem={problem} />
+      <FormActions
+        submitLabel={person ? "Save" : access === "invite" ? "Add and invite" : "Add person"}
+        busy={isSubmitting}
+        problem={problem}
+      />
     </form>
   );
 }

@@ -79,3 +79,13 @@ export function useUpdatePerson() {
     onSuccess: refresh,
   });
 }
+
+/** E-mails a person a one-time link to choose a password (the invitation again while unanswered). */
+export function useSendPasswordLink() {
+  const refresh = useRefreshAdmin();
+  return useMutation({
+    mutationFn: (id: string) =>
+      fetchJson<{ sent: "invitation" | "password-reset" }>(`/api/admin/users/${id}/password-link`, { method: "POST" }),
+    onSuccess: refresh,
+  });
+}

@@ -1,3 +1,4 @@
+import { useId } from "react";
 import type { RoutineCaution } from "@/db/schema";
 
 // Keelson's own wording of the usual precautions; the ship's safety management system has the procedure.
@@ -29,12 +30,14 @@ const CAUTION: Record<RoutineCaution, { title: string; text: string }> = {
 };
 
 export function Cautions({ cautions }: { cautions: readonly RoutineCaution[] }) {
+  // One id per instance: the work-package sheet shows a cautions box for every job.
+  const headingId = useId();
   return (
     <section
-      aria-labelledby="cautions-heading"
+      aria-labelledby={headingId}
       className="rounded-lg border-2 border-brass-500 bg-brass-100/60 p-4 text-ink-900 dark:border-brass-500 dark:bg-brass-700/20 dark:text-ink-50 print:border-black print:bg-white"
     >
-      <h2 id="cautions-heading" className="flex items-center gap-2 text-base font-bold">
+      <h2 id={headingId} className="flex items-center gap-2 text-base font-bold">
         <span aria-hidden="true">⚠</span> Before you start
       </h2>
       {cautions.length > 0 ? (

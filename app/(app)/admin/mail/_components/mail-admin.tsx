@@ -1,0 +1,257 @@
+"use client";
+
+import { format } from "date-fns";
+import { useState } from "react";
+import { LoadProblem } from "@/app/_components/notice";
+import { ageOf } from "@/app/_components/relative-age";
+import type { AdminMail, CaughtMessage, OutboxRow } from "@/server/mail/contract";
+import { MAIL_KIND_LABEL } from "@/server/mail/kinds";
+import { TableSkeleton } from "../../_components/table-skeleton";
+import { useAdminMail } from "./use-admin-mail";
+
+const TH = "px-3 py-2 font-semibold";
+const TD = "px-3 py-2 align-top";
+
+const STATUS_TONE: Record<OutboxRow["status"], string> = {
+  pending: "text-brass-700 dark:text-brass-300",
+  sending: "text-tide-700 dark:text-tide-300",
+  sent: "text-go-700 dark:text-go-300",
+  failed: "text-alarm-700 dark:text-alarm-300",
+};
+
+const when = (iso: string) => format(new Date(iso), "d MMM yyyy, HH:mm");
+
+export function MailAdmin() {
+  const mail = useAdminMail();
+  if (mail.isPending) return <TableSkeleton label="Loading the mail" />;
+  if (mail.error) return <LoadProblem what="mail" error={mail.error} />;
+  return (
+    <div className="grid gap-6">
+      <Delivery data={mail.data} refreshing={mail.isFetching} onRefresh={() => void mail.refetch()} />
+      {mail.data.caught && (
+        <CaughtMail messages={mail.data.caught} problem={mail.data.caughtProblem} now={new Date(mail.dataUpdatedAt)} />
+      )}
+      <Outbox rows={mail.data.outbox} />
+    </div>
+  );
+}
+
+function Delivery({ data, refreshing, onRefresh }: { data: AdminMail; refreshing: boolean; onRefresh: () => void }) {
+  return (
+    <div className="flex flex-wrap items-start justify-between gap-3">
+      <div className="max-w-3xl">
+        <h2 className="text-base font-semibold">{data.delivery.kind === "fake" ? "Caught mail" : "Mail"}</h2>
+        <p className="text-ink-600 dark:text-ink-300">
+          {data.delivery.kind === "fake" ? (
+            <>
+              This is a development set-up: messages go to the local mail catcher, not to anyone’s inbox. The catcher
+              keeps them for you to read here.
+            </>
+          ) : (
+            <>
+              Messages go to the configured relay,{" "}
+              <span className="font-mono text-xs">
+                {data.delivery.host}:{data.delivery.port}
+              </span>
+              , and from there to people’s inboxes. Below is what Keelson queued and how sending went.
+            </>
+          )}
+        </p>
+      </div>
+      <button type="button" className="btn-quiet" onClick={onRefresh} disabled={refreshing}>
+        {refreshing ? "Refreshing…" : "Refresh"}
+      </button>
+    </div>
+  );
+}
+
+function CaughtMail({ messages, problem, now }: { messages: CaughtMessage[]; problem: string | null; now: Date }) {
+  const [openId, setOpenId] = useState<string | null>(null);
+  const open = messages.find((m) => m.id === openId) ?? messages[0] ?? null;
+
+  return (
+    <section aria-labelledby="caught-heading">
+      <h3 id="caught-heading" className="mb-2 font-semibold">
+        Caught by the mail catcher{" "}
+        <span className="font-normal text-ink-500 dark:text-ink-400">({messages.length})</span>
+      </h3>
+      {problem && (
+        <p
+          role="alert"
+          className="mb-3 rounded-md bg-alarm-50 px-3 py-2 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
+        >
+          {problem}
+        </p>
+      )}
+      {messages.length === 0 ? (
+        <p className="panel p-4 text-ink-500 dark:text-ink-400">
+          Nothing caught yet. Reminders, digests and invitations appear here once the worker has sent them.
+        </p>
+      ) : (
+        <div className="grid gap-3 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
+          <ul
+            className="max-h-[36rem] divide-y divide-ink-100 self-start overflow-y-auto panel dark:divide-ink-850"
+            aria-label="Caught messages"
+          >
+            {messages.map((m) => {
+              const current = open?.id === m.id;
+              return (
+                <li key={m.id}>
+                  <button
+                    type="button"
+                    aria-current={current ? "true" : undefined}
+                    onClick={() => setOpenId(m.id)}
+                    className={`block w-full px-3 py-2 text-left hover:bg-ink-50 dark:hover:bg-ink-850 ${
+                      current ? "bg-tide-50 dark:bg-tide-900/60" : ""
+                    }`}
+                  >
+                    <span className="block truncate font-semibold">{m.subject || "(no subject)"}</span>
+                    <span className="flex justify-between gap-2 text-xs text-ink-500 dark:text-ink-400">
+                      <span className="truncate">to {m.to.join(", ")}</span>
+                      <time dateTime={m.date} title={when(m.date)} className="shrink-0">
+                        {ageOf(m.date, now)}
+                      </time>
+                    </span>
+                  </button>
+                </li>
+              );
+            })}
+          </ul>
+          {open && <MessageViewer key={open.id} message={open} />}
+        </div>
+      )}
+    </section>
+  );
+}
+
+function MessageViewer({ message }: { message: CaughtMessage }) {
+  const [view, setView] = useState<"html" | "text">(message.html ? "html" : "text");
+  const tab = (which: "html" | "text", label: string) => (
+    <button
+      type="button"
+      role="tab"
+      aria-selected={view === which}
+      disabled={which === "html" && !message.html}
+      onClick={() => setView(which)}
+      className={`border-b-2 px-3 py-1.5 font-semibold disabled:opacity-40 ${
+        view === which
+          ? "border-brass-500 text-ink-900 dark:text-white"
+          : "border-transparent text-ink-500 hover:text-ink-800 dark:text-ink-400 dark:hover:text-ink-100"
+      }`}
+    >
+      {label}
+    </button>
+  );
+  return (
+    <article className="flex min-w-0 flex-col panel" aria-label={`Message: ${message.subject}`}>
+      <header className="border-b border-ink-200 px-4 py-3 dark:border-ink-800">
+        <h4 className="font-semibold">{message.subject || "(no subject)"}</h4>
+        <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 text-xs text-ink-600 dark:text-ink-300">
+          <dt className="font-semibold">From</dt>
+          <dd className="truncate">{message.from}</dd>
+          <dt className="font-semibold">To</dt>
+          <dd className="truncate">{message.to.join(", ")}</dd>
+          <dt className="font-semibold">Caught</dt>
+          <dd>{when(message.date)}</dd>
+          <dt className="font-semibold">Message-ID</dt>
+          <dd className="truncate font-mono">{message.messageId ?? "—"}</dd>
+        </dl>
+        <div role="tablist" aria-label="Show the message as" className="mt-2 -mb-3 flex gap-1">
+          {tab("html", "HTML")}
+          {tab("text", "Plain text")}
+        </div>
+      </header>
+      {view === "html" && message.html ? (
+        // The message is untrusted markup: an empty sandbox runs no script, submits no form.
+        // Light background on purpose: mail is designed for a white page.
+        <iframe
+          title={`HTML of “${message.subject}”`}
+          sandbox=""
+          srcDoc={message.html}
+          className="h-[32rem] w-full rounded-b-lg bg-white"
+        />
+      ) : (
+        <pre className="max-h-[32rem] overflow-auto px-4 py-3 font-mono text-xs whitespace-pre-wrap">
+          {message.text}
+        </pre>
+      )}
+    </article>
+  );
+}
+
+function Outbox({ rows }: { rows: OutboxRow[] }) {
+  const counts = rows.reduce<Record<string, number>>(
+    (acc, r) => ({ ...acc, [r.status]: (acc[r.status] ?? 0) + 1 }),
+    {},
+  );
+  return (
+    <section aria-labelledby="outbox-heading">
+      <h3 id="outbox-heading" className="font-semibold">
+        Outbox
+      </h3>
+      <p className="mb-2 text-ink-500 dark:text-ink-400">
+        Every message is written here before it is sent, once per person and subject, and retried with growing pauses
+        when the relay fails.{" "}
+        {rows.length > 0 &&
+          (["pending", "sending", "sent", "failed"] as const)
+            .filter((s) => counts[s])
+            .map((s) => `${counts[s]} ${s}`)
+            .join(", ")}
+        {rows.length === 100 && " (the latest 100)"}
+      </p>
+      <div className="overflow-x-auto panel">
+        <table className="w-full text-left">
+          <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
+            <tr className="border-b border-ink-200 dark:border-ink-800">
+              <th scope="col" className={`${TH} pl-4`}>
+                Message
+              </th>
+              <th scope="col" className={TH}>
+                Status
+              </th>
+              <th scope="col" className={`${TH} text-right`}>
+                Attempts
+              </th>
+              <th scope="col" className={`${TH} pr-4`}>
+                Last error
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.length === 0 && (
+              <tr>
+                <td colSpan={4} className="px-4 py-6 text-ink-500 dark:text-ink-400">
+                  Nothing queued yet.
+                </td>
+              </tr>
+            )}
+            {rows.map((r) => (
+              <tr key={r.id} className="border-b border-ink-100 last:border-0 dark:border-ink-850">
+                <th scope="row" className={`${TD} pl-4 font-normal`}>
+                  <span className="block font-semibold">{r.subject}</span>
+                  <span className="block text-xs text-ink-500 dark:text-ink-400">
+                    {MAIL_KIND_LABEL[r.kind]} · to {r.to} · queued {when(r.createdAt)}
+                  </span>
+                </th>
+                <td className={`${TD} whitespace-nowrap`}>
+                  <span className={`font-semibold ${STATUS_TONE[r.status]}`}>{r.status}</span>
+                  <span className="block text-xs text-ink-500 dark:text-ink-400">
+                    {r.status === "sent" && r.sentAt
+                      ? when(r.sentAt)
+                      : r.status === "pending"
+                        ? `next try ${when(r.nextAttemptAt)}`
+                        : ""}
+                  </span>
+                </td>
+                <td className={`${TD} text-right tabular-nums`}>{r.attempts}</td>
+                <td className={`${TD} pr-4 text-xs break-words text-ink-600 dark:text-ink-300`}>
+                  {r.lastError ?? <span className="text-ink-400">—</span>}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </section>
+  );
+}

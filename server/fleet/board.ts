@@ -1,0 +1,151 @@
+// The Fleet board: every active vessel of the company from its latest snapshot, 90 days of
+// snapshots for the trends, and the requests awaiting a decision. Two snapshot queries for the
+// whole fleet (no query per vessel) and the deferral list; it never reads work orders one by one.
+import "server-only";
+import { and, asc, eq, gte, sql } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { vesselSnapshot } from "@/db/schema";
+import type { Access } from "@/server/auth/access";
+import { listFleetPendingDeferrals } from "@/server/deferrals/queries";
+import type { FleetBoard, FleetBoardPending, FleetBoardVessel } from "./contract";
+import { boardTier, compareForBoard, daysSinceReading, stoppedReporting, trendDays } from "./figures";
+
+type LatestRow = {
+  id: string;
+  name: string;
+  code: string;
+  missing_readings_hours: number;
+  day: string | null;
+  scheduled: number | null;
+  window_open: number | null;
+  late: number | null;
+  out_of_tolerance: number | null;
+  deferred: number | null;
+  critical_late: number | null;
+  critical_out_of_tolerance: number | null;
+  class_late: number | null;
+  class_out_of_tolerance: number | null;
+  last_reading_at: string | Date | null;
+  completed90: number | null;
+  on_time_rate: string | number | null;
+};
+
+/** Each active vessel with its latest snapshot (today's once the worker has run), by index. */
+export function latestSnapshotsQuery(companyId: string) {
+  return sql`
+    select v.id, v.name, v.code, co.missing_readings_hours, s.day, s.scheduled, s.window_open, s.late,
+           s.out_of_tolerance, s.deferred, s.critical_late, s.critical_out_of_tolerance, s.class_late,
+           s.class_out_of_tolerance, s.last_reading_at, s.completed90, s.on_time_rate
+    from vessel v
+    join company co on co.id = v.company_id
+    left join lateral (
+      select * from vessel_snapshot vs
+      where vs.company_id = v.company_id and vs.vessel_id = v.id
+      order by vs.day desc limit 1
+    ) s on true
+    where v.company_id = ${companyId} and v.retired_at is null`;
+}
+
+export async function loadFleetBoard(access: Access, now = new Date()): Promise<FleetBoard> {
+  const db = getDb();
+  const companyId = access.company.id;
+  const days = trendDays(now);
+  const [latest, history, pending] = await Promise.all([
+    db.execute<LatestRow>(latestSnapshotsQuery(companyId)),
+    db
+      .select({
+        vesselId: vesselSnapshot.vesselId,
+        day: vesselSnapshot.day,
+        late: vesselSnapshot.late,
+        outOfTolerance: vesselSnapshot.outOfTolerance,
+        completed90: vesselSnapshot.completed90,
+        onTimeRate: vesselSnapshot.onTimeRate,
+      })
+      .from(vesselSnapshot)
+      .where(and(eq(vesselSnapshot.companyId, companyId), gte(vesselSnapshot.day, days[0]!)))
+      .orderBy(asc(vesselSnapshot.day)),
+    listFleetPendingDeferrals(access),
+  ]);
+
+  // Office roles see the whole fleet; anyone else given fleet:read would see their own vessels.
+  const mayOpen = (id: string) => access.assignedVesselIds === null || access.assignedVesselIds.includes(id);
+  const rows = latest.rows.filter((r) => mayOpen(r.id));
+  const missingReadingsHours = rows[0]?.missing_readings_hours ?? 36;
+  const dayIndex = new Map(days.map((d, i) => [d, i]));
+  const pendingByVessel = new Map<string, number>();
+  for (const p of pending) pendingByVessel.set(p.vessel.id, (pendingByVessel.get(p.vessel.id) ?? 0) + 1);
+
+  const trends = new Map<string, (number | null)[]>(rows.map((r) => [r.id, days.map(() => null)]));
+  const fleetOut: (number | null)[] = days.map(() => null);
+  const fleetLate: (number | null)[] = days.map(() => null);
+  const fleetDone = days.map(() => ({ completed: 0, onTime: 0 }));
+  for (const h of history) {
+    const i = dayIndex.get(h.day);
+    const trend = trends.get(h.vesselId);
+    if (i === undefined || !trend) continue;
+    trend[i] = h.late + h.outOfTolerance;
+    fleetOut[i] = (fleetOut[i] ?? 0) + h.outOfTolerance;
+    fleetLate[i] = (fleetLate[i] ?? 0) + h.late;
+    if (h.onTimeRate !== null) {
+      fleetDone[i]!.completed += h.completed90;
+      fleetDone[i]!.onTime += Math.round(h.onTimeRate * h.completed90);
+    }
+  }
+
+  const vessels: FleetBoardVessel[] = rows.map((r) => {
+    const lastReadingAt = r.last_reading_at === null ? null : new Date(r.last_reading_at);
+    const figures = {
+      name: r.name,
+      late: r.late ?? 0,
+      outOfTolerance: r.out_of_tolerance ?? 0,
+      criticalLate: r.critical_late ?? 0,
+      criticalOutOfTolerance: r.critical_out_of_tolerance ?? 0,
+      classLate: r.class_late ?? 0,
+      classOutOfTolerance: r.class_out_of_tolerance ?? 0,
+    };
+    return {
+      id: r.id,
+      code: r.code,
+      ...figures,
+      day: r.day,
+      scheduled: r.scheduled ?? 0,
+      windowOpen: r.window_open ?? 0,
+      deferred: r.deferred ?? 0,
+      lastReadingAt: lastReadingAt?.toISOString() ?? null,
+      daysSinceReading: daysSinceReading(lastReadingAt, now),
+      stoppedReporting: stoppedReporting(lastReadingAt, now, r.missing_readings_hours),
+      completed90: r.completed90 ?? 0,
+      onTimeRate: r.on_time_rate === null ? null : Number(r.on_time_rate),
+      pendingDeferrals: pendingByVessel.get(r.id) ?? 0,
+      tier: boardTier(figures),
+      trend: trends.get(r.id)!,
+    };
+  });
+  vessels.sort(compareForBoard);
+
+  const pendingDeferrals: FleetBoardPending[] = pending
+    .filter((p) => mayOpen(p.vessel.id))
+    .map((p) => ({
+      id: p.id,
+      vessel: p.vessel,
+      workOrder: p.workOrder,
+      proposedDueDay: p.proposedDueDay,
+      proposedDueHours: p.proposedDueHours,
+      needsOffice: p.needsOffice,
+      requestedBy: p.requestedBy,
+      requestedAt: p.requestedAt,
+    }));
+
+  return {
+    generatedAt: now.toISOString(),
+    missingReadingsHours,
+    days,
+    vessels,
+    fleet: {
+      outOfTolerance: fleetOut,
+      late: fleetLate,
+      onTimeRate: fleetDone.map((d) => (d.completed ? Math.round((d.onTime / d.completed) * 1000) / 1000 : null)),
+    },
+    pendingDeferrals,
+  };
+}

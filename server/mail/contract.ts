@@ -1,0 +1,36 @@
+// What the admin's "Caught mail" page receives (GET /api/admin/mail). Types only: safe in the client.
+import type { MailKind } from "./outbox";
+
+export type CaughtMessage = {
+  id: string;
+  messageId: string | null;
+  from: string;
+  to: string[];
+  subject: string;
+  date: string;
+  text: string;
+  html: string | null;
+};
+
+export type OutboxRow = {
+  id: string;
+  to: string;
+  kind: MailKind;
+  subject: string;
+  status: "pending" | "sending" | "sent" | "failed";
+  attempts: number;
+  lastError: string | null;
+  nextAttemptAt: string;
+  sentAt: string | null;
+  createdAt: string;
+};
+
+export type AdminMail = {
+  /** Where messages go: the local fake (its messages listed) or the configured relay. */
+  delivery: { kind: "fake"; url: string } | { kind: "relay"; host: string; port: number };
+  /** The company's messages the fake caught, newest first; null with a relay. */
+  caught: CaughtMessage[] | null;
+  /** Set when the fake did not answer. */
+  caughtProblem: string | null;
+  outbox: OutboxRow[];
+};

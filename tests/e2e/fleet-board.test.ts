@@ -1,0 +1,127 @@
+// The demo superintendent opens the Fleet board, sees every demo vessel, drills into a vessel's
+// Backlog filtered the same way as the figure clicked, and rejects a pending deferral from the
+// board's list on its work order page. Writes to the demo data (one seeded request on Corran Ness
+// is decided; the other browser tests count on Aster Gale's).
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO_PASSWORD, demoVessels } from "@/db/seed/scenario";
+import type { FleetBoard } from "@/server/fleet/contract";
+import { BASE_URL, openPage, screenshot, signInThroughForm } from "../support/browser";
+
+let browser: Browser;
+let page: Page;
+let board: FleetBoard;
+
+beforeAll(async () => {
+  ({ browser, page } = await openPage());
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function loadBoard(): Promise<FleetBoard> {
+  const res = await page.request.get(`${BASE_URL}/api/fleet/board`);
+  expect(res.status()).toBe(200);
+  return (await res.json()) as FleetBoard;
+}
+
+describe("the superintendent's Fleet board", () => {
+  it("is the office's landing: every demo vessel on one screen, in the board's order", async () => {
+    await signInThroughForm(page, "super@brightwater.example", DEMO_PASSWORD);
+    expect(await page.getByRole("link", { name: /Fleet board →/ }).count()).toBe(1);
+    await page.getByRole("navigation", { name: "Company" }).getByRole("link", { name: "Fleet board" }).click();
+    await page.waitForURL(/\/fleet$/);
+    const rows = page.locator('[data-testid="fleet-table"] tbody tr');
+    await expect.poll(() => rows.count(), { timeout: 15_000 }).toBe(demoVessels.length);
+    board = await loadBoard();
+    // The rows, top to bottom, are the API's vessels in its order, and they are the demo's.
+    const codes = await rows.evaluateAll((trs) => trs.map((tr) => tr.getAttribute("data-vessel")));
+    expect(codes).toEqual(board.vessels.map((v) => v.code));
+    expect([...codes].sort()).toEqual(demoVessels.map((v) => v.code).sort());
+    for (const v of demoVessels) expect(await rows.filter({ hasText: v.name }).count(), v.name).toBe(1);
+    // The fleet chart has the seeded 90 days of history.
+    const chart = page.getByTestId("fleet-trend-chart");
+    expect(Number(await chart.getAttribute("data-points"))).toBe(90);
+    expect(await page.getByTestId("trend-sparkline").count()).toBe(demoVessels.length);
+    // The seed's last readings are at 09:00 ship's time the day before: depending on the hour of
+    // the run a vessel may be past the company's 36 h. The flag shows for exactly those the API names.
+    expect(await page.getByTestId("stopped-reporting").count()).toBe(
+      board.vessels.filter((v) => v.stoppedReporting).length,
+    );
+    await screenshot(page, "fleet-board");
+    await page.setViewportSize({ width: 820, height: 1180 });
+    await page.evaluate(() => document.documentElement.classList.add("dark"));
+    await screenshot(page, "fleet-board-dark-tablet");
+    await page.evaluate(() => document.documentElement.classList.remove("dark"));
+    await page.setViewportSize({ width: 1280, height: 900 });
+  });
+
+  it("drills into one vessel's Backlog, filtered the same way as the figure clicked", async () => {
+    // The first vessel with overdue critical work, else the first with anything overdue.
+    const v =
+      board.vessels.find((x) => x.criticalOutOfTolerance > 0) ?? board.vessels.find((x) => x.outOfTolerance > 0);
+    expect(v, "a demo vessel with work out of tolerance").toBeDefined();
+    const critical = v!.criticalOutOfTolerance > 0;
+    const figure = critical ? v!.criticalOutOfTolerance : v!.outOfTolerance;
+    const what = critical ? "critical work out of tolerance" : "out of tolerance";
+    await page.getByRole("link", { name: `${figure} ${what} on ${v!.name}: open its Backlog` }).click();
+    await page.waitForURL(/\/backlog\?/);
+    const url = new URL(page.url());
+    expect(url.pathname).toBe(`/vessels/${v!.id}/backlog`);
+    expect(url.searchParams.get("state")).toBe("out-of-tolerance");
+    expect(url.searchParams.get("critical")).toBe(critical ? "true" : null);
+    // The Backlog, from the live work orders, finds as many as the board's snapshot said.
+    await expect
+      .poll(() => page.locator("#backlog-heading").textContent(), { timeout: 15_000 })
+      .toMatch(new RegExp(`^Backlog\\s*${figure} work orders?\\b`));
+    const states = await page
+      .locator("tbody [data-state]")
+      .evaluateAll((els) => els.map((e) => e.getAttribute("data-state")));
+    expect(states.length).toBeGreaterThan(0);
+    expect(new Set(states)).toEqual(new Set(["out-of-tolerance"]));
+    await screenshot(page, "fleet-board-drill-down");
+
+    // The vessel's name opens the overdue list: out of tolerance and late together.
+    await page.goto(`${BASE_URL}/fleet`);
+    await page.locator(`tr[data-vessel="${v!.code}"] th a`).click();
+    await page.waitForURL(/\/backlog\?/);
+    expect(new URL(page.url()).searchParams.get("state")).toBe("out-of-tolerance,late");
+  });
+
+  it("decides a pending deferral from the board's list on the work order page", async () => {
+    await page.goto(`${BASE_URL}/fleet`);
+    const list = page.getByTestId("pending-deferrals");
+    await list.waitFor();
+    board = await loadBoard();
+    // A seeded request on Corran Ness: the deferral browser test counts on Aster Gale's.
+    const pending =
+      board.pendingDeferrals.find((d) => d.vessel.code === "CN") ??
+      board.pendingDeferrals.find((d) => d.vessel.code !== "AG");
+    expect(pending, "a seeded pending request off Aster Gale").toBeDefined();
+    expect(await list.locator("li").count()).toBe(board.pendingDeferrals.length);
+    await list.getByRole("link", { name: pending!.workOrder.number }).click();
+    await page.waitForURL(`${BASE_URL}/vessels/${pending!.vessel.id}/work-orders/${pending!.workOrder.id}`);
+
+    await page
+      .getByLabel("Decision note (needed to reject)")
+      .fill("Not agreed: book the survey at this port; the agent can arrange the attendance.");
+    await page.getByRole("button", { name: "Reject deferral" }).click();
+    await expect
+      .poll(() => page.getByText(`Deferral rejected: ${pending!.workOrder.number} keeps its limit.`).count(), {
+        timeout: 15_000,
+      })
+      .toBe(1);
+    await screenshot(page, "fleet-board-deferral-rejected");
+
+    // Back on the board the request is no longer pending.
+    await page.goto(`${BASE_URL}/fleet`);
+    await page.getByTestId("fleet-table").waitFor();
+    await expect
+      .poll(() => page.getByRole("link", { name: pending!.workOrder.number }).count(), { timeout: 15_000 })
+      .toBe(0);
+    const after = await loadBoard();
+    expect(after.pendingDeferrals.map((d) => d.id)).not.toContain(pending!.id);
+    expect(after.pendingDeferrals).toHaveLength(board.pendingDeferrals.length - 1);
+    await screenshot(page, "fleet-board-after-decision");
+  });
+});
