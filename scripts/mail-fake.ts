@@ -17,18 +17,9 @@ import { createServer, type ServerResponse } from "node:http";
 import path from "node:path";
 import { simpleParser } from "mailparser";
 import { SMTPServer, type SMTPServerAddress } from "smtp-server";
+import type { CaughtMessage } from "../server/mail/contract";
 
-type Caught = {
-  id: string;
-  messageId: string | null;
-  from: string;
-  to: string[];
-  subject: string;
-  date: string;
-  text: string;
-  html: string | null;
-  headers: Record<string, string>;
-};
+type Caught = CaughtMessage & { headers: Record<string, string> };
 
 const smtpPort = Number(process.env.KEELSON_SMTP_PORT ?? 2525);
 const apiPort = Number(process.env.KEELSON_MAIL_FAKE_PORT ?? 2580);

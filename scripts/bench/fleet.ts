@@ -355,7 +355,7 @@ const office = await signIn(f.users.superintendent.email, PASSWORD);
 const trendFrom = day(new Date(now.getTime() - 89 * DAY));
 let boardVessels = 0;
 backlog.push({
-  what: `GET fleet board (${vessels.length} vessels, 90-day trend)`,
+  what: "GET fleet board (every vessel of the company with its 90-day trend)",
   handler: await measure(RUNS, async () => {
     const r = await api<{ vessels: unknown[] }>(office, "GET", "/api/fleet/board");
     if (r.status !== 200) throw new Error(`board ${r.status} ${JSON.stringify(r.body)}`);
@@ -385,7 +385,7 @@ backlog.push({
     ]),
   ),
   get rows() {
-    return boardVessels;
+    return boardVessels; // vessels on the board
   },
 });
 

@@ -1,6 +1,7 @@
 // What the admin's "Caught mail" page receives (GET /api/admin/mail). Types only: safe in the client.
 import type { MailKind } from "./outbox";
 
+/** A message the local SMTP fake caught, as its HTTP API answers (scripts/mail-fake.ts). */
 export type CaughtMessage = {
   id: string;
   messageId: string | null;
@@ -10,6 +11,7 @@ export type CaughtMessage = {
   date: string;
   text: string;
   html: string | null;
+  headers?: Record<string, string>;
 };
 
 export type OutboxRow = {

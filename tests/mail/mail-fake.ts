@@ -4,21 +4,12 @@ import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
+import type { CaughtMessage } from "@/server/mail/contract";
 import { enqueueMail, type OutgoingMail } from "@/server/mail/outbox";
 
 const FAKE = process.env.KEELSON_MAIL_FAKE_URL;
 
-export type Caught = {
-  id: string;
-  messageId: string | null;
-  from: string;
-  to: string[];
-  subject: string;
-  date: string;
-  text: string;
-  html: string | null;
-  headers: Record<string, string>;
-};
+export type Caught = CaughtMessage & { headers: Record<string, string> };
 
 function fake(path: string): string {
   if (!FAKE) throw new Error("KEELSON_MAIL_FAKE_URL is not set: run the tests through scripts/test.sh");

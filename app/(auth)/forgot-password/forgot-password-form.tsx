@@ -6,6 +6,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
 import { authClient } from "@/app/_components/auth-client";
+import { AuthAlert } from "../_components/auth-alert";
 import { describedBy, Field } from "@/app/_components/forms/field";
 
 const ForgotInput = z.object({ email: z.email({ message: "Enter your e-mail address, e.g. name@company.com." }) });
@@ -56,14 +57,7 @@ export function ForgotPasswordForm() {
           {...register("email")}
         />
       </Field>
-      {failure && (
-        <p
-          role="alert"
-          className="rounded-md bg-alarm-50 px-3 py-2 text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
-        >
-          {failure}
-        </p>
-      )}
+      {failure && <AuthAlert>{failure}</AuthAlert>}
       <button type="submit" className="btn-primary w-full py-2" disabled={isSubmitting}>
         {isSubmitting ? "Sending…" : "E-mail me a link"}
       </button>

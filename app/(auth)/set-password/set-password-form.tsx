@@ -6,6 +6,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
 import { authClient } from "@/app/_components/auth-client";
+import { AuthAlert } from "../_components/auth-alert";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { Password } from "@/server/admin/contract";
 
@@ -66,15 +67,12 @@ export function SetPasswordForm({ token }: { token: string }) {
         />
       </Field>
       {failure && (
-        <p
-          role="alert"
-          className="rounded-md bg-alarm-50 px-3 py-2 text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
-        >
+        <AuthAlert>
           {failure}{" "}
           <Link href="/forgot-password" className="underline">
             Send me a new link
           </Link>
-        </p>
+        </AuthAlert>
       )}
       <button type="submit" className="btn-primary w-full py-2" disabled={isSubmitting}>
         {isSubmitting ? "Saving…" : "Set my password"}

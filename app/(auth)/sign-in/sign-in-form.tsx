@@ -7,6 +7,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
 import { authClient } from "@/app/_components/auth-client";
+import { AuthAlert } from "../_components/auth-alert";
 
 const SignInInput = z.object({
   email: z.email({ message: "Enter your e-mail address, e.g. name@company.com." }),
@@ -79,14 +80,7 @@ export function SignInForm({ demo }: { demo: Demo }) {
             </p>
           )}
         </div>
-        {failure && (
-          <p
-            role="alert"
-            className="rounded-md bg-alarm-50 px-3 py-2 text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300"
-          >
-            {failure}
-          </p>
-        )}
+        {failure && <AuthAlert>{failure}</AuthAlert>}
         <button type="submit" className="btn-primary w-full py-2" disabled={isSubmitting}>
           {isSubmitting ? "Signing in…" : "Sign in"}
         </button>
