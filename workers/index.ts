@@ -6,6 +6,7 @@ import { closeMailTransport } from "@/server/mail/transport";
 import { mailSend, stopMailFollowUp } from "./jobs/mail-send";
 import { recomputeFleet } from "./jobs/recompute-fleet";
 import { recomputeVessel } from "./jobs/recompute-vessel";
+import { reminders } from "./jobs/reminders";
 import { scheduledJobs } from "./jobs/schedule";
 
 const boss = new PgBoss({
@@ -47,6 +48,10 @@ for (const job of scheduledJobs) {
   });
   await boss.schedule(job.name, job.cron, {}, { tz: "UTC" });
 }
+
+// Reminders due while no worker ran (a morning digest, an escalation) are queued now rather than
+// at the next quarter hour; the job's singleton queue keeps two workers from running it together.
+await boss.send(reminders.name, {});
 
 // Mail queued while no worker ran goes out now, not at the next minute.
 mailSend
