@@ -1,7 +1,6 @@
 // Company → Mail: the administrator reads the messages the local fake caught for their company
 // (never another company's) and the outbox with its statuses, attempts and errors.
 import { inArray } from "drizzle-orm";
-import PgBoss from "pg-boss";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { mailOutbox } from "@/db/schema";
@@ -10,11 +9,10 @@ import { MAIL_KIND_LABEL } from "@/server/mail/kinds";
 import { appUrl, unsubscribeUrl } from "@/server/mail/links";
 import { renderMail } from "@/server/mail/render";
 import { enqueueMail } from "@/server/mail/outbox";
-import { mailSend } from "@/workers/jobs/mail-send";
 import { BASE_URL, openPage, screenshot, signInThroughForm } from "../support/browser";
 import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
 import { api, signIn } from "../support/http";
-import { failNext, freshAddress, testMail, waitFor } from "./mail-fake";
+import { askTheWorkerToSend, failNext, freshAddress, testMail, waitFor } from "./mail-fake";
 
 const db = testDb();
 let f: Fixture;
@@ -58,17 +56,8 @@ beforeAll(async () => {
   );
   await enqueueMail(db, testMail(f.companyId, failing, keys[1]!, { subject: FAILING }));
   await enqueueMail(db, testMail(other.companyId, other.users.admin.email, keys[2]!, { subject: OTHER }));
-  // What requestMailSend() does after a commit: the stack's worker sends within seconds. (No
-  // sendDueMail with a `now` of its own here: that would take sending.test.ts's rows.)
-  const boss = new PgBoss({
-    connectionString: process.env.DATABASE_URL!,
-    supervise: false,
-    schedule: false,
-    migrate: false,
-  });
-  await boss.start();
-  await boss.send(mailSend.name, {});
-  await boss.stop({ graceful: false, wait: true });
+  // (No sendDueMail with a `now` of its own here: that would take sending.test.ts's rows.)
+  await askTheWorkerToSend();
   await waitFor(
     "the worker to try all three",
     async () => {

@@ -2,10 +2,12 @@
 // running worker's reach.
 import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
+import PgBoss from "pg-boss";
 import type { Db } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
 import type { CaughtMessage } from "@/server/mail/contract";
 import { enqueueMail, type OutgoingMail } from "@/server/mail/outbox";
+import { mailSend } from "@/workers/jobs/mail-send";
 
 const FAKE = process.env.KEELSON_MAIL_FAKE_URL;
 
@@ -83,4 +85,21 @@ export async function waitFor<T>(
     if (Date.now() > until) throw new Error(`timed out waiting for ${what}`);
     await new Promise((resolve) => setTimeout(resolve, 50));
   }
+}
+
+/**
+ * What `requestMailSend()` does after a commit: a mail-send job for the stack's worker, which
+ * sends what is due within seconds instead of at its next minute's sweep. (A boss of its own,
+ * stopped at once, so the test process keeps no connection open.)
+ */
+export async function askTheWorkerToSend(): Promise<void> {
+  const boss = new PgBoss({
+    connectionString: process.env.DATABASE_URL!,
+    supervise: false,
+    schedule: false,
+    migrate: false,
+  });
+  await boss.start();
+  await boss.send(mailSend.name, {});
+  await boss.stop({ graceful: false, wait: true });
 }
