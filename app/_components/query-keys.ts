@@ -22,4 +22,7 @@ export const queryKeys = {
   adminVessels: () => ["admin", "vessels"] as const,
   adminPeople: () => ["admin", "people"] as const,
   adminToleranceRules: () => ["admin", "tolerance-rules"] as const,
+  adminMail: () => ["admin", "mail"] as const,
+  fleetBoard: () => ["fleet", "board"] as const,
+  fleetOverdue: (search: string) => ["fleet", "overdue", search] as const,
 };

@@ -32,6 +32,35 @@ export const demoUsers: { name: string; email: string; role: DemoRole; rank?: st
     vessels: ["CN"],
   },
   { name: "Priya Anand", email: "viewer@brightwater.example", role: "viewer", vessels: ["AG"] },
+  // Hallam Reach and Sula Meridian have their own engine officers, so every vessel gets its digests.
+  {
+    name: "Marisol Quintero",
+    email: "chief.hallam@brightwater.example",
+    role: "chief-engineer",
+    rank: "Chief engineer",
+    vessels: ["HR"],
+  },
+  {
+    name: "Dario Velez",
+    email: "second.hallam@brightwater.example",
+    role: "engineer",
+    rank: "Second engineer",
+    vessels: ["HR"],
+  },
+  {
+    name: "Aroha Tane",
+    email: "chief.sula@brightwater.example",
+    role: "chief-engineer",
+    rank: "Chief engineer",
+    vessels: ["SM"],
+  },
+  {
+    name: "Lewis Fenner",
+    email: "second.sula@brightwater.example",
+    role: "engineer",
+    rank: "Second engineer",
+    vessels: ["SM"],
+  },
 ];
 
 export type DemoCounter = {

@@ -5,6 +5,7 @@ import { notFound, redirect } from "next/navigation";
 import { cache } from "react";
 import { getDb } from "@/db/client";
 import { company, membership, vessel, vesselAssignment } from "@/db/schema";
+import { isUuid } from "@/server/http/ids";
 import { AppError } from "@/server/http/problem";
 import { auth } from "./auth";
 import { can, type Permission, type Role, seesWholeFleet } from "./roles";
@@ -17,7 +18,15 @@ export type Access = {
   assignedVesselIds: string[] | null;
 };
 
-export type VesselRef = { id: string; name: string; code: string; imoNumber: string; timeZone: string };
+export type VesselRef = {
+  id: string;
+  name: string;
+  code: string;
+  imoNumber: string;
+  timeZone: string;
+  /** Set when the vessel left the fleet: its records stay readable, nothing on board changes. */
+  retiredAt: Date | null;
+};
 
 async function loadAccess(requestHeaders: Headers): Promise<Access | null> {
   const session = await auth.api.getSession({ headers: requestHeaders });
@@ -64,7 +73,7 @@ export function mayOpenVessel(access: Access, vesselId: string): boolean {
  * they are not assigned to, and a malformed id all look the same from outside: not found.
  */
 export async function findAccessibleVessel(access: Access, vesselId: string): Promise<VesselRef | null> {
-  if (!/^[0-9a-f-]{36}$/i.test(vesselId) || !mayOpenVessel(access, vesselId)) return null;
+  if (!isUuid(vesselId) || !mayOpenVessel(access, vesselId)) return null;
   const [row] = await getDb()
     .select({
       id: vessel.id,
@@ -72,6 +81,7 @@ export async function findAccessibleVessel(access: Access, vesselId: string): Pr
       code: vessel.code,
       imoNumber: vessel.imoNumber,
       timeZone: vessel.timeZone,
+      retiredAt: vessel.retiredAt,
     })
     .from(vessel)
     .where(and(eq(vessel.companyId, access.company.id), eq(vessel.id, vesselId)))

@@ -1,12 +1,11 @@
 // The chief engineer's planned day for a work order: kept beside the computed due date, never in
 // its place, and only on a day inside the work order's tolerance window.
 import "server-only";
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
-import { lockVesselWorkOrders } from "@/server/completions/follow-up";
-import { isUuid } from "@/server/completions/queries";
+import { lockWorkOrder } from "@/server/work-orders/lock";
 import { shipDayKey } from "@/server/format/ship-day";
 import { AppError, invalidInput } from "@/server/http/problem";
 import type { PlannedDateInput, PlannedDateResult } from "./contract";
@@ -18,17 +17,9 @@ export async function setPlannedDate(
   workOrderId: string,
   input: PlannedDateInput,
 ): Promise<PlannedDateResult> {
-  if (!isUuid(workOrderId)) throw new AppError("not-found", "There is no such work order on this vessel.");
-  const companyId = access.company.id;
   return getDb().transaction(async (tx) => {
-    // The worker's lock: a recompute must not write planFrom/planUntil while we check against them.
-    await lockVesselWorkOrders(tx, vessel.id);
-    const [w] = await tx
-      .select()
-      .from(workOrder)
-      .where(and(eq(workOrder.companyId, companyId), eq(workOrder.vesselId, vessel.id), eq(workOrder.id, workOrderId)))
-      .for("update");
-    if (!w) throw new AppError("not-found", "There is no such work order on this vessel.");
+    // Under the worker's lock: a recompute must not write planFrom/planUntil while we check against them.
+    const w = await lockWorkOrder(tx, access, vessel, workOrderId);
     if (w.state === "done") throw new AppError("conflict", `${w.number} is done; a done work order is not planned.`);
     const day = input.plannedDate;
     const today = shipDayKey(Date.now(), vessel.timeZone);

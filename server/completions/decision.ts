@@ -8,8 +8,7 @@ import { completion, workOrder, workOrderStateChange } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { AppError } from "@/server/http/problem";
 import { type CompletionStatus, DecisionInput } from "./contract";
-import { lockVesselWorkOrders } from "./follow-up";
-import { isUuid } from "./queries";
+import { lockWorkOrder } from "@/server/work-orders/lock";
 
 export type Decision = z.output<typeof DecisionInput>;
 
@@ -20,17 +19,10 @@ export async function decideCompletion(
   decision: Decision,
   now = new Date(),
 ): Promise<{ status: CompletionStatus; workOrderState: string }> {
-  if (!isUuid(workOrderId)) throw new AppError("not-found", "There is no such work order on this vessel.");
   const companyId = access.company.id;
   return getDb().transaction(async (tx) => {
-    // The worker's lock: a recompute running now must not put a done work order back to late.
-    await lockVesselWorkOrders(tx, vessel.id);
-    const [w] = await tx
-      .select()
-      .from(workOrder)
-      .where(and(eq(workOrder.companyId, companyId), eq(workOrder.vesselId, vessel.id), eq(workOrder.id, workOrderId)))
-      .for("update");
-    if (!w) throw new AppError("not-found", "There is no such work order on this vessel.");
+    // Under the worker's lock: a recompute running now must not put a done work order back to late.
+    const w = await lockWorkOrder(tx, access, vessel, workOrderId);
     const [c] = await tx
       .select()
       .from(completion)

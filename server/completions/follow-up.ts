@@ -1,5 +1,5 @@
-// The corrective work order that follows a measurement out of the maker's limits, and the lock
-// every writer of a vessel's work orders takes so numbers and states never collide with the worker.
+// The corrective work order that follows a measurement out of the maker's limits (written under
+// the vessel's work-order lock, server/work-orders/lock.ts).
 import "server-only";
 import { and, eq, isNull, ne, sql } from "drizzle-orm";
 import type { Tx } from "@/db/client";
@@ -8,11 +8,6 @@ import { workOrderNumber } from "@/server/scheduling/work-order-writer";
 
 /** Days a follow-up has before it is due: a week, long enough to get parts, short enough to matter. */
 export const FOLLOW_UP_DAYS = 7;
-
-/** The same lock recomputeVessel takes: one writer of a vessel's work orders at a time. */
-export async function lockVesselWorkOrders(tx: Tx, vesselId: string): Promise<void> {
-  await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`recompute:${vesselId}`}, 0))`);
-}
 
 export function followUpTitle(measurementNames: readonly string[], componentCode: string): string {
   return `Follow-up: ${measurementNames.join(", ")} out of limits on ${componentCode}`;

@@ -9,6 +9,7 @@ import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import type { WorkOrderWithDeferrals } from "@/server/deferrals/contract";
 import { loadWorkOrderDeferrals } from "@/server/deferrals/queries";
+import { isUuid } from "@/server/http/ids";
 import { AppError } from "@/server/http/problem";
 import { ChecklistTick, type CompletionRecord, type ComponentHistoryEntry, type WorkOrderDetail } from "./contract";
 
@@ -18,10 +19,6 @@ const HISTORY_LIMIT = 25;
 const StoredChecklist = z.array(ChecklistTick);
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
-
-export function isUuid(id: string): boolean {
-  return /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id);
-}
 
 export async function loadWorkOrderDetail(
   access: Access,

@@ -6,11 +6,12 @@ import { getDb, type Tx } from "@/db/client";
 import { completion, component, counter, routine, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatShipTime, instantOfShipTime, shipDay } from "@/server/format/hours";
+import { isUuid } from "@/server/http/ids";
 import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
 import { isInFuture, readingProblem } from "@/server/readings/rules";
 import { assessMeasurements, type Completion, type CompletionResult, measurementMismatches } from "./contract";
-import { createFollowUp, lockVesselWorkOrders } from "./follow-up";
-import { isUuid } from "./queries";
+import { lockVesselWorkOrders } from "@/server/work-orders/lock";
+import { createFollowUp } from "./follow-up";
 
 type Mode = "record" | "resubmit";
 

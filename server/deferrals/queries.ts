@@ -7,6 +7,7 @@ import { company, deferral, routine, user, vessel as vesselTable, workOrder } fr
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { shipDay } from "@/server/format/hours";
+import { isUuid } from "@/server/http/ids";
 import { AppError } from "@/server/http/problem";
 import type { DeferralEntry, DeferralListItem, WorkOrderDeferrals } from "./contract";
 import { highestDeferralHours, latestDeferralDay } from "./rules";
@@ -18,7 +19,6 @@ const iso = (d: Date | null) => (d ? d.toISOString() : null);
 type WorkOrderRow = typeof workOrder.$inferSelect;
 
 // The same check as server/completions/queries.ts, which imports this file.
-const isUuid = (id: string) => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id);
 
 const entryColumns = {
   d: deferral,

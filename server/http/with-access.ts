@@ -2,6 +2,7 @@ import "server-only";
 import type { z } from "zod";
 import { type Access, findAccessibleVessel, loadAccess, type VesselRef } from "@/server/auth/access";
 import { can, type Permission } from "@/server/auth/roles";
+import { formatShipDate } from "@/server/format/hours";
 import { AppError, fieldErrorsFromZod, invalidInput, problemResponse } from "./problem";
 
 type Schema = z.ZodType;
@@ -52,6 +53,12 @@ export function withAccess<B extends Schema | undefined = undefined, Q extends S
       if (!can(access.role, options.permission)) {
         throw new AppError("forbidden", "Your role does not allow this action.");
       }
+      if (vessel?.retiredAt && changesVessel(request, options.permission)) {
+        throw new AppError(
+          "conflict",
+          `${vessel.name} was retired on ${formatShipDate(vessel.retiredAt, vessel.timeZone)}: its records can be read, not changed. An administrator can return it to service.`,
+        );
+      }
 
       const query = options.query
         ? parseWith(options.query, Object.fromEntries(new URL(request.url).searchParams), "query")
@@ -71,6 +78,14 @@ export function withAccess<B extends Schema | undefined = undefined, Q extends S
       return problemResponse(error);
     }
   };
+}
+
+/**
+ * A request that would change a vessel's records. Only the administrator's own vessel routes
+ * (`company:manage`: return to service, edit the register of a vessel being laid up) still write.
+ */
+function changesVessel(request: Request, permission: Permission): boolean {
+  return !["GET", "HEAD", "OPTIONS"].includes(request.method) && permission !== "company:manage";
 }
 
 function parseWith(schema: Schema, input: unknown, prefix: string): unknown {

@@ -6,7 +6,8 @@ import { type Db, getDb, type Tx } from "@/db/client";
 import { component, portStay, user, workOrder, workPackageItem } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
-import { lockVesselWorkOrders } from "@/server/completions/follow-up";
+import { lockVesselWorkOrders } from "@/server/work-orders/lock";
+import { isUuid } from "@/server/http/ids";
 import { AppError, fieldErrorsFromZod, invalidInput } from "@/server/http/problem";
 import {
   type PackageItemView,
@@ -18,15 +19,12 @@ import {
   type PortStayValues,
   type PortStayView,
 } from "./contract";
+import { capacityProblems } from "./capacity";
 import { instantOfShipDateTime, shipDateTimeOf, stayDays } from "./stay-days";
 
 const PAST_LIMIT = 20;
 
 export type StayRow = typeof portStay.$inferSelect;
-
-export function isUuid(id: string): boolean {
-  return /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id);
-}
 
 const noSuchStay = () => new AppError("not-found", "There is no such port stay on this vessel.");
 
@@ -220,10 +218,17 @@ export async function updatePortStay(
     const columns = stayColumns(merged.data, vessel.timeZone);
 
     const items = await tx
-      .select({ date: workPackageItem.plannedDate, number: workOrder.number })
+      .select({
+        date: workPackageItem.plannedDate,
+        number: workOrder.number,
+        rank: workOrder.rank,
+        manHours: workOrder.estimatedManHours,
+        needsEngineStop: workOrder.needsEngineStop,
+      })
       .from(workPackageItem)
       .innerJoin(workOrder, eq(workOrder.id, workPackageItem.workOrderId))
-      .where(and(eq(workPackageItem.companyId, access.company.id), eq(workPackageItem.portStayId, row.id)));
+      .where(and(eq(workPackageItem.companyId, access.company.id), eq(workPackageItem.portStayId, row.id)))
+      .orderBy(asc(workPackageItem.position));
     const days = new Set(stayDays(columns.arrivesAt, columns.departsAt, vessel.timeZone));
     const outside = items.filter((i) => !days.has(i.date));
     if (outside.length) {
@@ -234,6 +239,17 @@ export async function updatePortStay(
           message: `The accepted package has work on days outside these dates (${outside
             .map((i) => `${i.number} on ${i.date}`)
             .join(", ")}): move or remove those jobs first.`,
+        },
+      ]);
+    }
+    // Fewer hours for a rank, or less (or no) immobilisation: the accepted package must still fit.
+    const overrun = capacityProblems(columns, items);
+    if (overrun.length) {
+      const field = overrun.some((p) => p.kind === "crew") ? "crew" : columns.engineMayStop ? "immobilisationHours" : "engineMayStop";
+      throw invalidInput([
+        {
+          field,
+          message: `The accepted package would no longer fit: ${overrun.map((p) => p.message).join(" ")} Move or remove those jobs first.`,
         },
       ]);
     }

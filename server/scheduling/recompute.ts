@@ -7,6 +7,7 @@ import type { Db, Tx } from "@/db/client";
 import { counter, reading, vessel } from "@/db/schema";
 import { takeVesselSnapshot } from "@/server/fleet/snapshot";
 import { DEFAULT_LOOKBACK_DAYS, type RateReading, runningRate } from "./running-rate";
+import { lockVesselWorkOrders } from "@/server/work-orders/lock";
 import { writeWorkOrders, type WorkOrderRunSummary } from "./work-order-writer";
 
 export type CounterNow = { totalHours: number; readAt: Date; hoursPerDay: number };
@@ -19,7 +20,7 @@ export async function recomputeVessel(
   now = new Date(),
 ): Promise<WorkOrderRunSummary & { counters: number }> {
   return db.transaction(async (tx) => {
-    await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`recompute:${vesselId}`}, 0))`);
+    await lockVesselWorkOrders(tx, vesselId);
     const [v] = await tx
       .select({ code: vessel.code, timeZone: vessel.timeZone, workOrderSeq: vessel.workOrderSeq })
       .from(vessel)

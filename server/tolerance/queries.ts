@@ -4,6 +4,7 @@ import { type Db, getDb, type Tx } from "@/db/client";
 import { routine, toleranceRule, vessel } from "@/db/schema";
 import { explainUniqueViolation } from "@/server/admin/queries";
 import type { Access } from "@/server/auth/access";
+import { isUuid } from "@/server/http/ids";
 import { AppError, fieldErrorsFromZod, invalidInput } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs";
 import { TOLERANCE_PRESETS } from "@/server/scheduling/presets";
@@ -53,10 +54,6 @@ async function loadRule(access: Access, ruleId: string): Promise<AdminToleranceR
   const [found] = isUuid(ruleId) ? await listToleranceRules(access, ruleId) : [];
   if (!found) throw new AppError("not-found", "No such tolerance rule.");
   return found;
-}
-
-function isUuid(id: string): boolean {
-  return /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id);
 }
 
 async function assertUniqueName(tx: Db | Tx, companyId: string, name: string, selfId?: string): Promise<void> {

@@ -1,8 +1,10 @@
+import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as s from "@/db/schema";
 import { shipClock, shipDay } from "@/server/format/hours";
 import type { Problem } from "@/server/http/problem";
 import type { HourLogView } from "@/server/readings/contract";
-import { closeTestDb, createCompany, type Fixture, PASSWORD } from "../support/fixtures";
+import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
 import { api, type Session, signIn } from "../support/http";
 
 let one: Fixture;
@@ -80,5 +82,34 @@ describe("vessel assignments and roles", () => {
   it("pages send anonymous visitors to sign in", async () => {
     const res = await api(null, "GET", `/vessels/${one.vesselA.id}/hour-log`);
     expect(res.status).toBe(307);
+  });
+});
+
+describe("a retired vessel", () => {
+  it("keeps its records readable and refuses changes until an administrator returns it to service", async () => {
+    const f = await createCompany("access-retired");
+    const admin = await signIn(f.users.admin.email, PASSWORD);
+    const chief = await signIn(f.users["chief-engineer"].email, PASSWORD);
+    const readingsOf = async () =>
+      (await testDb().select().from(s.reading).where(eq(s.reading.vesselId, f.vesselA.id))).length;
+    const now = new Date();
+    const batch = {
+      shipDay: shipDay(now, f.vesselA.timeZone),
+      time: shipClock(now, f.vesselA.timeZone),
+      entries: [{ counterId: f.counters.gen.id, value: 505 }],
+    };
+    const before = await readingsOf();
+
+    expect((await api(admin, "DELETE", `/api/admin/vessels/${f.vesselA.id}`)).status).toBe(200);
+    const refused = await api<Problem>(chief, "POST", `/api/vessels/${f.vesselA.id}/readings`, batch);
+    expect(refused.status).toBe(409);
+    expect(refused.body.detail).toMatch(/was retired on .*: its records can be read, not changed/);
+    expect(await readingsOf()).toBe(before);
+    // Reading is still allowed.
+    expect((await api(chief, "GET", `/api/vessels/${f.vesselA.id}/hour-log`)).status).toBe(200);
+
+    expect((await api(admin, "PATCH", `/api/admin/vessels/${f.vesselA.id}`, { retired: false })).status).toBe(200);
+    expect((await api(chief, "POST", `/api/vessels/${f.vesselA.id}/readings`, batch)).status).toBe(201);
+    expect(await readingsOf()).toBe(before + 1);
   });
 });

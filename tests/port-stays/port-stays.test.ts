@@ -367,6 +367,29 @@ describe("accepting the package", () => {
     expect(ok.body).toMatchObject({ port: "Test harbour east", remarks: "", days: [dayIn(3), dayIn(4)] });
   });
 
+  it("refuses fewer crew hours or less immobilisation than the accepted package needs", async () => {
+    // The package: WO-1 (second engineer, 6 h, engine stopped) on d2, WO-3 (second engineer, 4 h) on d1.
+    const before = (await testDb().select().from(s.portStay).where(eq(s.portStay.id, stay.id)))[0]!;
+    const fewer = CREW.map((c) => (c.rank === "second-engineer" ? { ...c, manHoursPerDay: 5 } : c));
+    const crew = await api<Problem>(chief, "PATCH", `${base()}/${stay.id}`, { crew: fewer });
+    expect(crew.status).toBe(422);
+    expect(crew.body.errors?.[0]).toMatchObject({ field: "crew" });
+    // 6 h on d2 for a second engineer with 5 h a day.
+    expect(crew.body.errors?.[0]?.message).toMatch(/second engineer would have 6 h of work, more than the 5 h on board/);
+    const stop = await api<Problem>(chief, "PATCH", `${base()}/${stay.id}`, { immobilisationHours: 4 });
+    expect(stop.body.errors?.[0]).toMatchObject({ field: "immobilisationHours" });
+    expect(stop.body.errors?.[0]?.message).toMatch(/WO-ALPHA-1 needs the engine stopped: .*6 h of the 4 h/);
+    const none = await api<Problem>(chief, "PATCH", `${base()}/${stay.id}`, { engineMayStop: false, immobilisationHours: 0 });
+    expect(none.body.errors?.[0]).toMatchObject({ field: "engineMayStop" });
+    expect(none.body.errors?.[0]?.message).toMatch(/no immobilisation is allowed/);
+    const after = (await testDb().select().from(s.portStay).where(eq(s.portStay.id, stay.id)))[0]!;
+    expect(after).toEqual(before);
+    // Enough is still enough: 6 h a day for the second engineer holds both jobs (6 h and 4 h).
+    const enough = CREW.map((c) => (c.rank === "second-engineer" ? { ...c, manHoursPerDay: 6 } : c));
+    expect((await api(chief, "PATCH", `${base()}/${stay.id}`, { crew: enough, immobilisationHours: 6 })).status).toBe(200);
+    expect((await api(chief, "PATCH", `${base()}/${stay.id}`, { crew: CREW, immobilisationHours: 10 })).status).toBe(200);
+  });
+
   it("keeps work of another coming stay's package out of this one", async () => {
     const second = await api<PortStayView>(chief, "POST", base(), stayBody({
       port: "Second harbour",

@@ -23,9 +23,9 @@ describe("the demo company", () => {
 
     const rows = await db.select().from(s.mailOutbox).where(eq(s.mailOutbox.companyId, demo!.id));
     const vessels = await db.select().from(s.vessel).where(eq(s.vessel.companyId, demo!.id));
-    // Only Aster Gale (Asia/Singapore) and Corran Ness (Europe/Amsterdam) have engineers and a
-    // chief assigned in the demo. Singapore is past 06:00 from 22:00 to 16:00 UTC, Amsterdam from
-    // 05:00 (04:00 in summer) to 23:00 UTC: at any hour at least one of them is.
+    // Every demo vessel has engineers and a chief assigned; its zone decides whether the digest
+    // hour has come: Singapore is past 06:00 from 22:00 to 16:00 UTC, Amsterdam from 05:00 (04:00
+    // in summer) to 23:00 UTC, so at any hour at least one vessel is.
     const crewed = new Set(
       (
         await db

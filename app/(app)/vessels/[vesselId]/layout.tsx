@@ -1,4 +1,5 @@
 import { requirePageVessel } from "@/server/auth/access";
+import { formatShipDate } from "@/server/format/hours";
 import { VesselTabs } from "./_components/vessel-tabs";
 
 export default async function VesselLayout({
@@ -21,6 +22,12 @@ export default async function VesselLayout({
         </div>
         <VesselTabs vesselId={vessel.id} />
       </div>
+      {vessel.retiredAt && (
+        <p className="no-print mb-4 rounded-md border border-brass-300 bg-brass-50 px-3 py-2 text-sm font-medium text-brass-900 dark:border-brass-700 dark:bg-brass-950 dark:text-brass-100">
+          Retired on {formatShipDate(vessel.retiredAt, vessel.timeZone)}: {vessel.name}’s records can be read but
+          not changed. An administrator can return it to service under Company → Vessels.
+        </p>
+      )}
       {children}
     </div>
   );

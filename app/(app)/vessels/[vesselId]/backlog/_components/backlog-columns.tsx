@@ -6,7 +6,7 @@ import { useParams } from "next/navigation";
 import { StateBadge } from "@/app/_components/state-badge";
 import type { BacklogItem } from "@/server/backlog/contract";
 import { formatHours, formatShipDate } from "@/server/format/hours";
-import { rankLabel } from "./backlog-filters";
+import { rankLabel } from "@/app/_components/rank-words";
 
 const column = createColumnHelper<BacklogItem>();
 

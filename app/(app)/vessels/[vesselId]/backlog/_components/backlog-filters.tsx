@@ -2,6 +2,7 @@
 
 import { StateBadge } from "@/app/_components/state-badge";
 import { ALL_STATES, type BacklogPage, type BacklogState, OPEN_STATES } from "@/server/backlog/contract";
+import { rankLabel } from "@/app/_components/rank-words";
 
 export type FilterValues = {
   state: BacklogState[];
@@ -22,15 +23,6 @@ type Props = {
   onChange: (next: Partial<FilterValues>) => void;
 };
 
-const RANK_LABEL: Record<string, string> = {
-  "chief-engineer": "Chief engineer",
-  "second-engineer": "Second engineer",
-  "third-engineer": "Third engineer",
-  "fourth-engineer": "Fourth engineer",
-  motorman: "Motorman",
-  electrician: "Electrician",
-};
-export const rankLabel = (rank: string) => RANK_LABEL[rank] ?? rank;
 
 /** Controlled by the caller's filter values, which follow the URL (or the change just made). */
 export function BacklogFilters({ values, counts, ranks, onChange }: Props) {

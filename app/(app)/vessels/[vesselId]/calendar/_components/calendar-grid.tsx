@@ -67,7 +67,9 @@ export function CalendarGrid({ data, today, canPlan, onRange, onOpen, onMove }: 
       viewHint="Show as $0"
       dayMaxEvents={4}
       moreLinkText={(n) => `${n} more`}
-      allDayText="due"
+      // The list's time column would say one word for every row; the row's own marks say whether
+      // its day is the due day, a planned day or a projection.
+      views={{ listMonth: { displayEventTime: false } }}
       noEventsContent="No work falls due in this month."
       editable={canPlan}
       eventDurationEditable={false}
@@ -111,8 +113,11 @@ function WorkOrderEvent({ workOrder: w, viewType }: { workOrder: CalendarWorkOrd
         <span className="kc-event-number">{w.number}</span>
       </span>
       <span className="kc-event-title">{w.title}</span>
-      {(w.projected || w.plannedDate || w.pendingDeferral) && (
+      {(w.projected || w.plannedDate || w.pendingDeferral || Body === "button") && (
         <span className="kc-event-marks">
+          {Body === "button" && !w.plannedDate && !w.projected && (
+            <span className="kc-mark">{w.state === "deferred" ? "deferred to" : "due"}</span>
+          )}
           {w.plannedDate && (
             <span className="kc-mark kc-mark-planned">
               planned{w.dueDay && w.dueDay !== w.plannedDate ? ` · due ${shortDay(w.dueDay)}` : ""}

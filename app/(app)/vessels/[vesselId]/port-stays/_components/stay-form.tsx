@@ -88,9 +88,20 @@ export function StayForm({ vesselId, timeZone, stay, crew, onDone }: Props) {
           Main engine
         </legend>
         <label className="flex items-center gap-2">
-          <input type="checkbox" className="size-4" {...register("engineMayStop")} />
+          <input
+            type="checkbox"
+            className="size-4"
+            aria-invalid={errors.engineMayStop ? true : undefined}
+            aria-describedby={errors.engineMayStop ? "stay-engineMayStop-error" : undefined}
+            {...register("engineMayStop")}
+          />
           May be immobilised in this port (terminal’s or port authority’s consent)
         </label>
+        {errors.engineMayStop?.message && (
+          <p id="stay-engineMayStop-error" className="field-error">
+            {errors.engineMayStop.message}
+          </p>
+        )}
         <Field
           id="stay-immobilisationHours"
           label="Immobilisation allowed (h)"

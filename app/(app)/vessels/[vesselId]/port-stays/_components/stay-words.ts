@@ -2,7 +2,7 @@
 import { format, parseISO } from "date-fns";
 import { formatHours, formatShipTime } from "@/server/format/hours";
 
-export { rankLabel } from "../../routines/_components/routine-words";
+export { rankLabel } from "@/app/_components/rank-words";
 
 /** "4 Dec 2026 07:00 – 5 Dec 2026 19:00 (ship's time)" */
 export function stayPeriod(arrivesAt: string, departsAt: string, timeZone: string): string {

@@ -6,13 +6,14 @@ import { ProblemError } from "@/app/_components/fetch-json";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
 import { showProblem } from "@/app/_components/forms/form-problem";
+import { RANK_LABEL } from "@/app/_components/rank-words";
 import { fieldErrorsFromZod } from "@/server/http/problem";
 import { CAUTIONS, RANKS, RoutineInput, type RoutineList, type RoutineView } from "@/server/routines/contract";
 import { ChecklistEditor } from "./checklist-editor";
 import { IntervalFields } from "./interval-fields";
 import { MeasurementsEditor } from "./measurements-editor";
 import { inputOf, type RoutineFormValues, valuesOf } from "./routine-form-values";
-import { CAUTION_WORDS, CAUTIONS_PREVAIL, RANK_LABEL } from "./routine-words";
+import { CAUTION_WORDS, CAUTIONS_PREVAIL } from "./routine-words";
 import { useAddRoutine, useChangeRoutine } from "./use-routines";
 
 const FIXED_FIELDS = [

@@ -1,17 +1,5 @@
-// The words the routine pages use for ranks and cautions.
-import type { Rank } from "@/server/routines/contract";
+// The words the routine form uses for cautions (ranks: app/_components/rank-words.ts).
 import type { RoutineCaution } from "@/db/schema/maintenance";
-
-export const RANK_LABEL: Record<Rank, string> = {
-  "chief-engineer": "Chief engineer",
-  "second-engineer": "Second engineer",
-  "third-engineer": "Third engineer",
-  "fourth-engineer": "Fourth engineer",
-  motorman: "Motorman",
-  electrician: "Electrician",
-};
-
-export const rankLabel = (rank: string) => RANK_LABEL[rank as Rank] ?? rank;
 
 /** The usual wording of each caution, as shown on the form and on the work order. */
 export const CAUTION_WORDS: Record<RoutineCaution, string> = {

@@ -1,7 +1,7 @@
 "use client";
 
 import type { RoutineList } from "@/server/routines/contract";
-import { rankLabel } from "./routine-words";
+import { rankLabel } from "@/app/_components/rank-words";
 import type { Sheet } from "./routines-view";
 
 type Props = { list: RoutineList; onAction: (sheet: Sheet) => void };

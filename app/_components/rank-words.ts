@@ -1,0 +1,13 @@
+// The ranks in words, as every page shows them (routines, Backlog filters, port-stay crew).
+import type { Rank } from "@/server/routines/contract";
+
+export const RANK_LABEL: Record<Rank, string> = {
+  "chief-engineer": "Chief engineer",
+  "second-engineer": "Second engineer",
+  "third-engineer": "Third engineer",
+  "fourth-engineer": "Fourth engineer",
+  motorman: "Motorman",
+  electrician: "Electrician",
+};
+
+export const rankLabel = (rank: string) => RANK_LABEL[rank as Rank] ?? rank;
