@@ -14,7 +14,7 @@ export const mailKind = pgEnum("mail_kind", [
   "password-reset",
 ]);
 
-export const mailStatus = pgEnum("mail_status", ["pending", "sending", "sent", "failed"]);
+export const mailStatus = pgEnum("mail_status", ["pending", "sending", "sent", "failed", "cancelled"]);
 
 export const mailOutbox = pgTable(
   "mail_outbox",

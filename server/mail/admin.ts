@@ -1,13 +1,33 @@
 import "server-only";
-import { and, desc, eq, isNotNull } from "drizzle-orm";
+import { and, desc, eq, inArray, isNotNull, lt, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
-import type { AdminMail, CaughtMessage, OutboxRow } from "./contract";
+import { isUuid } from "@/server/http/ids";
+import { AppError, invalidInput } from "@/server/http/problem";
+import { requestMailSend } from "@/server/jobs";
+import type { AdminMail, CaughtMessage, ClearCaughtResult, MailActionResult, OutboxRow } from "./contract";
 import { smtpConfig } from "./transport";
 
 const OUTBOX_ROWS = 100;
 const CAUGHT_ROWS = 50;
+
+type OutboxRecord = typeof mailOutbox.$inferSelect;
+
+function toOutboxRow(r: OutboxRecord): OutboxRow {
+  return {
+    id: r.id,
+    to: r.toAddress,
+    kind: r.kind,
+    subject: r.subject,
+    status: r.status,
+    attempts: r.attempts,
+    lastError: r.lastError,
+    nextAttemptAt: r.nextAttemptAt.toISOString(),
+    sentAt: r.sentAt?.toISOString() ?? null,
+    createdAt: r.createdAt.toISOString(),
+  };
+}
 
 /**
  * The admin's view of the company's mail: the outbox, and in development the messages the local
@@ -23,18 +43,7 @@ export async function loadAdminMail(access: Access): Promise<AdminMail> {
     .where(eq(mailOutbox.companyId, companyId))
     .orderBy(desc(mailOutbox.createdAt), desc(mailOutbox.id))
     .limit(OUTBOX_ROWS);
-  const outbox: OutboxRow[] = rows.map((r) => ({
-    id: r.id,
-    to: r.toAddress,
-    kind: r.kind,
-    subject: r.subject,
-    status: r.status,
-    attempts: r.attempts,
-    lastError: r.lastError,
-    nextAttemptAt: r.nextAttemptAt.toISOString(),
-    sentAt: r.sentAt?.toISOString() ?? null,
-    createdAt: r.createdAt.toISOString(),
-  }));
+  const outbox = rows.map(toOutboxRow);
 
   const fakeUrl = process.env.KEELSON_MAIL_FAKE_URL;
   if (!fakeUrl) {
@@ -79,4 +88,118 @@ export async function loadAdminMail(access: Access): Promise<AdminMail> {
       outbox,
     };
   }
+}
+
+// Retry and cancel. The sender claims rows with FOR UPDATE SKIP LOCKED and sets them 'sending';
+// each change here is one UPDATE whose WHERE names the statuses it may change, so it cannot race a
+// claim: if the claim locked the row first, this UPDATE waits, sees 'sending' and changes nothing;
+// if this UPDATE locked it first, the claim skips it and afterwards finds it no longer due.
+// When nothing changed, the row is read again to say why.
+
+const notFound = () => new AppError("not-found", "No such message in your company’s outbox.");
+
+type OutboxStatus = (typeof mailOutbox.$inferSelect)["status"];
+
+/**
+ * A message may be changed when in one of `statuses`, or 'sending' by a worker whose lease ended.
+ * Retry takes waiting, given-up and cancelled messages; cancel takes waiting and given-up ones.
+ */
+function changeable(companyId: string, messageId: string, statuses: OutboxStatus[]) {
+  return and(
+    eq(mailOutbox.companyId, companyId),
+    eq(mailOutbox.id, messageId),
+    or(
+      inArray(mailOutbox.status, statuses),
+      and(eq(mailOutbox.status, "sending"), lt(mailOutbox.claimedUntil, sql`now()`)),
+    ),
+  );
+}
+
+const utc = (at: Date) => `${at.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+
+/** Why a retry or cancel changed nothing: the message is gone, sent, or in a worker's hands. */
+async function whyUnchanged(companyId: string, messageId: string, action: "retried" | "cancelled") {
+  const [row] = await getDb()
+    .select()
+    .from(mailOutbox)
+    .where(and(eq(mailOutbox.companyId, companyId), eq(mailOutbox.id, messageId)))
+    .limit(1);
+  if (!row) return notFound();
+  if (row.status === "sent") {
+    const when = row.sentAt ? ` on ${utc(row.sentAt)}` : "";
+    return invalidInput([
+      { field: "status", message: `The message was already sent${when} (status sent); it cannot be ${action}.` },
+    ]);
+  }
+  if (row.status === "cancelled" && action === "cancelled") {
+    return invalidInput([{ field: "status", message: "The message is cancelled already (status cancelled)." }]);
+  }
+  if (row.status === "sending") {
+    return invalidInput([
+      { field: "status", message: "The message is being sent now (status sending); try again in a minute." },
+    ]);
+  }
+  // Changed between the UPDATE and this read (a claim that has since ended): the list is stale.
+  return new AppError("conflict", `The message changed meanwhile (now ${row.status}); refresh and try again.`);
+}
+
+/**
+ * Puts a failed (or waiting) message back in the queue, due now, and asks the worker to send.
+ * Its attempts and last error stay: a message that used its 8 attempts gets one more, and the
+ * error is replaced by the next attempt's outcome.
+ */
+export async function retryMail(access: Access, messageId: string): Promise<MailActionResult> {
+  if (!isUuid(messageId)) throw notFound();
+  const [row] = await getDb()
+    .update(mailOutbox)
+    .set({ status: "pending", nextAttemptAt: sql`now()`, claimedUntil: null })
+    .where(changeable(access.company.id, messageId, ["pending", "failed", "cancelled"]))
+    .returning();
+  if (!row) throw await whyUnchanged(access.company.id, messageId, "retried");
+  await requestMailSend();
+  return { message: toOutboxRow(row) };
+}
+
+/**
+ * Stops a message from being sent: status 'cancelled', with "Cancelled by <name>" as its note (the
+ * error it had before kept after it); "Try again" brings it back.
+ */
+export async function cancelMail(access: Access, messageId: string): Promise<MailActionResult> {
+  if (!isUuid(messageId)) throw notFound();
+  const note = `Cancelled by ${access.user.name}`;
+  const [row] = await getDb()
+    .update(mailOutbox)
+    .set({
+      status: "cancelled",
+      claimedUntil: null,
+      lastError: sql`case when ${mailOutbox.lastError} is null or ${mailOutbox.lastError} like 'Cancelled by %'
+                          then ${note}::text else ${note}::text || '. Last error: ' || ${mailOutbox.lastError} end`,
+    })
+    .where(changeable(access.company.id, messageId, ["pending", "failed"]))
+    .returning();
+  if (!row) throw await whyUnchanged(access.company.id, messageId, "cancelled");
+  return { message: toOutboxRow(row) };
+}
+
+/**
+ * Empties the local mail catcher (development). The catcher is one for the whole set-up and
+ * forgets by all or nothing, so this clears every company's caught messages; the outbox stays.
+ */
+export async function clearCaughtMail(): Promise<ClearCaughtResult> {
+  const fakeUrl = process.env.KEELSON_MAIL_FAKE_URL;
+  if (!fakeUrl) {
+    throw new AppError("not-found", "There is no mail catcher here: mail goes to the configured relay.");
+  }
+  try {
+    const response = await fetch(new URL("/messages", fakeUrl), {
+      method: "DELETE",
+      cache: "no-store",
+      signal: AbortSignal.timeout(5000),
+    });
+    if (!response.ok) throw new Error(`it answered ${response.status}`);
+  } catch (error) {
+    const reason = error instanceof Error ? error.message : String(error);
+    throw new AppError("internal", `The mail catcher at ${fakeUrl} did not answer (${reason}); nothing was cleared.`);
+  }
+  return { cleared: true };
 }

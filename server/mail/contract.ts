@@ -1,4 +1,5 @@
-// What the admin's "Caught mail" page receives (GET /api/admin/mail). Types only: safe in the client.
+// What the admin's "Caught mail" page receives (GET /api/admin/mail) and its actions answer.
+// Types only: safe in the client.
 import type { MailKind } from "./outbox";
 
 /** A message the local SMTP fake caught, as its HTTP API answers (scripts/mail-fake.ts). */
@@ -19,13 +20,19 @@ export type OutboxRow = {
   to: string;
   kind: MailKind;
   subject: string;
-  status: "pending" | "sending" | "sent" | "failed";
+  status: "pending" | "sending" | "sent" | "failed" | "cancelled";
   attempts: number;
   lastError: string | null;
   nextAttemptAt: string;
   sentAt: string | null;
   createdAt: string;
 };
+
+/** The answer to an administrator's retry or cancel: the message as it now stands. */
+export type MailActionResult = { message: OutboxRow };
+
+/** The answer to clearing the local mail catcher (development only). */
+export type ClearCaughtResult = { cleared: true };
 
 export type AdminMail = {
   /** Where messages go: the local fake (its messages listed) or the configured relay. */

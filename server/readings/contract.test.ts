@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { MeterValue, ReadingBatchInput } from "./contract";
+import { MeterValue, ReadingBatchInput, ReadingCorrectionInput, ReadingRemovalInput } from "./contract";
 
 describe("MeterValue", () => {
   it.each([
@@ -29,5 +29,32 @@ describe("ReadingBatchInput", () => {
     expect(result.success).toBe(false);
     const fields = result.error?.issues.map((i) => i.path.join("."));
     expect(fields).toEqual(expect.arrayContaining(["shipDay", "time", "entries"]));
+  });
+});
+
+describe("ReadingCorrectionInput and ReadingRemovalInput", () => {
+  it("take a value, an optional remark and a reason", () => {
+    expect(ReadingCorrectionInput.parse({ value: "14,250", reason: " typed 41,250 " })).toEqual({
+      value: 14250,
+      reason: "typed 41,250",
+    });
+  });
+
+  it.each([
+    ["missing", undefined],
+    ["too short once trimmed", "  typo  "],
+    ["too long", "x".repeat(501)],
+  ])("refuse a reason that is %s, naming the reason", (_label, reason) => {
+    for (const schema of [ReadingCorrectionInput, ReadingRemovalInput]) {
+      const result = schema.safeParse({ value: 14250, reason });
+      expect(result.success).toBe(false);
+      expect(result.error?.issues.map((i) => i.path.join("."))).toEqual(["reason"]);
+      expect(result.error?.issues[0]?.message).toMatch(/reason|Say why/);
+    }
+  });
+
+  it("refuses a malformed value, naming the value", () => {
+    const result = ReadingCorrectionInput.safeParse({ value: "14.25", reason: "typed a digit too many" });
+    expect(result.error?.issues.map((i) => i.path.join("."))).toEqual(["value"]);
   });
 });

@@ -78,10 +78,63 @@ export type HourLogView = {
 
 export type DailyHours = { day: string; hours: number };
 
+/** One entry of a reading's audit trail. */
+export type ReadingCorrectionEntry = {
+  id: string;
+  kind: "corrected" | "removed";
+  readAt: string;
+  oldMeterValue: number;
+  /** Null for a removal. */
+  newMeterValue: number | null;
+  reason: string;
+  /** Who corrected it; null once that user is gone. */
+  by: string | null;
+  at: string;
+};
+
+export type HistoryReading = {
+  id: string;
+  readAt: string;
+  shipDay: string;
+  meterValue: number;
+  totalHours: number;
+  segment: number;
+  remark: string | null;
+  /** Its corrections, newest first; empty for a reading as entered. */
+  corrections: ReadingCorrectionEntry[];
+};
+
 export type ReadingHistory = {
-  counter: { id: string; name: string };
-  readings: { readAt: string; shipDay: string; meterValue: number; totalHours: number; segment: number }[];
+  counter: { id: string; name: string; segment: number };
+  readings: HistoryReading[];
+  /** Readings of the window that were removed, newest first: the audit keeps them. */
+  removals: ReadingCorrectionEntry[];
   daily: DailyHours[];
 };
 
 export type ReadingBatchResult = { saved: number; readAt: string };
+
+// Corrections (PATCH/DELETE /api/vessels/[vesselId]/readings/[readingId]): the value and the
+// remark only — the instant is what the neighbours are checked at, so a reading is moved by
+// removing it and entering it again.
+export const CorrectionReason = z
+  .string({ message: "Say why the reading is corrected (at least 5 characters)." })
+  .trim()
+  .min(5, { message: "Say why the reading is corrected, in at least 5 characters." })
+  .max(500, { message: "Keep the reason under 500 characters." });
+
+export const ReadingCorrectionInput = z.object({
+  value: MeterValue,
+  remark: z.string().trim().max(500, { message: "Keep the remark under 500 characters." }).optional(),
+  reason: CorrectionReason,
+});
+export type ReadingCorrectionInput = z.input<typeof ReadingCorrectionInput>;
+export type ReadingCorrection = z.output<typeof ReadingCorrectionInput>;
+
+export const ReadingRemovalInput = z.object({ reason: CorrectionReason });
+export type ReadingRemovalInput = z.input<typeof ReadingRemovalInput>;
+
+export type ReadingCorrectionResult = {
+  reading: { id: string; readAt: string; meterValue: number; totalHours: number; remark: string | null } | null;
+  correction: ReadingCorrectionEntry;
+};

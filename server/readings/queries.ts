@@ -7,7 +7,9 @@ import { can } from "@/server/auth/roles";
 import { instantOfShipTime, shipDay } from "@/server/format/hours";
 import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
 import type { HourLogView, ReadingBatch, ReadingBatchResult, ReadingHistory } from "./contract";
+import { correctionsSince } from "./corrections";
 import { dailyRunningHours } from "./daily";
+import { loadNeighbours } from "./neighbours";
 import { isInFuture, readingProblem, round1 } from "./rules";
 
 export async function loadHourLog(access: Access, vessel: VesselRef, now = new Date()): Promise<HourLogView> {
@@ -69,20 +71,6 @@ export async function loadHourLog(access: Access, vessel: VesselRef, now = new D
   };
 }
 
-type NeighbourRow = {
-  id: string;
-  name: string;
-  segment: number;
-  started_at: Date | null;
-  start_meter: string | null;
-  offset_hours: string | null;
-  prev_at: Date | null;
-  prev_meter: string | null;
-  next_at: Date | null;
-  next_meter: string | null;
-  same_meter: string | null;
-};
-
 /**
  * Stores a day's readings all at once or not at all. The counters are locked for the length of
  * the transaction, so two engineers saving at the same moment are checked one after the other.
@@ -130,27 +118,7 @@ export async function saveReadingBatch(
       .for("update");
     const ownedIds = new Set(owned.map((o) => o.id));
 
-    const context = ownedIds.size
-      ? await tx.execute<NeighbourRow>(sql`
-          select c.id, c.name, c.current_segment as segment,
-                 s.started_at, s.start_meter, s.offset_hours,
-                 p.read_at as prev_at, p.meter_value as prev_meter,
-                 n.read_at as next_at, n.meter_value as next_meter,
-                 e.meter_value as same_meter
-          from ${counter} c
-          left join counter_segment s on s.counter_id = c.id and s.segment = c.current_segment
-          left join lateral (select read_at, meter_value from ${reading} r
-                             where r.counter_id = c.id and r.segment = c.current_segment and r.read_at < ${readAt}
-                             order by r.read_at desc limit 1) p on true
-          left join lateral (select read_at, meter_value from ${reading} r
-                             where r.counter_id = c.id and r.segment = c.current_segment and r.read_at > ${readAt}
-                             order by r.read_at asc limit 1) n on true
-          left join lateral (select meter_value from ${reading} r
-                             where r.counter_id = c.id and r.read_at = ${readAt} limit 1) e on true
-          where c.company_id = ${access.company.id} and c.id in ${[...ownedIds]}
-        `)
-      : { rows: [] as NeighbourRow[] };
-    const byId = new Map(context.rows.map((r) => [r.id, r]));
+    const byId = await loadNeighbours(tx, access.company.id, [...ownedIds], readAt);
 
     const rows: (typeof reading.$inferInsert)[] = [];
     batch.entries.forEach((entry, row) => {
@@ -159,21 +127,7 @@ export async function saveReadingBatch(
         errors.push({ field: `entries.${row}.counterId`, row, message: `There is no such counter on ${vessel.name}.` });
         return;
       }
-      const segmentStart =
-        c.started_at && c.segment > 1 ? { readAt: new Date(c.started_at), meterValue: Number(c.start_meter) } : null;
-      const previous = c.prev_at ? { readAt: new Date(c.prev_at), meterValue: Number(c.prev_meter) } : segmentStart;
-      const problem = readingProblem(
-        {
-          name: c.name,
-          segmentStartedAt: c.segment > 1 && c.started_at ? new Date(c.started_at) : null,
-          previous,
-          next: c.next_at ? { readAt: new Date(c.next_at), meterValue: Number(c.next_meter) } : null,
-          existingAtSameInstant: c.same_meter !== null ? { readAt, meterValue: Number(c.same_meter) } : null,
-        },
-        entry.value,
-        readAt,
-        vessel.timeZone,
-      );
+      const problem = readingProblem(c.context, entry.value, readAt, vessel.timeZone);
       if (problem) {
         errors.push({ field: `entries.${row}.value`, row, message: `${c.name}: ${problem}` });
         return;
@@ -185,7 +139,7 @@ export async function saveReadingBatch(
         readAt,
         segment: c.segment,
         meterValue: entry.value,
-        totalHours: round1(entry.value + Number(c.offset_hours ?? 0)),
+        totalHours: round1(entry.value + c.offsetHours),
         enteredBy: access.user.id,
         remark: entry.remark || null,
       });
@@ -206,7 +160,7 @@ export async function readingHistory(
 ): Promise<ReadingHistory> {
   const db = getDb();
   const [found] = await db
-    .select({ id: counter.id, name: counter.name })
+    .select({ id: counter.id, name: counter.name, segment: counter.currentSegment })
     .from(counter)
     .where(and(eq(counter.companyId, access.company.id), eq(counter.vesselId, vessel.id), eq(counter.id, counterId)));
   if (!found) throw new AppError("not-found", "There is no such counter on this vessel.");
@@ -227,15 +181,25 @@ export async function readingHistory(
   const all = before ? [before, ...inWindow] : inWindow;
   const sinceDay = shipDay(since, vessel.timeZone);
 
+  const audit = await correctionsSince(access.company.id, counterId, since);
+
   return {
     counter: found,
     readings: inWindow.map((r) => ({
+      id: r.id,
       readAt: r.readAt.toISOString(),
       shipDay: shipDay(r.readAt, vessel.timeZone),
       meterValue: r.meterValue,
       totalHours: r.totalHours,
       segment: r.segment,
+      remark: r.remark,
+      corrections: audit.filter((a) => a.readingId === r.id).map(withoutReadingId),
     })),
+    removals: audit.filter((a) => a.kind === "removed").map(withoutReadingId),
     daily: dailyRunningHours(all, vessel.timeZone).filter((d) => d.day >= sinceDay),
   };
+}
+
+function withoutReadingId<T extends { readingId: string | null }>({ readingId: _, ...entry }: T): Omit<T, "readingId"> {
+  return entry;
 }

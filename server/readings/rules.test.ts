@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { type CounterContext, hoursPerDay, isInFuture, readingProblem } from "./rules";
+import { type CounterContext, hoursPerDay, isInFuture, readingProblem, removalProblem } from "./rules";
 
 const base: CounterContext = {
   name: "ME",
@@ -80,5 +80,41 @@ describe("isInFuture", () => {
   it("tolerates five minutes of clock drift", () => {
     expect(isInFuture(new Date("2026-05-04T12:05:00Z"), now)).toBe(false);
     expect(isInFuture(new Date("2026-05-04T12:06:00Z"), now)).toBe(true);
+  });
+});
+
+// Removing a reading: its neighbours must still pass the same 24-hours-in-24-hours check
+// (SOURCES.md, "Running-hour facts") against each other. Hand-computed cases.
+describe("removalProblem", () => {
+  const previous = { readAt: new Date("2026-05-03T12:00:00Z"), meterValue: 14230 };
+  const next = { readAt: new Date("2026-05-05T12:00:00Z"), meterValue: 14270 };
+
+  it("allows removing the newest or the only reading: nothing comes after it", () => {
+    expect(removalProblem({ previous, next: null }, "UTC")).toBeNull();
+    expect(removalProblem({ previous: null, next: null }, "UTC")).toBeNull();
+  });
+
+  it("allows removing the first reading: nothing before it to check the next one against", () => {
+    expect(removalProblem({ previous: null, next }, "UTC")).toBeNull();
+  });
+
+  it("allows it when the neighbours agree: 40 h in 48 h", () => {
+    expect(removalProblem({ previous, next }, "UTC")).toBeNull();
+  });
+
+  it("refuses when the next one would run 50 h in 48 h, naming both readings", () => {
+    expect(removalProblem({ previous, next: { ...next, meterValue: 14280 } }, "UTC")).toBe(
+      "Without this reading the next one (14,280 h on 5 May 2026 12:00) would advance 50 h in only 48 h since the one before it (14,230 h on 3 May 2026 12:00). Correct the next reading first, or correct this one instead of removing it.",
+    );
+  });
+
+  it("refuses when the next one would be lower than the one before", () => {
+    expect(removalProblem({ previous, next: { ...next, meterValue: 14000 } }, "UTC")).toMatch(
+      /next one \(14,000 h on 5 May 2026 12:00\) would be lower than the one before it \(14,230 h on 3 May 2026 12:00\)/,
+    );
+  });
+
+  it("allows the engine running every hour: 48 h in 48 h", () => {
+    expect(removalProblem({ previous, next: { ...next, meterValue: 14278 } }, "UTC")).toBeNull();
   });
 });

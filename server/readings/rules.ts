@@ -65,6 +65,31 @@ export function readingProblem(
   return null;
 }
 
+/**
+ * Why a reading cannot be removed, or null when it can: without it the next reading is checked
+ * against the one before it, and must still not go backwards nor run more hours than elapsed.
+ * `previous` and `next` are the removed reading's neighbours on the same meter.
+ */
+export function removalProblem(
+  counter: Pick<CounterContext, "previous" | "next">,
+  timeZone: string,
+): string | null {
+  const { previous, next } = counter;
+  if (!previous || !next) return null;
+  const when = (d: Date) => formatShipTime(d, timeZone);
+  const nextText = `${formatHours(next.meterValue)} on ${when(next.readAt)}`;
+  const prevText = `${formatHours(previous.meterValue)} on ${when(previous.readAt)}`;
+  if (next.meterValue < previous.meterValue) {
+    return `Without this reading the next one (${nextText}) would be lower than the one before it (${prevText}). Correct the next reading first.`;
+  }
+  const advance = next.meterValue - previous.meterValue;
+  const elapsed = elapsedHours(previous.readAt, next.readAt);
+  if (advance > elapsed + TENTH_SLACK) {
+    return `Without this reading the next one (${nextText}) would advance ${formatHours(round1(advance))} in only ${formatHours(round1(elapsed))} since the one before it (${prevText}). Correct the next reading first, or correct this one instead of removing it.`;
+  }
+  return null;
+}
+
 /** Hours run per day between two readings; null when no time passed. */
 export function hoursPerDay(fromHours: number, fromAt: Date, toHours: number, toAt: Date): number | null {
   const days = elapsedHours(fromAt, toAt) / 24;

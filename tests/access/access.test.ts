@@ -19,12 +19,17 @@ beforeAll(async () => {
 });
 afterAll(closeTestDb);
 
+const NO_SUCH_ID = "00000000-0000-4000-8000-000000000000";
+
 /** Every route handler of the app but better-auth's own, with a valid-looking request. */
 function routes(f: Fixture) {
   return [
     { method: "GET", path: `/api/vessels/${f.vesselA.id}/hour-log` },
     { method: "GET", path: `/api/vessels/${f.vesselA.id}/readings?counterId=${f.counters.main.id}` },
     { method: "POST", path: `/api/vessels/${f.vesselA.id}/readings`, body: { shipDay: "2026-01-01", time: "09:00", entries: [] } },
+    { method: "PATCH", path: `/api/vessels/${f.vesselA.id}/readings/${NO_SUCH_ID}`, body: { value: 1, reason: "checking the door" } },
+    { method: "DELETE", path: `/api/vessels/${f.vesselA.id}/readings/${NO_SUCH_ID}`, body: { reason: "checking the door" } },
+    { method: "GET", path: `/api/vessels/${f.vesselA.id}/backlog/export` },
   ];
 }
 

@@ -90,6 +90,20 @@ describe("the demo chief engineer plans from the Calendar", () => {
       new RegExp(`/work-orders/${workOrder.id}$`),
     );
     await screenshot(page, "calendar-plan-panel");
+    // A day already past on board is refused beside the field, and nothing is saved.
+    const past = new Date(Date.now() - 3 * 86_400_000).toISOString().slice(0, 10);
+    await panel.getByLabel("Planned date").fill(past);
+    await page.keyboard.press("Enter");
+    const refusal = panel.getByText(/A planned day is today or later; .* has passed on board\./).first();
+    await refusal.waitFor();
+    expect(await panel.getByLabel("Planned date").getAttribute("aria-invalid")).toBe("true");
+    await screenshot(page, "calendar-plan-refused");
+    const unchanged = await page.evaluate(
+      async (url) => (await (await fetch(url)).json()) as CalendarRange,
+      new URL(`${page.url().replace(/\/calendar$/, "")}`).pathname.replace(/^\/vessels/, "/api/vessels") +
+        `/calendar?start=${list.start}&end=${list.end}`,
+    );
+    expect(unchanged.workOrders.find((w) => w.id === workOrder.id)?.plannedDate ?? null).toBeNull();
     await panel.getByLabel("Planned date").fill(day);
     await page.keyboard.press("Enter");
     await panel.waitFor({ state: "hidden" });

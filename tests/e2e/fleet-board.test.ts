@@ -6,6 +6,7 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD, demoVessels } from "@/db/seed/scenario";
 import type { FleetBoard } from "@/server/fleet/contract";
+import type { FleetOverdue } from "@/server/fleet/overdue-contract";
 import { BASE_URL, openPage, screenshot, signInThroughForm } from "../support/browser";
 
 let browser: Browser;
@@ -123,5 +124,41 @@ describe("the superintendent's Fleet board", () => {
     expect(after.pendingDeferrals.map((d) => d.id)).not.toContain(pending!.id);
     expect(after.pendingDeferrals).toHaveLength(board.pendingDeferrals.length - 1);
     await screenshot(page, "fleet-board-after-decision");
+  });
+
+  it("opens the overdue list of every vessel, narrows it to flagged work, and takes it away as CSV", async () => {
+    await page.goto(`${BASE_URL}/fleet`);
+    await page.getByRole("link", { name: "Overdue list, every vessel" }).click();
+    await page.waitForURL(/\/fleet\/overdue$/);
+    const all = (await (await page.request.get(`${BASE_URL}/api/fleet/overdue`)).json()) as FleetOverdue;
+    expect(all.items.length).toBeGreaterThan(0);
+    const table = page.getByRole("table", { name: /Overdue work orders/ });
+    const rows = table.locator("tbody tr");
+    await expect.poll(() => rows.count(), { timeout: 15_000 }).toBe(all.items.length);
+    // The worst first: out of tolerance before late, in words.
+    const states = await table.locator("[data-state]").allTextContents();
+    const firstLate = states.findIndex((t) => t.includes("late"));
+    expect(states.slice(firstLate).every((t) => t.includes("late"))).toBe(true);
+    await screenshot(page, "fleet-overdue");
+
+    await page.getByLabel("Critical or class-related only").click();
+    await page.waitForURL(/flagged=true/);
+    const flagged = all.items.filter((i) => i.critical || i.classRelated);
+    await expect.poll(() => rows.count()).toBe(flagged.length);
+    const href = await page.getByRole("link", { name: "Download CSV" }).getAttribute("href");
+    expect(href).toBe("/api/fleet/overdue/export?flagged=true");
+    const csv = await (await page.request.get(`${BASE_URL}${href}`)).text();
+    const lines = csv.replace(/^\uFEFF/, "").trim().split("\r\n");
+    expect(lines[0]).toMatch(/^Vessel,Work order,Title,/);
+    expect(lines).toHaveLength(flagged.length + 1);
+
+    await page.emulateMedia({ media: "print" });
+    await screenshot(page, "fleet-overdue-print");
+    await page.emulateMedia({ media: "screen" });
+    await page.evaluate(() => document.documentElement.classList.add("dark"));
+    await page.setViewportSize({ width: 820, height: 1180 });
+    await screenshot(page, "fleet-overdue-dark-tablet");
+    await page.evaluate(() => document.documentElement.classList.remove("dark"));
+    await page.setViewportSize({ width: 1280, height: 900 });
   });
 });

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requirePageAccess } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
@@ -12,7 +13,12 @@ export default async function FleetBoardPage() {
   if (!can(access.role, "fleet:read")) notFound();
   return (
     <main>
-      <h1 className="mb-1 text-lg font-bold">Fleet board</h1>
+      <div className="mb-1 flex flex-wrap items-baseline justify-between gap-2">
+        <h1 className="text-lg font-bold">Fleet board</h1>
+        <Link className="btn-quiet" href="/fleet/overdue">
+          Overdue list, every vessel
+        </Link>
+      </div>
       <p className="mb-4 text-ink-600 dark:text-ink-300">
         Every vessel of {access.company.name} at a glance: critical and class-related work gone out of tolerance or late
         comes first. Figures are the worker’s, taken after each recompute and once a day.

@@ -15,10 +15,22 @@ type Props = {
   onConfirm: () => Promise<string>;
   onDone: (message: string) => void;
   onClose: () => void;
+  /** False where a "Cancel" button would read as the action itself (cancelling a message). */
+  offerCancel?: boolean;
 };
 
 /** Asks once before a change that takes effect at once for other people. */
-export function ConfirmPanel({ title, subtitle, children, confirmLabel, tone, onConfirm, onDone, onClose }: Props) {
+export function ConfirmPanel({
+  title,
+  subtitle,
+  children,
+  confirmLabel,
+  tone,
+  onConfirm,
+  onDone,
+  onClose,
+  offerCancel = true,
+}: Props) {
   const [busy, setBusy] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
 
@@ -45,7 +57,7 @@ export function ConfirmPanel({ title, subtitle, children, confirmLabel, tone, on
           busyLabel="Working…"
           busy={busy}
           problem={problem}
-          onCancel={onClose}
+          onCancel={offerCancel ? onClose : undefined}
           danger={tone === "alarm"}
         />
       </form>

@@ -1,6 +1,7 @@
 "use client";
 
 import { useMemo, useState } from "react";
+import { type DataColumn, DataTable, TableSkeleton } from "@/app/_components/data-table";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
 import { ageOf } from "@/app/_components/relative-age";
@@ -11,13 +12,9 @@ import { ConfirmPanel } from "./confirm-panel";
 import { PasswordPanel } from "./password-panel";
 import { PersonForm } from "./person-form";
 import { RowButton } from "./row-button";
-import { TableSkeleton } from "./table-skeleton";
 import { useAdminPeople, useAdminVessels, useUpdatePerson } from "./use-admin";
 
 type Open = { kind: "add" } | { kind: "edit" | "password" | "disable" | "enable"; person: AdminPerson } | null;
-
-const TH = "px-3 py-2 font-semibold";
-const TD = "px-3 py-2";
 
 export function PeopleAdmin() {
   const people = useAdminPeople();
@@ -45,6 +42,94 @@ export function PeopleAdmin() {
       : true,
   );
   const disabledCount = people.data.people.filter((p) => p.disabled).length;
+  const columns: DataColumn<AdminPerson>[] = [
+    {
+      id: "name",
+      header: "Name and e-mail",
+      cellClassName: "font-normal",
+      cell: (p) => (
+        <>
+          <span className="font-semibold whitespace-nowrap">{p.name}</span>
+          {p.isYou && (
+            <span className="ml-1.5 rounded bg-tide-50 px-1.5 py-0.5 text-xs font-medium text-tide-700 dark:bg-tide-900 dark:text-tide-200">
+              you
+            </span>
+          )}
+          <span className="block text-xs text-ink-500 dark:text-ink-400">{p.email}</span>
+        </>
+      ),
+    },
+    {
+      id: "role",
+      header: "Role",
+      cellClassName: "whitespace-nowrap",
+      cell: (p) => (
+        <>
+          {ROLE_LABEL[p.role]}
+          {/* On a tablet the rank sits under the role, to keep the actions in view. */}
+          {p.rank && <span className="block text-xs text-ink-500 lg:hidden dark:text-ink-400">{p.rank}</span>}
+        </>
+      ),
+    },
+    {
+      id: "rank",
+      header: "Rank",
+      className: "hidden lg:table-cell",
+      cellClassName: "whitespace-nowrap",
+      cell: (p) => p.rank ?? <span className="text-ink-400">—</span>,
+    },
+    {
+      id: "vessels",
+      header: "Vessels",
+      cell: (p) =>
+        seesWholeFleet(p.role) ? (
+          <span className="whitespace-nowrap text-ink-500 dark:text-ink-400">whole fleet</span>
+        ) : p.vessels.length ? (
+          <span className="font-mono text-xs" title={p.vessels.map((v) => v.name).join(", ")}>
+            {p.vessels.map((v) => v.code).join(" · ")}
+          </span>
+        ) : (
+          <span className="font-medium text-brass-700 dark:text-brass-300">none</span>
+        ),
+    },
+    {
+      id: "status",
+      header: "Status",
+      cell: (p) =>
+        p.disabled ? (
+          <span className="font-semibold text-alarm-700 dark:text-alarm-300">disabled</span>
+        ) : p.invitedAt ? (
+          <span className="font-medium text-brass-700 dark:text-brass-300" title="No password chosen yet">
+            invited
+          </span>
+        ) : (
+          <span className="font-medium text-go-700 dark:text-go-300">active</span>
+        ),
+    },
+    {
+      id: "last-sign-in",
+      header: "Last sign-in",
+      className: "hidden lg:table-cell",
+      cellClassName: "whitespace-nowrap text-ink-600 dark:text-ink-300",
+      cell: (p) => (p.lastSignInAt ? ageOf(p.lastSignInAt, now) : "—"),
+    },
+    {
+      id: "actions",
+      header: "Actions",
+      hideHeader: true,
+      cell: (p) => (
+        <div className="flex justify-end gap-1.5">
+          <RowButton label="Edit" who={p.name} onClick={() => setOpen({ kind: "edit", person: p })} />
+          <RowButton label="Password" who={p.name} onClick={() => setOpen({ kind: "password", person: p })} />
+          <RowButton
+            label={p.disabled ? "Enable" : "Disable"}
+            who={p.name}
+            onClick={() => setOpen({ kind: p.disabled ? "enable" : "disable", person: p })}
+          />
+        </div>
+      ),
+    },
+  ];
 
   return (
     <section aria-labelledby="people-heading">
@@ -70,104 +155,14 @@ export function PeopleAdmin() {
         </div>
       </div>
       <Notice message={notice} className="mb-3" />
-      <div className="relative overflow-x-auto panel">
-        <table className="w-full text-left">
-          <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
-            <tr className="border-b border-ink-200 dark:border-ink-800">
-              <th scope="col" className={`${TH} pl-4`}>
-                Name and e-mail
-              </th>
-              <th scope="col" className={TH}>
-                Role
-              </th>
-              <th scope="col" className={`${TH} hidden lg:table-cell`}>
-                Rank
-              </th>
-              <th scope="col" className={TH}>
-                Vessels
-              </th>
-              <th scope="col" className={TH}>
-                Status
-              </th>
-              <th scope="col" className={`${TH} hidden lg:table-cell`}>
-                Last sign-in
-              </th>
-              <th scope="col" className={`${TH} pr-4`}>
-                <span className="sr-only">Actions</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {shown.length === 0 && (
-              <tr>
-                <td colSpan={7} className="px-4 py-6 text-ink-500">
-                  Nobody matches “{filter}”.
-                </td>
-              </tr>
-            )}
-            {shown.map((p) => (
-              <tr
-                key={p.id}
-                className={`border-b border-ink-100 last:border-0 dark:border-ink-850 ${p.disabled ? "text-ink-500 dark:text-ink-400" : ""}`}
-              >
-                <th scope="row" className={`${TD} pl-4 font-normal`}>
-                  <span className="font-semibold whitespace-nowrap">{p.name}</span>
-                  {p.isYou && (
-                    <span className="ml-1.5 rounded bg-tide-50 px-1.5 py-0.5 text-xs font-medium text-tide-700 dark:bg-tide-900 dark:text-tide-200">
-                      you
-                    </span>
-                  )}
-                  <span className="block text-xs text-ink-500 dark:text-ink-400">{p.email}</span>
-                </th>
-                <td className={`${TD} whitespace-nowrap`}>
-                  {ROLE_LABEL[p.role]}
-                  {/* On a tablet the rank sits under the role, to keep the actions in view. */}
-                  {p.rank && <span className="block text-xs text-ink-500 lg:hidden dark:text-ink-400">{p.rank}</span>}
-                </td>
-                <td className={`${TD} hidden whitespace-nowrap lg:table-cell`}>
-                  {p.rank ?? <span className="text-ink-400">—</span>}
-                </td>
-                <td className={TD}>
-                  {seesWholeFleet(p.role) ? (
-                    <span className="whitespace-nowrap text-ink-500 dark:text-ink-400">whole fleet</span>
-                  ) : p.vessels.length ? (
-                    <span className="font-mono text-xs" title={p.vessels.map((v) => v.name).join(", ")}>
-                      {p.vessels.map((v) => v.code).join(" · ")}
-                    </span>
-                  ) : (
-                    <span className="font-medium text-brass-700 dark:text-brass-300">none</span>
-                  )}
-                </td>
-                <td className={TD}>
-                  {p.disabled ? (
-                    <span className="font-semibold text-alarm-700 dark:text-alarm-300">disabled</span>
-                  ) : p.invitedAt ? (
-                    <span className="font-medium text-brass-700 dark:text-brass-300" title="No password chosen yet">
-                      invited
-                    </span>
-                  ) : (
-                    <span className="font-medium text-go-700 dark:text-go-300">active</span>
-                  )}
-                </td>
-                <td className={`${TD} hidden whitespace-nowrap text-ink-600 lg:table-cell dark:text-ink-300`}>
-                  {p.lastSignInAt ? ageOf(p.lastSignInAt, now) : "—"}
-                </td>
-                <td className={`${TD} pr-4`}>
-                  <div className="flex justify-end gap-1.5">
-                    <RowButton label="Edit" who={p.name} onClick={() => setOpen({ kind: "edit", person: p })} />
-                    <RowButton label="Password" who={p.name} onClick={() => setOpen({ kind: "password", person: p })} />
-                    <RowButton
-                      label={p.disabled ? "Enable" : "Disable"}
-                      who={p.name}
-                      onClick={() => setOpen({ kind: p.disabled ? "enable" : "disable", person: p })}
-                    />
-                  </div>
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        columns={columns}
+        rows={shown}
+        rowKey={(p) => p.id}
+        labelledBy="people-heading"
+        rowClassName={(p) => (p.disabled ? "text-ink-500 dark:text-ink-400" : "")}
+        empty={`Nobody matches “${filter}”.`}
+      />
 
       {(open?.kind === "add" || open?.kind === "edit") && (
         <SidePanel

@@ -1,19 +1,19 @@
 "use client";
 
 import { useState } from "react";
+import { type DataColumn, DataTable, TableSkeleton } from "@/app/_components/data-table";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
 import type { AdminVessel } from "@/server/admin/contract";
 import { ConfirmPanel } from "./confirm-panel";
 import { RowButton } from "./row-button";
-import { TableSkeleton } from "./table-skeleton";
 import { useAdminVessels, useRetireVessel, useSaveVessel } from "./use-admin";
 import { VesselForm } from "./vessel-form";
 
 type Open = { kind: "add" } | { kind: "edit" | "retire" | "return"; vessel: AdminVessel } | null;
 
-const TH = "px-3 py-2 font-semibold";
-const TD = "px-3 py-2";
+const retiredOn = (iso: string) =>
+  new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
 
 export function VesselAdmin() {
   const { data, error, isPending } = useAdminVessels();
@@ -29,6 +29,45 @@ export function VesselAdmin() {
   if (isPending) return <TableSkeleton label="Loading the vessels" />;
   if (error) return <LoadProblem what="vessels" error={error} />;
   const inService = data.vessels.filter((v) => !v.retiredAt).length;
+  const columns: DataColumn<AdminVessel>[] = [
+    { id: "name", header: "Name", cellClassName: "font-semibold", cell: (v) => v.name },
+    { id: "code", header: "Code", cellClassName: "font-mono", cell: (v) => v.code },
+    { id: "imo", header: "IMO", cellClassName: "font-mono whitespace-nowrap", cell: (v) => `IMO ${v.imoNumber}` },
+    { id: "zone", header: "Ship’s time zone", cell: (v) => v.timeZone },
+    { id: "counters", header: "Counters", align: "right", cellClassName: "tabular-nums", cell: (v) => v.counters },
+    {
+      id: "assigned",
+      header: "Assigned",
+      align: "right",
+      cellClassName: "tabular-nums",
+      cell: (v) => v.assignedPeople,
+    },
+    {
+      id: "status",
+      header: "Status",
+      cell: (v) =>
+        v.retiredAt ? (
+          <span>retired {retiredOn(v.retiredAt)}</span>
+        ) : (
+          <span className="font-medium text-go-700 dark:text-go-300">in service</span>
+        ),
+    },
+    {
+      id: "actions",
+      header: "Actions",
+      hideHeader: true,
+      cell: (v) => (
+        <div className="flex justify-end gap-1.5">
+          <RowButton label="Edit" who={v.name} onClick={() => setOpen({ kind: "edit", vessel: v })} />
+          <RowButton
+            label={v.retiredAt ? "Return to service" : "Retire"}
+            who={v.name}
+            onClick={() => setOpen({ kind: v.retiredAt ? "return" : "retire", vessel: v })}
+          />
+        </div>
+      ),
+    },
+  ];
 
   return (
     <section aria-labelledby="vessels-heading">
@@ -47,86 +86,14 @@ export function VesselAdmin() {
         </button>
       </div>
       <Notice message={notice} className="mb-3" />
-      <div className="relative overflow-x-auto panel">
-        <table className="w-full text-left">
-          <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
-            <tr className="border-b border-ink-200 dark:border-ink-800">
-              <th scope="col" className={`${TH} pl-4`}>
-                Name
-              </th>
-              <th scope="col" className={TH}>
-                Code
-              </th>
-              <th scope="col" className={TH}>
-                IMO
-              </th>
-              <th scope="col" className={TH}>
-                Ship’s time zone
-              </th>
-              <th scope="col" className={`${TH} text-right`}>
-                Counters
-              </th>
-              <th scope="col" className={`${TH} text-right`}>
-                Assigned
-              </th>
-              <th scope="col" className={TH}>
-                Status
-              </th>
-              <th scope="col" className={`${TH} pr-4`}>
-                <span className="sr-only">Actions</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {data.vessels.length === 0 && (
-              <tr>
-                <td colSpan={8} className="px-4 py-6 text-ink-500">
-                  No vessels yet. Add the first one; its IMO number is on the ship’s certificates.
-                </td>
-              </tr>
-            )}
-            {data.vessels.map((v) => (
-              <tr
-                key={v.id}
-                className={`border-b border-ink-100 last:border-0 dark:border-ink-850 ${v.retiredAt ? "text-ink-500 dark:text-ink-400" : ""}`}
-              >
-                <th scope="row" className={`${TD} pl-4 font-semibold`}>
-                  {v.name}
-                </th>
-                <td className={`${TD} font-mono`}>{v.code}</td>
-                <td className={`${TD} font-mono whitespace-nowrap`}>IMO {v.imoNumber}</td>
-                <td className={TD}>{v.timeZone}</td>
-                <td className={`${TD} text-right tabular-nums`}>{v.counters}</td>
-                <td className={`${TD} text-right tabular-nums`}>{v.assignedPeople}</td>
-                <td className={TD}>
-                  {v.retiredAt ? (
-                    <span>
-                      retired{" "}
-                      {new Date(v.retiredAt).toLocaleDateString("en-GB", {
-                        day: "numeric",
-                        month: "short",
-                        year: "numeric",
-                      })}
-                    </span>
-                  ) : (
-                    <span className="font-medium text-go-700 dark:text-go-300">in service</span>
-                  )}
-                </td>
-                <td className={`${TD} pr-4`}>
-                  <div className="flex justify-end gap-1.5">
-                    <RowButton label="Edit" who={v.name} onClick={() => setOpen({ kind: "edit", vessel: v })} />
-                    <RowButton
-                      label={v.retiredAt ? "Return to service" : "Retire"}
-                      who={v.name}
-                      onClick={() => setOpen({ kind: v.retiredAt ? "return" : "retire", vessel: v })}
-                    />
-                  </div>
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        columns={columns}
+        rows={data.vessels}
+        rowKey={(v) => v.id}
+        labelledBy="vessels-heading"
+        rowClassName={(v) => (v.retiredAt ? "text-ink-500 dark:text-ink-400" : "")}
+        empty="No vessels yet. Add the first one; its IMO number is on the ship’s certificates."
+      />
 
       {(open?.kind === "add" || open?.kind === "edit") && (
         <SidePanel

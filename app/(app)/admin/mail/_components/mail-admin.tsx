@@ -1,25 +1,13 @@
 "use client";
 
-import { format } from "date-fns";
 import { useState } from "react";
-import { LoadProblem } from "@/app/_components/notice";
+import { TableSkeleton } from "@/app/_components/data-table";
+import { LoadProblem, Notice } from "@/app/_components/notice";
 import { ageOf } from "@/app/_components/relative-age";
-import type { AdminMail, CaughtMessage, OutboxRow } from "@/server/mail/contract";
-import { MAIL_KIND_LABEL } from "@/server/mail/kinds";
-import { TableSkeleton } from "../../_components/table-skeleton";
-import { useAdminMail } from "./use-admin-mail";
-
-const TH = "px-3 py-2 font-semibold";
-const TD = "px-3 py-2 align-top";
-
-const STATUS_TONE: Record<OutboxRow["status"], string> = {
-  pending: "text-brass-700 dark:text-brass-300",
-  sending: "text-tide-700 dark:text-tide-300",
-  sent: "text-go-700 dark:text-go-300",
-  failed: "text-alarm-700 dark:text-alarm-300",
-};
-
-const when = (iso: string) => format(new Date(iso), "d MMM yyyy, HH:mm");
+import type { AdminMail, CaughtMessage } from "@/server/mail/contract";
+import { ConfirmPanel } from "../../_components/confirm-panel";
+import { Outbox, when } from "./outbox";
+import { useAdminMail, useClearCaught } from "./use-admin-mail";
 
 export function MailAdmin() {
   const mail = useAdminMail();
@@ -67,14 +55,46 @@ function Delivery({ data, refreshing, onRefresh }: { data: AdminMail; refreshing
 
 function CaughtMail({ messages, problem, now }: { messages: CaughtMessage[]; problem: string | null; now: Date }) {
   const [openId, setOpenId] = useState<string | null>(null);
+  const [confirming, setConfirming] = useState(false);
+  const [notice, setNotice] = useState<string | null>(null);
+  const clear = useClearCaught();
   const open = messages.find((m) => m.id === openId) ?? messages[0] ?? null;
 
   return (
     <section aria-labelledby="caught-heading">
-      <h3 id="caught-heading" className="mb-2 font-semibold">
-        Caught by the mail catcher{" "}
-        <span className="font-normal text-ink-500 dark:text-ink-400">({messages.length})</span>
-      </h3>
+      <div className="mb-2 flex flex-wrap items-end justify-between gap-3">
+        <h3 id="caught-heading" className="font-semibold">
+          Caught by the mail catcher{" "}
+          <span className="font-normal text-ink-500 dark:text-ink-400">({messages.length})</span>
+        </h3>
+        <button type="button" className="btn-quiet px-2 py-1 text-xs" onClick={() => setConfirming(true)}>
+          Clear caught mail
+        </button>
+      </div>
+      <Notice message={notice} className="mb-3" />
+      {confirming && (
+        <ConfirmPanel
+          title="Clear the caught mail?"
+          subtitle="The local mail catcher of this development set-up"
+          confirmLabel="Clear caught mail"
+          tone="alarm"
+          onConfirm={async () => {
+            await clear.mutateAsync();
+            return "The mail catcher is empty. The outbox is as it was; nothing is sent again.";
+          }}
+          onDone={(message) => {
+            setConfirming(false);
+            setNotice(message);
+          }}
+          onClose={() => setConfirming(false)}
+        >
+          <p>
+            The catcher forgets every message it holds, those of other companies on this set-up too: it keeps no company
+            apart.
+          </p>
+          <p>The outbox is not touched: sent messages stay marked sent and are not sent again.</p>
+        </ConfirmPanel>
+      )}
       {problem && (
         <p
           role="alert"
@@ -176,82 +196,5 @@ function MessageViewer({ message }: { message: CaughtMessage }) {
         </pre>
       )}
     </article>
-  );
-}
-
-function Outbox({ rows }: { rows: OutboxRow[] }) {
-  const counts = rows.reduce<Record<string, number>>(
-    (acc, r) => ({ ...acc, [r.status]: (acc[r.status] ?? 0) + 1 }),
-    {},
-  );
-  return (
-    <section aria-labelledby="outbox-heading">
-      <h3 id="outbox-heading" className="font-semibold">
-        Outbox
-      </h3>
-      <p className="mb-2 text-ink-500 dark:text-ink-400">
-        Every message is written here before it is sent, once per person and subject, and retried with growing pauses
-        when the relay fails.{" "}
-        {rows.length > 0 &&
-          (["pending", "sending", "sent", "failed"] as const)
-            .filter((s) => counts[s])
-            .map((s) => `${counts[s]} ${s}`)
-            .join(", ")}
-        {rows.length === 100 && " (the latest 100)"}
-      </p>
-      <div className="overflow-x-auto panel">
-        <table className="w-full text-left">
-          <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
-            <tr className="border-b border-ink-200 dark:border-ink-800">
-              <th scope="col" className={`${TH} pl-4`}>
-                Message
-              </th>
-              <th scope="col" className={TH}>
-                Status
-              </th>
-              <th scope="col" className={`${TH} text-right`}>
-                Attempts
-              </th>
-              <th scope="col" className={`${TH} pr-4`}>
-                Last error
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.length === 0 && (
-              <tr>
-                <td colSpan={4} className="px-4 py-6 text-ink-500 dark:text-ink-400">
-                  Nothing queued yet.
-                </td>
-              </tr>
-            )}
-            {rows.map((r) => (
-              <tr key={r.id} className="border-b border-ink-100 last:border-0 dark:border-ink-850">
-                <th scope="row" className={`${TD} pl-4 font-normal`}>
-                  <span className="block font-semibold">{r.subject}</span>
-                  <span className="block text-xs text-ink-500 dark:text-ink-400">
-                    {MAIL_KIND_LABEL[r.kind]} · to {r.to} · queued {when(r.createdAt)}
-                  </span>
-                </th>
-                <td className={`${TD} whitespace-nowrap`}>
-                  <span className={`font-semibold ${STATUS_TONE[r.status]}`}>{r.status}</span>
-                  <span className="block text-xs text-ink-500 dark:text-ink-400">
-                    {r.status === "sent" && r.sentAt
-                      ? when(r.sentAt)
-                      : r.status === "pending"
-                        ? `next try ${when(r.nextAttemptAt)}`
-                        : ""}
-                  </span>
-                </td>
-                <td className={`${TD} text-right tabular-nums`}>{r.attempts}</td>
-                <td className={`${TD} pr-4 text-xs break-words text-ink-600 dark:text-ink-300`}>
-                  {r.lastError ?? <span className="text-ink-400">—</span>}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
-    </section>
   );
 }

@@ -1,6 +1,7 @@
 "use client";
 
 import { useState } from "react";
+import { type DataColumn, DataTable, TableSkeleton } from "@/app/_components/data-table";
 import { problemSentence } from "@/app/_components/forms/form-problem";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
@@ -8,7 +9,6 @@ import type { ToleranceKind } from "@/server/scheduling/tolerance";
 import type { AdminToleranceRule } from "@/server/tolerance/contract";
 import { ConfirmPanel } from "../../_components/confirm-panel";
 import { RowButton } from "../../_components/row-button";
-import { TableSkeleton } from "../../_components/table-skeleton";
 import { ToleranceRuleForm } from "./tolerance-rule-form";
 import { matchesWords, spanWords } from "./tolerance-words";
 import { useDeleteToleranceRule, useRestorePresets, useToleranceRules } from "./use-tolerance-rules";
@@ -18,9 +18,6 @@ type Open =
   | { kind: "edit"; rule: AdminToleranceRule }
   | { kind: "delete"; rule: AdminToleranceRule }
   | null;
-
-const TH = "px-3 py-2 font-semibold";
-const TD = "px-3 py-1.5";
 
 const KIND_HEADING: Record<ToleranceKind, string> = {
   calendar: "Calendar intervals",
@@ -146,6 +143,49 @@ type RuleTableProps = {
 function RuleTable({ ruleKind, rules, onAdd, onEdit, onDelete }: RuleTableProps) {
   const headingId = `rules-${ruleKind}`;
   const hours = ruleKind === "hours";
+  const columns: DataColumn<AdminToleranceRule>[] = [
+    {
+      id: "name",
+      header: "Name",
+      cellClassName: "font-semibold",
+      cell: (rule) => (
+        <>
+          {rule.name}
+          {rule.overridingRoutines > 0 && (
+            <span className="block text-xs font-normal text-ink-500 dark:text-ink-400">
+              chosen on {rule.overridingRoutines === 1 ? "1 routine" : `${rule.overridingRoutines} routines`}
+            </span>
+          )}
+        </>
+      ),
+    },
+    { id: "matches", header: "Matches", cell: (rule) => matchesWords(rule) },
+    { id: "window", header: "Window before", cell: (rule) => spanWords(rule.windowBefore) },
+    { id: "grace", header: "Grace after", cell: (rule) => spanWords(rule.graceAfter) },
+    ...(hours
+      ? [
+          {
+            id: "cap",
+            header: "Cap",
+            align: "right",
+            cellClassName: "whitespace-nowrap tabular-nums",
+            cell: (rule) => (rule.capHours === null ? "none" : `${rule.capHours.toLocaleString("en-GB")} h`),
+          } satisfies DataColumn<AdminToleranceRule>,
+        ]
+      : []),
+    { id: "anniversary", header: "Keeps anniversary", cell: (rule) => (rule.keepsAnniversary ? "yes" : "no") },
+    {
+      id: "actions",
+      header: "Actions",
+      hideHeader: true,
+      cell: (rule) => (
+        <div className="flex justify-end gap-1.5">
+          <RowButton label="Edit" who={rule.name} onClick={() => onEdit(rule)} />
+          <RowButton label="Delete" who={rule.name} onClick={() => onDelete(rule)} />
+        </div>
+      ),
+    },
+  ];
   return (
     <section aria-labelledby={headingId}>
       <div className="mb-2 flex items-end justify-between gap-3">
@@ -156,73 +196,14 @@ function RuleTable({ ruleKind, rules, onAdd, onEdit, onDelete }: RuleTableProps)
           Add {hours ? "running-hours" : "calendar"} rule
         </button>
       </div>
-      <div className="overflow-x-auto panel">
-        <table className="w-full text-left">
-          <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
-            <tr className="border-b border-ink-200 dark:border-ink-800">
-              <th scope="col" className={`${TH} pl-4`}>
-                Name
-              </th>
-              <th scope="col" className={TH}>
-                Matches
-              </th>
-              <th scope="col" className={TH}>
-                Window before
-              </th>
-              <th scope="col" className={TH}>
-                Grace after
-              </th>
-              {hours && (
-                <th scope="col" className={`${TH} text-right`}>
-                  Cap
-                </th>
-              )}
-              <th scope="col" className={TH}>
-                Keeps anniversary
-              </th>
-              <th scope="col" className={`${TH} pr-4`}>
-                <span className="sr-only">Actions</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {rules.length === 0 && (
-              <tr>
-                <td colSpan={hours ? 7 : 6} className="px-4 py-4 text-ink-500 dark:text-ink-400">
-                  No {hours ? "running-hours" : "calendar"} rules: routines of this kind get no window and no grace.
-                </td>
-              </tr>
-            )}
-            {rules.map((rule) => (
-              <tr key={rule.id} className="border-b border-ink-100 last:border-0 dark:border-ink-850">
-                <th scope="row" className={`${TD} pl-4 font-semibold`}>
-                  {rule.name}
-                  {rule.overridingRoutines > 0 && (
-                    <span className="block text-xs font-normal text-ink-500 dark:text-ink-400">
-                      chosen on {rule.overridingRoutines === 1 ? "1 routine" : `${rule.overridingRoutines} routines`}
-                    </span>
-                  )}
-                </th>
-                <td className={TD}>{matchesWords(rule)}</td>
-                <td className={TD}>{spanWords(rule.windowBefore)}</td>
-                <td className={TD}>{spanWords(rule.graceAfter)}</td>
-                {hours && (
-                  <td className={`${TD} text-right whitespace-nowrap tabular-nums`}>
-                    {rule.capHours === null ? "none" : `${rule.capHours.toLocaleString("en-GB")} h`}
-                  </td>
-                )}
-                <td className={TD}>{rule.keepsAnniversary ? "yes" : "no"}</td>
-                <td className={`${TD} pr-4`}>
-                  <div className="flex justify-end gap-1.5">
-                    <RowButton label="Edit" who={rule.name} onClick={() => onEdit(rule)} />
-                    <RowButton label="Delete" who={rule.name} onClick={() => onDelete(rule)} />
-                  </div>
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        columns={columns}
+        rows={rules}
+        rowKey={(rule) => rule.id}
+        labelledBy={headingId}
+        density="compact"
+        empty={`No ${hours ? "running-hours" : "calendar"} rules: routines of this kind get no window and no grace.`}
+      />
     </section>
   );
 }

@@ -99,20 +99,30 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
             {data?.computedAt ? ` · worked out ${ageOf(data.computedAt, new Date())}` : ""}
           </span>
         </h2>
-        <label className="flex items-center gap-2">
-          <span className="text-ink-600 dark:text-ink-300">Sort</span>
-          <select
-            className="field w-auto"
-            value={sort}
-            onChange={(e) => update({ sort: e.target.value === "urgency" ? "" : e.target.value })}
+        <div className="flex flex-wrap items-center gap-3">
+          <a
+            className="btn-quiet"
+            href={`/api/vessels/${vesselId}/backlog/export${exportQuery(params)}`}
+            download
+            title="Every work order under these filters, in this order, as a spreadsheet file"
           >
-            {BACKLOG_SORTS.map((s) => (
-              <option key={s} value={s}>
-                {SORT_LABEL[s]}
-              </option>
-            ))}
-          </select>
-        </label>
+            Download CSV
+          </a>
+          <label className="flex items-center gap-2">
+            <span className="text-ink-600 dark:text-ink-300">Sort</span>
+            <select
+              className="field w-auto"
+              value={sort}
+              onChange={(e) => update({ sort: e.target.value === "urgency" ? "" : e.target.value })}
+            >
+              {BACKLOG_SORTS.map((s) => (
+                <option key={s} value={s}>
+                  {SORT_LABEL[s]}
+                </option>
+              ))}
+            </select>
+          </label>
+        </div>
       </div>
       <PendingDeferrals
         count={data?.pendingDeferrals ?? 0}
@@ -190,6 +200,14 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
       )}
     </section>
   );
+}
+
+/** The page's filters and sort without its paging: the export carries every page. */
+function exportQuery(params: URLSearchParams): string {
+  const q = new URLSearchParams(params.toString());
+  q.delete("page");
+  q.delete("pageSize");
+  return q.size ? `?${q.toString().replace(/%2C/g, ",")}` : "";
 }
 
 /** Requests someone has to decide: said above the list, with the filter that shows just those. */

@@ -1,6 +1,6 @@
 // The Hour log form's schema: the same pieces as the route handler's contract, per counter.
 import { z } from "zod";
-import { MeterValue, type ReadingBatchInput, ShipClock, ShipDay } from "@/server/readings/contract";
+import { CorrectionReason, MeterValue, type ReadingBatchInput, ShipClock, ShipDay } from "@/server/readings/contract";
 
 export const HourLogForm = z
   .object({
@@ -32,3 +32,22 @@ export function toBatch(form: HourLogForm, order: string[]): ReadingBatchInput {
       .map((counterId) => ({ counterId, value: form.values[counterId]!.trim() })),
   };
 }
+
+/**
+ * The correction panel's schema: a corrected value, or the removal of the reading; a reason either
+ * way (the same rule as the route handler's contract).
+ */
+export const CorrectionForm = z
+  .object({
+    remove: z.boolean(),
+    value: z.string(),
+    remark: z.string(),
+    reason: CorrectionReason,
+  })
+  .superRefine((form, ctx) => {
+    if (form.remove) return;
+    const parsed = MeterValue.safeParse(form.value);
+    if (!parsed.success) ctx.addIssue({ code: "custom", path: ["value"], message: parsed.error.issues[0]!.message });
+  });
+export type CorrectionFormValues = z.input<typeof CorrectionForm>;
+export type CorrectionFormOutput = z.output<typeof CorrectionForm>;

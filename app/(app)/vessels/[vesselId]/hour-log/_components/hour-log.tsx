@@ -37,6 +37,7 @@ export function HourLog({ vesselId }: { vesselId: string }) {
         counterId={selected}
         onCounterChange={setChartCounter}
         timeZone={data.vessel.timeZone}
+        canWrite={data.canWrite}
       />
     </div>
   );

@@ -1,7 +1,10 @@
 "use client";
 
 import { Bar, BarChart, CartesianGrid, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
-import { formatHours, formatShipTime } from "@/server/format/hours";
+import { useState } from "react";
+import { Notice } from "@/app/_components/notice";
+import { formatHours } from "@/server/format/hours";
+import { RecentReadings } from "./recent-readings";
 import { useReadingHistory } from "./use-hour-log";
 
 type Props = {
@@ -10,15 +13,17 @@ type Props = {
   counterId: string;
   onCounterChange: (id: string) => void;
   timeZone: string;
+  /** Whether the user may correct readings (`readings:write`). */
+  canWrite: boolean;
 };
 
 const DAYS = 90;
 
-export function RunningHoursChart({ vesselId, counters, counterId, onCounterChange, timeZone }: Props) {
+export function RunningHoursChart({ vesselId, counters, counterId, onCounterChange, timeZone, canWrite }: Props) {
   const { data, isPending, error } = useReadingHistory(vesselId, counterId, DAYS);
+  const [changed, setChanged] = useState<string | null>(null);
   const daily = data?.daily ?? [];
   const total = daily.reduce((sum, d) => sum + d.hours, 0);
-  const recent = [...(data?.readings ?? [])].reverse().slice(0, 8);
 
   return (
     <section className="panel p-4" aria-labelledby="chart-heading">
@@ -28,7 +33,14 @@ export function RunningHoursChart({ vesselId, counters, counterId, onCounterChan
         </h2>
         <label className="flex items-center gap-2">
           <span className="text-ink-600 dark:text-ink-300">Counter</span>
-          <select className="field w-auto" value={counterId} onChange={(e) => onCounterChange(e.target.value)}>
+          <select
+            className="field w-auto"
+            value={counterId}
+            onChange={(e) => {
+              setChanged(null);
+              onCounterChange(e.target.value);
+            }}
+          >
             {counters.map((c) => (
               <option key={c.id} value={c.id}>
                 {c.name}
@@ -37,6 +49,7 @@ export function RunningHoursChart({ vesselId, counters, counterId, onCounterChan
           </select>
         </label>
       </div>
+      <Notice message={changed} className="mb-3" />
       {error ? (
         <p role="alert" className="text-alarm-600">
           The history could not be loaded: {error.message}
@@ -46,7 +59,7 @@ export function RunningHoursChart({ vesselId, counters, counterId, onCounterChan
       ) : daily.length === 0 ? (
         <p className="py-10 text-center text-ink-500">No readings in the last {DAYS} days.</p>
       ) : (
-        <div className="grid gap-4 lg:grid-cols-[1fr_16rem]">
+        <div className="grid gap-4 lg:grid-cols-[1fr_23rem]">
           <figure>
             <div className="h-56 text-ink-500" data-testid="running-hours-chart" data-points={daily.length} data-last-day={daily.at(-1)?.day} data-last-hours={daily.at(-1)?.hours}>
               <ResponsiveContainer width="100%" height="100%">
@@ -68,17 +81,9 @@ export function RunningHoursChart({ vesselId, counters, counterId, onCounterChan
               average. Between two readings the hours are spread evenly over the ship’s days.
             </figcaption>
           </figure>
-          <div>
-            <h3 className="label">Latest readings</h3>
-            <ol className="grid gap-0.5 tabular-nums">
-              {recent.map((r) => (
-                <li key={r.readAt} className="flex justify-between gap-2">
-                  <span className="text-ink-500">{formatShipTime(new Date(r.readAt), timeZone)}</span>
-                  <span className="font-medium">{formatHours(r.meterValue)}</span>
-                </li>
-              ))}
-            </ol>
-          </div>
+          {data && (
+            <RecentReadings vesselId={vesselId} history={data} timeZone={timeZone} canWrite={canWrite} onChanged={setChanged} />
+          )}
         </div>
       )}
     </section>

@@ -2,6 +2,7 @@
 
 import Link from "next/link";
 import { useState } from "react";
+import { type DataColumn, DataTable, TableSkeleton } from "@/app/_components/data-table";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
 import type { PortStayView } from "@/server/port-stays/contract";
@@ -16,7 +17,7 @@ export function PortStaysView({ vesselId, timeZone }: Props) {
   const [adding, setAdding] = useState(false);
   const [notice, setNotice] = useState<string | null>(null);
 
-  if (isPending) return <div className="h-64 animate-pulse panel" aria-busy="true" aria-label="Loading the port stays" />;
+  if (isPending) return <TableSkeleton label="Loading the port stays" rows={4} />;
   if (error) return <LoadProblem what="port stays" error={error} />;
 
   return (
@@ -25,7 +26,8 @@ export function PortStaysView({ vesselId, timeZone }: Props) {
         <div>
           <h1 className="text-xl font-bold">Port stays</h1>
           <p className="text-ink-600 dark:text-ink-300">
-            Port calls with the crew’s hours for maintenance; plan each one’s work package. Times are ship’s time ({timeZone}).
+            Port calls with the crew’s hours for maintenance; plan each one’s work package. Times are ship’s time (
+            {timeZone}).
           </p>
         </div>
         {data.may.plan && (
@@ -75,9 +77,6 @@ export function PortStaysView({ vesselId, timeZone }: Props) {
   );
 }
 
-const TH = "px-3 py-2 font-semibold";
-const TD = "px-3 py-2 align-top";
-
 function StayTable({
   vesselId,
   timeZone,
@@ -92,6 +91,53 @@ function StayTable({
   empty: string;
 }) {
   const id = `stays-${title.toLowerCase()}`;
+  const columns: DataColumn<PortStayView>[] = [
+    {
+      id: "port",
+      header: "Port",
+      cell: (s) => (
+        <>
+          <Link
+            href={`/vessels/${vesselId}/port-stays/${s.id}`}
+            className="font-semibold text-tide-700 underline-offset-2 hover:underline dark:text-tide-300"
+          >
+            {s.port}
+          </Link>
+          {s.remarks && <span className="block font-normal text-ink-500 dark:text-ink-400">{s.remarks}</span>}
+        </>
+      ),
+    },
+    {
+      id: "period",
+      header: "Arrival – departure",
+      cellClassName: "whitespace-nowrap tabular-nums",
+      cell: (s) => (
+        <>
+          {stayPeriod(s.arrivesAt, s.departsAt, timeZone)}
+          <span className="block text-ink-500 dark:text-ink-400">
+            {s.days.length} ship’s day{s.days.length === 1 ? "" : "s"}
+          </span>
+        </>
+      ),
+    },
+    {
+      id: "engine",
+      header: "Main engine",
+      cell: (s) => immobilisationWords(s.engineMayStop, s.immobilisationHours),
+    },
+    {
+      id: "package",
+      header: "Work package",
+      cell: (s) =>
+        s.packageAcceptedAt ? (
+          <span className="font-medium text-go-700 dark:text-go-300">
+            ✓ accepted, {s.itemCount} job{s.itemCount === 1 ? "" : "s"}
+          </span>
+        ) : (
+          <span className="text-ink-600 dark:text-ink-300">not planned yet</span>
+        ),
+    },
+  ];
   return (
     <section aria-labelledby={id}>
       <h2 id={id} className="mb-2 text-base font-semibold">
@@ -100,57 +146,15 @@ function StayTable({
       {stays.length === 0 ? (
         <p className="panel p-4 text-ink-600 dark:text-ink-300">{empty}</p>
       ) : (
-        <div className="overflow-x-auto panel">
-          <table className="w-full text-left text-sm">
-            <thead className="text-xs tracking-wide text-ink-500 uppercase dark:text-ink-400">
-              <tr className="border-b border-ink-200 dark:border-ink-800">
-                <th scope="col" className={`${TH} pl-4`}>
-                  Port
-                </th>
-                <th scope="col" className={TH}>
-                  Arrival – departure
-                </th>
-                <th scope="col" className={TH}>
-                  Main engine
-                </th>
-                <th scope="col" className={`${TH} pr-4`}>
-                  Work package
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {stays.map((s) => (
-                <tr key={s.id} className="border-b border-ink-100 last:border-0 dark:border-ink-850">
-                  <th scope="row" className={`${TD} pl-4`}>
-                    <Link
-                      href={`/vessels/${vesselId}/port-stays/${s.id}`}
-                      className="font-semibold text-tide-700 underline-offset-2 hover:underline dark:text-tide-300"
-                    >
-                      {s.port}
-                    </Link>
-                    {s.remarks && <span className="block font-normal text-ink-500 dark:text-ink-400">{s.remarks}</span>}
-                  </th>
-                  <td className={`${TD} whitespace-nowrap tabular-nums`}>
-                    {stayPeriod(s.arrivesAt, s.departsAt, timeZone)}
-                    <span className="block text-ink-500 dark:text-ink-400">
-                      {s.days.length} ship’s day{s.days.length === 1 ? "" : "s"}
-                    </span>
-                  </td>
-                  <td className={TD}>{immobilisationWords(s.engineMayStop, s.immobilisationHours)}</td>
-                  <td className={`${TD} pr-4`}>
-                    {s.packageAcceptedAt ? (
-                      <span className="font-medium text-go-700 dark:text-go-300">
-                        ✓ accepted, {s.itemCount} job{s.itemCount === 1 ? "" : "s"}
-                      </span>
-                    ) : (
-                      <span className="text-ink-600 dark:text-ink-300">not planned yet</span>
-                    )}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <DataTable
+          columns={columns}
+          rows={stays}
+          rowKey={(s) => s.id}
+          labelledBy={id}
+          alignTop
+          className="text-sm"
+          empty={empty}
+        />
       )}
     </section>
   );

@@ -1,0 +1,7 @@
+import { withAccess } from "@/server/http/with-access";
+import { retryMail } from "@/server/mail/admin";
+
+/** Puts a failed or waiting message back in the queue, due now; the worker tries it at once. */
+export const POST = withAccess({ permission: "company:manage" }, ({ access, params }) =>
+  retryMail(access, params.messageId ?? ""),
+);

@@ -1,0 +1,24 @@
+import { withAccess } from "@/server/http/with-access";
+import { requestRecompute } from "@/server/jobs";
+import { ReadingCorrectionInput, ReadingRemovalInput } from "@/server/readings/contract";
+import { correctReading, removeReading } from "@/server/readings/corrections";
+
+/** Corrects a mistyped reading's value (and remark), with a reason kept in its audit trail. */
+export const PATCH = withAccess(
+  { permission: "readings:write", vessel: true, body: ReadingCorrectionInput },
+  async ({ access, vessel, params, body }) => {
+    const result = await correctReading({ access, vessel }, params.readingId ?? "", body);
+    await requestRecompute(access.company.id, vessel.id);
+    return result;
+  },
+);
+
+/** Removes a reading entered by mistake; the audit trail keeps its value and the reason. */
+export const DELETE = withAccess(
+  { permission: "readings:write", vessel: true, body: ReadingRemovalInput },
+  async ({ access, vessel, params, body }) => {
+    const result = await removeReading({ access, vessel }, params.readingId ?? "", body.reason);
+    await requestRecompute(access.company.id, vessel.id);
+    return result;
+  },
+);
