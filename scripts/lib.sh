@@ -149,6 +149,7 @@ stack_env() {
   export KEELSON_CRON_MONITOR_SECONDS=2
   export NODE_ENV=production
   mail_fake_env
+  s3_fake_env
 }
 
 # The local SMTP fake's ports and the settings that point the app and worker at it.
@@ -169,6 +170,25 @@ mail_fake_start() {
   wait_for_http "$KEELSON_MAIL_FAKE_URL/health"
 }
 
+# The local S3 fake's port and the settings that point the app at it (the same as a real bucket's).
+s3_fake_env() {
+  export KEELSON_S3_FAKE_PORT; KEELSON_S3_FAKE_PORT="$(free_port)"
+  export KEELSON_S3_ENDPOINT="http://127.0.0.1:$KEELSON_S3_FAKE_PORT"
+  export KEELSON_S3_REGION=us-east-1
+  export KEELSON_S3_BUCKET="${KEELSON_S3_BUCKET:-keelson-attachments}"
+  export KEELSON_S3_ACCESS_KEY_ID=S3RVER
+  export KEELSON_S3_SECRET_ACCESS_KEY=S3RVER
+  export KEELSON_S3_FORCE_PATH_STYLE=true
+}
+
+# s3_fake_start DIR LOG: starts scripts/s3-fake.ts keeping objects under DIR, sets S3_FAKE_PID and
+# waits until the bucket answers.
+s3_fake_start() {
+  KEELSON_S3_FAKE_DIR="$1" node_modules/.bin/tsx scripts/s3-fake.ts >"$2" 2>&1 &
+  S3_FAKE_PID=$!
+  wait_for_http "$KEELSON_S3_ENDPOINT/$KEELSON_S3_BUCKET"
+}
+
 stack_database() {
   PG_FSYNC=off pg_up "$STACK_CLUSTER" "$PGPORT" keelson keelson "${DATABASE_URL##*/}"
   node_modules/.bin/tsx scripts/migrate.ts
@@ -180,6 +200,8 @@ stack_start_app() {
   node_modules/.bin/next build >"$out/build.log" 2>&1 || { cat "$out/build.log"; return 1; }
   mail_fake_start "$out/mail-fake.jsonl" "$out/mail-fake.log"
   stack_pids+=("$MAIL_FAKE_PID")
+  s3_fake_start "$out/s3-fake" "$out/s3-fake.log"
+  stack_pids+=("$S3_FAKE_PID")
   node_modules/.bin/tsx --conditions=react-server workers/index.ts >"$out/worker.log" 2>&1 &
   stack_pids+=($!)
   node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$out/app.log" 2>&1 &

@@ -43,6 +43,12 @@ if [ -z "${KEELSON_SMTP_HOST:-}" ]; then
   mail_fake_start .data/mail-fake/messages.jsonl .data/mail-fake.log
   pids+=("$MAIL_FAKE_PID")
 fi
+# No bucket configured: the local S3 fake keeps attachments under .data/s3-fake.
+if [ -z "${KEELSON_S3_ENDPOINT:-}" ]; then
+  s3_fake_env
+  s3_fake_start .data/s3-fake .data/s3-fake.log
+  pids+=("$S3_FAKE_PID")
+fi
 
 node_modules/.bin/tsx --conditions=react-server workers/index.ts &
 pids+=($!)
@@ -57,6 +63,12 @@ else
   mail_line="  Mail goes to the relay $KEELSON_SMTP_HOST:${KEELSON_SMTP_PORT:-587}"
 fi
 
+if [ -n "${S3_FAKE_PID:-}" ]; then
+  s3_line="  Photos and documents go to the local S3 fake on $KEELSON_S3_ENDPOINT (kept in .data/s3-fake)"
+else
+  s3_line="  Photos and documents go to the bucket ${KEELSON_S3_BUCKET:-(KEELSON_S3_BUCKET unset)} at $KEELSON_S3_ENDPOINT"
+fi
+
 cat <<MSG
 
   Keelson is running at http://127.0.0.1:$PORT
@@ -69,6 +81,7 @@ cat <<MSG
     viewer@brightwater.example   viewer, Aster Gale
 
 $mail_line
+$s3_line
 
   Ctrl-C stops Keelson and its database.
 

@@ -7,6 +7,9 @@ export const queryKeys = {
   register: (vesselId: string) => ["vessel", vesselId, "register"] as const,
   backlog: (vesselId: string, search: string) => ["vessel", vesselId, "backlog", search] as const,
   workOrder: (vesselId: string, workOrderId: string) => ["vessel", vesselId, "work-order", workOrderId] as const,
+  /** Under the work order's key, so whatever refreshes the work order refreshes its files too. */
+  workOrderAttachments: (vesselId: string, workOrderId: string) =>
+    ["vessel", vesselId, "work-order", workOrderId, "attachments"] as const,
   routines: (vesselId: string) => ["vessel", vesselId, "routines"] as const,
   routineList: (vesselId: string, component: string, q: string) =>
     ["vessel", vesselId, "routines", "list", component, q] as const,

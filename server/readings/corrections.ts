@@ -8,8 +8,8 @@ import { getDb, type Tx } from "@/db/client";
 import { counter, reading, readingCorrection, user } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatHours, formatShipDate, formatShipTime } from "@/server/format/hours";
+import { isUuid } from "@/server/http/ids";
 import { AppError, invalidInput } from "@/server/http/problem";
-import { isId } from "@/server/register/register-scope";
 import type { ReadingCorrection, ReadingCorrectionEntry, ReadingCorrectionResult } from "./contract";
 import { loadNeighbours } from "./neighbours";
 import { readingProblem, removalProblem, round1 } from "./rules";
@@ -99,7 +99,7 @@ export async function removeReading(
  * only, so the id-order rule for several counters holds trivially.
  */
 async function lockReading(tx: Tx, { access, vessel }: Scope, readingId: string): Promise<Locked> {
-  if (!isId(readingId)) throw noSuchReading();
+  if (!isUuid(readingId)) throw noSuchReading();
   const scope = and(
     eq(reading.companyId, access.company.id),
     eq(reading.vesselId, vessel.id),

@@ -5,10 +5,11 @@ import { getDb, type Tx } from "@/db/client";
 import { component, counter, counterSegment, reading } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatHours, formatShipDate, formatShipTime, instantOfShipTime, shipDay } from "@/server/format/hours";
+import { isUuid } from "@/server/http/ids";
 import { AppError, invalidInput } from "@/server/http/problem";
 import { isInFuture, readingProblem, round1 } from "@/server/readings/rules";
 import type { CounterChange, MeterReplacement, MeterReplacementResult, NewCounter, RegisterCounter } from "./contract";
-import { counterScope, isId, lockRegister, noSuch, type RegisterScope, rethrowConstraint } from "./register-scope";
+import { counterScope, lockRegister, noSuch, type RegisterScope, rethrowConstraint } from "./register-scope";
 
 export type CounterSummary = Pick<RegisterCounter, "id" | "name" | "plannedHoursPerDay" | "segment" | "retiredAt">;
 
@@ -41,7 +42,7 @@ async function checkNameFree(tx: Tx, scope: RegisterScope, name: string, exceptI
 
 /** The counter, locked until the transaction ends so that readings and a replacement queue up. */
 async function lockCounter(tx: Tx, scope: RegisterScope, counterId: string, purpose: string) {
-  if (!isId(counterId)) throw noSuch("counter", scope.vessel);
+  if (!isUuid(counterId)) throw noSuch("counter", scope.vessel);
   const [row] = await tx
     .select()
     .from(counter)

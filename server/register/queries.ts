@@ -4,6 +4,7 @@ import { getDb, type Tx } from "@/db/client";
 import { component, counter, counterSegment, reading } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
+import { isUuid } from "@/server/http/ids";
 import { type FieldError, invalidInput } from "@/server/http/problem";
 import type { ComponentChange, NewComponent, RegisterComponent, RegisterView } from "./contract";
 import {
@@ -11,7 +12,6 @@ import {
   checkReferences,
   componentScope,
   counterScope,
-  isId,
   lockRegister,
   noSuch,
   type RegisterScope,
@@ -159,7 +159,7 @@ export async function updateComponent(
   change: ComponentChange,
   now = new Date(),
 ): Promise<Omit<RegisterComponent, "effectiveCounter">> {
-  if (!isId(componentId)) throw noSuch("component", vessel);
+  if (!isUuid(componentId)) throw noSuch("component", vessel);
   const scope = { access, vessel };
   return getDb().transaction(async (tx) => {
     await lockRegister(tx, vessel);

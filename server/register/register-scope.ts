@@ -11,12 +11,6 @@ import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
 
 export type RegisterScope = { access: Access; vessel: VesselRef };
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
-/** A malformed id in the path is as unknown as another vessel's: not found, never a 500. */
-export function isId(value: string): boolean {
-  return UUID.test(value);
-}
 
 /**
  * Register writes of one vessel wait for each other, so that two moves made at the same moment

@@ -5,6 +5,7 @@ import { completion, component, routine, toleranceRule, workOrder } from "@/db/s
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { instantOfShipTime, shipDay } from "@/server/format/hours";
+import { isUuid } from "@/server/http/ids";
 import { AppError, fieldErrorsFromZod, type FieldError, invalidInput } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs";
 import { formFromCalendarRule } from "@/server/scheduling/calendar-rule-words";
@@ -19,7 +20,6 @@ import {
 } from "./contract";
 import { intervalWords } from "./interval-words";
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 /** The list sends at most this many rows: a satellite link pays for every byte. */
 export const LIST_LIMIT = 500;
 
@@ -147,7 +147,7 @@ export async function listRoutines(
 }
 
 async function findRoutine(tx: Db | Tx, scope: Scope, routineId: string) {
-  if (!UUID.test(routineId)) return null;
+  if (!isUuid(routineId)) return null;
   const [row] = await tx
     .select({
       r: routine,

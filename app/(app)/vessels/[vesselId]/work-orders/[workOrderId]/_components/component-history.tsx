@@ -1,6 +1,7 @@
 import Link from "next/link";
 import type { WorkOrderDetail } from "@/server/completions/contract";
 import { formatHours, formatShipDate } from "@/server/format/hours";
+import { HistoryAttachments } from "./history-attachments";
 
 /** Done work on the same component, newest first: what was found last time it was opened. */
 export function ComponentHistory({ detail }: { detail: WorkOrderDetail }) {
@@ -34,6 +35,7 @@ export function ComponentHistory({ detail }: { detail: WorkOrderDetail }) {
                   </span>
                 )}
                 {h.remarks && <span className="block text-sm text-ink-600 dark:text-ink-300">{h.remarks}</span>}
+                <HistoryAttachments vesselId={vessel.id} workOrderId={h.workOrderId} number={h.number} />
               </span>
               <span className="text-sm text-ink-500 tabular-nums dark:text-ink-400">
                 {h.counterHours !== null && `${formatHours(h.counterHours)} · `}

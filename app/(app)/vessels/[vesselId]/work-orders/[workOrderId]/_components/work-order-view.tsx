@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useState } from "react";
 import { LoadProblem, Notice } from "@/app/_components/notice";
 import type { WorkOrderDetail } from "@/server/completions/contract";
+import { AttachmentsSection } from "./attachments-section";
 import { Cautions } from "./cautions";
 import { ComponentHistory } from "./component-history";
 import { CompletionForm } from "./completion-form";
@@ -54,17 +55,34 @@ export function WorkOrderView({ vesselId, workOrderId }: Props) {
 function CompletionPart({ detail, onMessage }: { detail: WorkOrderDetail; onMessage: (m: string) => void }) {
   const { completion, may } = detail;
   const counterName = detail.counter?.name ?? null;
+  // Photos and documents sit with the record, above the chief's decision: they are part of the evidence.
+  const attachments = (
+    <AttachmentsSection vesselId={detail.vessel.id} workOrderId={detail.workOrder.id} timeZone={detail.vessel.timeZone} />
+  );
   const record = completion && (
-    <CompletionRecordView record={completion} timeZone={detail.vessel.timeZone} counterName={counterName} />
+    <>
+      <CompletionRecordView record={completion} timeZone={detail.vessel.timeZone} counterName={counterName} />
+      {attachments}
+    </>
   );
   if (!completion) {
-    if (may.record) return <CompletionForm key="new" detail={detail} onDone={onMessage} />;
+    if (may.record) {
+      return (
+        <>
+          <CompletionForm key="new" detail={detail} onDone={onMessage} />
+          {attachments}
+        </>
+      );
+    }
     return (
-      <p className="panel p-4 text-ink-600 dark:text-ink-300">
-        {detail.workOrder.state === "done"
-          ? "This work order is done."
-          : "No completion is recorded yet; engineers and the chief engineer record it here."}
-      </p>
+      <>
+        <p className="panel p-4 text-ink-600 dark:text-ink-300">
+          {detail.workOrder.state === "done"
+            ? "This work order is done."
+            : "No completion is recorded yet; engineers and the chief engineer record it here."}
+        </p>
+        {attachments}
+      </>
     );
   }
   if (completion.status === "awaiting-approval") {
