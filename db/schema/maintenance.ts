@@ -183,6 +183,19 @@ export const workOrder = pgTable(
       t.dueDate.asc().nullsLast(),
       t.number,
     ),
+    // The fleet's overdue list (server/fleet/overdue.ts): only late and out-of-tolerance rows, in
+    // the list's order, so its first page is read off the index instead of sorting the fleet's.
+    // The expressions must stay the same as the query's.
+    index("work_order_fleet_overdue")
+      .on(
+        t.companyId,
+        sql`(case ${t.state} when 'out-of-tolerance' then 0 else 1 end)`,
+        sql`(${t.critical} or ${t.classRelated}) desc`,
+        sql`(coalesce(${t.deferredDueDate}, ${t.dueDate})) asc nulls last`,
+        t.stateChangedAt,
+        t.number,
+      )
+      .where(sql`${t.state} in ('out-of-tolerance', 'late')`),
   ],
 );
 

@@ -1,0 +1,1 @@
+CREATE INDEX "work_order_fleet_overdue" ON "work_order" USING btree ("company_id",(case "state" when 'out-of-tolerance' then 0 else 1 end),("critical" or "class_related") desc,(coalesce("deferred_due_date", "due_date")) asc nulls last,"state_changed_at","number") WHERE "work_order"."state" in ('out-of-tolerance', 'late');
