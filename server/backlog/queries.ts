@@ -1,16 +1,12 @@
 import "server-only";
 import { and, asc, eq, ilike, inArray, lte, or, type SQL, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { completion, component, deferral, workOrder } from "@/db/schema";
+import { component, deferral, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { instantOfShipTime } from "@/server/format/hours";
+import { AWAITING_APPROVAL, PENDING_DEFERRAL } from "@/server/work-orders/flags";
 import { ALL_STATES, type BacklogFilter, type BacklogPage, type BacklogState } from "./contract";
 
-// A completion the chief has still to decide on: the Backlog marks the work order as waiting for him.
-const AWAITING_APPROVAL = sql<boolean>`exists (select 1 from ${completion} where ${completion.companyId} = ${workOrder.companyId} and ${completion.workOrderId} = ${workOrder.id} and ${completion.status} = 'awaiting-approval')`;
-
-// A deferral request nobody has decided yet (at most one per work order: a partial unique index).
-const PENDING_DEFERRAL = sql<boolean>`exists (select 1 from ${deferral} where ${deferral.companyId} = ${workOrder.companyId} and ${deferral.workOrderId} = ${workOrder.id} and ${deferral.status} = 'pending')`;
 
 // Most urgent first: out of tolerance, late, inside the window, deferred, scheduled, done.
 const URGENCY = sql`case ${workOrder.state} when 'out-of-tolerance' then 0 when 'late' then 1 when 'window-open' then 2 when 'deferred' then 3 when 'scheduled' then 4 else 5 end`;

@@ -3,10 +3,11 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNull, or, sql, type SQL } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { completion, component, deferral, vessel, workOrder } from "@/db/schema";
+import { component, vessel, workOrder } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
 import { type CsvColumn, csvResponse, toCsv } from "@/server/export/csv";
 import { shipDay } from "@/server/format/hours";
+import { AWAITING_APPROVAL, PENDING_DEFERRAL } from "@/server/work-orders/flags";
 import { type FleetOverdue, type FleetOverdueFilter, type FleetOverdueItem, OVERDUE_STATES } from "./overdue-contract";
 
 /** Enough for any fleet's overdue list; more says the fleet has a bigger problem than a list. */
@@ -44,8 +45,8 @@ export async function loadFleetOverdue(access: Access, f: FleetOverdueFilter, no
       timeZone: vessel.timeZone,
       componentCode: component.code,
       componentName: component.name,
-      pendingDeferral: sql<boolean>`exists (select 1 from ${deferral} d where d.company_id = ${workOrder.companyId} and d.work_order_id = ${workOrder.id} and d.status = 'pending')`,
-      awaitingApproval: sql<boolean>`exists (select 1 from ${completion} c where c.company_id = ${workOrder.companyId} and c.work_order_id = ${workOrder.id} and c.status = 'awaiting-approval')`,
+      pendingDeferral: PENDING_DEFERRAL,
+      awaitingApproval: AWAITING_APPROVAL,
     })
     .from(workOrder)
     .innerJoin(vessel, eq(vessel.id, workOrder.vesselId))
