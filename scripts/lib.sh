@@ -204,7 +204,9 @@ stack_start_app() {
   stack_pids+=("$S3_FAKE_PID")
   node_modules/.bin/tsx --conditions=react-server workers/index.ts >"$out/worker.log" 2>&1 &
   stack_pids+=($!)
-  node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$out/app.log" 2>&1 &
+  # Idle connections stay open longer than any client keeps them (Node closes them after 5 s, and a
+  # client reusing one at that moment gets ECONNRESET).
+  node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" --keepAliveTimeout 65000 >"$out/app.log" 2>&1 &
   stack_pids+=($!)
   wait_for_http "$KEELSON_TEST_URL/sign-in"
 }

@@ -52,7 +52,7 @@ fi
 
 node_modules/.bin/tsx --conditions=react-server workers/index.ts &
 pids+=($!)
-node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" &
+node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" --keepAliveTimeout 65000 &
 pids+=($!)
 wait_for_http "http://127.0.0.1:$PORT/sign-in"
 
