@@ -1,11 +1,12 @@
 import { drizzle } from "drizzle-orm/node-postgres";
 import { Pool } from "pg";
+import { env } from "../server/env";
 import * as schema from "./schema";
 
+// The one arrow from db/ to server/: the connection URL is configuration like any other, checked
+// by the one schema (server/env.ts, which imports nothing of the domain).
 export function databaseUrl(): string {
-  const url = process.env.DATABASE_URL;
-  if (!url) throw new Error("DATABASE_URL is not set (scripts/start.sh and scripts/test.sh set it)");
-  return url;
+  return env().DATABASE_URL;
 }
 
 export function createDb(pool: Pool) {

@@ -17,13 +17,15 @@ import { createServer, type ServerResponse } from "node:http";
 import path from "node:path";
 import { simpleParser } from "mailparser";
 import { SMTPServer, type SMTPServerAddress } from "smtp-server";
+import { envOf } from "../server/env";
 import type { CaughtMessage } from "../server/mail/contract";
 
 type Caught = CaughtMessage & { headers: Record<string, string> };
 
-const smtpPort = Number(process.env.KEELSON_SMTP_PORT ?? 2525);
-const apiPort = Number(process.env.KEELSON_MAIL_FAKE_PORT ?? 2580);
-const file = path.resolve(process.env.KEELSON_MAIL_FAKE_FILE ?? ".data/mail-fake/messages.jsonl");
+const config = envOf("KEELSON_SMTP_PORT", "KEELSON_MAIL_FAKE_PORT", "KEELSON_MAIL_FAKE_FILE");
+const smtpPort = config.KEELSON_SMTP_PORT ?? 2525;
+const apiPort = config.KEELSON_MAIL_FAKE_PORT;
+const file = path.resolve(config.KEELSON_MAIL_FAKE_FILE);
 
 mkdirSync(path.dirname(file), { recursive: true });
 const messages: Caught[] = existsSync(file)

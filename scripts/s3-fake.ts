@@ -8,6 +8,7 @@
 import { mkdirSync } from "node:fs";
 import { createRequire } from "node:module";
 import path from "node:path";
+import { envOf } from "../server/env";
 
 type S3rverOptions = {
   port: number;
@@ -22,9 +23,10 @@ type S3rverServer = { run(): Promise<unknown>; close(): Promise<void> };
 const require = createRequire(import.meta.url);
 const S3rver = require("s3rver") as new (options: S3rverOptions) => S3rverServer;
 
-const port = Number(process.env.KEELSON_S3_FAKE_PORT ?? 4569);
-const bucket = process.env.KEELSON_S3_BUCKET || "keelson-attachments";
-const directory = path.resolve(process.env.KEELSON_S3_FAKE_DIR ?? ".data/s3-fake");
+const config = envOf("KEELSON_S3_FAKE_PORT", "KEELSON_S3_BUCKET", "KEELSON_S3_FAKE_DIR");
+const port = config.KEELSON_S3_FAKE_PORT;
+const bucket = config.KEELSON_S3_BUCKET;
+const directory = path.resolve(config.KEELSON_S3_FAKE_DIR);
 
 mkdirSync(directory, { recursive: true });
 const server = new S3rver({

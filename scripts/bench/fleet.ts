@@ -6,6 +6,7 @@ import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import { performance } from "node:perf_hooks";
 import { sql } from "drizzle-orm";
 import { Pool } from "pg";
+import { databaseUrl } from "@/db/client";
 import * as s from "@/db/schema";
 import type { BacklogPage } from "@/server/backlog/contract";
 import { recomputeVessel } from "@/server/scheduling/recompute";
@@ -229,7 +230,7 @@ console.log(`[bench] states of the measured vessel: ${JSON.stringify(stateCounts
 await db.execute(sql`analyze`);
 await db.insert(s.vesselAssignment).values({ companyId, userId: f.users.engineer.id, vesselId: one });
 const session = await signIn(f.users.engineer.email, PASSWORD);
-const pool = new Pool({ connectionString: process.env.DATABASE_URL, max: 2 });
+const pool = new Pool({ connectionString: databaseUrl(), max: 2 });
 
 // The route handler's page query written out by hand: same filters, order and limit.
 const PAGE_SQL = (extra: string) => `

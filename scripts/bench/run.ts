@@ -2,6 +2,7 @@
 // beside a bare SQL statement that reads or writes the same rows in the same run.
 import { writeFileSync } from "node:fs";
 import { Pool } from "pg";
+import { databaseUrl } from "@/db/client";
 import * as s from "@/db/schema";
 import { shipClock, shipDay } from "@/server/format/hours";
 import { createCompany, PASSWORD, testDb, closeTestDb } from "@/tests/support/fixtures";
@@ -36,7 +37,7 @@ const lastAt = new Date(start.getTime() + DAYS * 86_400_000);
 console.log(`[bench] vessel with ${COUNTERS} counters and ${rows.length} readings`);
 
 const session = await signIn(f.users.engineer.email, PASSWORD);
-const pool = new Pool({ connectionString: process.env.DATABASE_URL, max: 2 });
+const pool = new Pool({ connectionString: databaseUrl(), max: 2 });
 const results: Row[] = [];
 
 results.push({

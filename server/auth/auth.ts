@@ -6,12 +6,13 @@ import { admin } from "better-auth/plugins";
 import { getDb } from "@/db/client";
 import * as schema from "@/db/schema";
 import { markPasswordSet, RESET_LINK_HOURS, sendAccountMail } from "@/server/accounts/account-mail";
+import { env } from "@/server/env";
 
-const baseURL = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000";
+const { BETTER_AUTH_URL: baseURL, BETTER_AUTH_SECRET, KEELSON_AUTH_RATE_LIMIT } = env();
 
 export const auth = betterAuth({
   baseURL,
-  secret: process.env.BETTER_AUTH_SECRET,
+  secret: BETTER_AUTH_SECRET,
   trustedOrigins: [baseURL, baseURL.replace("127.0.0.1", "localhost")],
   database: drizzleAdapter(getDb(), {
     provider: "pg",
@@ -47,7 +48,7 @@ export const auth = betterAuth({
   // Sign-in attempts are limited per address; the test suite, which signs in dozens of users
   // from one address within seconds, switches the limit off.
   rateLimit: {
-    enabled: process.env.KEELSON_AUTH_RATE_LIMIT !== "off",
+    enabled: KEELSON_AUTH_RATE_LIMIT === "on",
     window: 60,
     max: 100,
     customRules: {

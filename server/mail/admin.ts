@@ -3,6 +3,7 @@ import { and, desc, eq, inArray, isNotNull, lt, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
+import { env } from "@/server/env";
 import { isUuid } from "@/server/http/ids";
 import { AppError, invalidInput } from "@/server/http/problem";
 import { requestMailSend } from "@/server/jobs";
@@ -45,7 +46,7 @@ export async function loadAdminMail(access: Access): Promise<AdminMail> {
     .limit(OUTBOX_ROWS);
   const outbox = rows.map(toOutboxRow);
 
-  const fakeUrl = process.env.KEELSON_MAIL_FAKE_URL;
+  const fakeUrl = env().KEELSON_MAIL_FAKE_URL;
   if (!fakeUrl) {
     const { host, port } = smtpConfig();
     return { delivery: { kind: "relay", host, port }, caught: null, caughtProblem: null, outbox };
@@ -186,7 +187,7 @@ export async function cancelMail(access: Access, messageId: string): Promise<Mai
  * forgets by all or nothing, so this clears every company's caught messages; the outbox stays.
  */
 export async function clearCaughtMail(): Promise<ClearCaughtResult> {
-  const fakeUrl = process.env.KEELSON_MAIL_FAKE_URL;
+  const fakeUrl = env().KEELSON_MAIL_FAKE_URL;
   if (!fakeUrl) {
     throw new AppError("not-found", "There is no mail catcher here: mail goes to the configured relay.");
   }

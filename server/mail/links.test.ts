@@ -1,12 +1,17 @@
-import { beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { appUrl, oneClickUnsubscribeUrl, unsubscribeToken, unsubscribeUrl, verifyUnsubscribe } from "./links";
 
 const U = "user-1";
 const C = "2b0f0f7e-9f5e-4a57-9d7e-0c2c1b7a9c11";
 
-beforeAll(() => {
-  process.env.BETTER_AUTH_SECRET = "test-secret-for-links";
-  process.env.KEELSON_APP_URL = "https://keelson.example/";
+const config = vi.hoisted(() => ({
+  DATABASE_URL: "postgres://unused/keelson",
+  BETTER_AUTH_SECRET: "test-secret-for-links",
+  KEELSON_APP_URL: "https://keelson.example/",
+}));
+vi.mock("@/server/env", async (importOriginal) => {
+  const actual = await importOriginal<typeof import("@/server/env")>();
+  return { ...actual, env: () => actual.loadEnv(config) };
 });
 
 function paramsOf(url: string) {
@@ -43,11 +48,11 @@ describe("unsubscribe links", () => {
 
   it("refuses a token signed with another secret", () => {
     const p = paramsOf(unsubscribeUrl(U, C, "fleet-summary"));
-    process.env.BETTER_AUTH_SECRET = "another-secret";
+    config.BETTER_AUTH_SECRET = "another-secret";
     try {
       expect(verifyUnsubscribe(p)).toBeNull();
     } finally {
-      process.env.BETTER_AUTH_SECRET = "test-secret-for-links";
+      config.BETTER_AUTH_SECRET = "test-secret-for-links";
     }
   });
 

@@ -1,11 +1,13 @@
 import "server-only";
 import { createHmac, timingSafeEqual } from "node:crypto";
 import { mailKind } from "@/db/schema";
+import { env } from "@/server/env";
 import { isAccountKind, type MailKind } from "./outbox";
 
 /** The app's public address: KEELSON_APP_URL, else BETTER_AUTH_URL (what people type in). */
 function appBase(): string {
-  return process.env.KEELSON_APP_URL ?? process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000";
+  const { KEELSON_APP_URL, BETTER_AUTH_URL } = env();
+  return KEELSON_APP_URL ?? BETTER_AUTH_URL;
 }
 
 /** An absolute link into the app, for a message read outside it. */
@@ -13,15 +15,11 @@ export function appUrl(path: string): string {
   return new URL(path, appBase()).toString();
 }
 
-function secret(): string {
-  const value = process.env.BETTER_AUTH_SECRET;
-  if (!value) throw new Error("BETTER_AUTH_SECRET is not set: unsubscribe links cannot be signed");
-  return value;
-}
-
 /** HMAC-SHA256 over user, company and kind: a link for one kind cannot be turned into another. */
 export function unsubscribeToken(userId: string, companyId: string, kind: MailKind): string {
-  return createHmac("sha256", secret()).update(`unsubscribe\n${userId}\n${companyId}\n${kind}`).digest("base64url");
+  return createHmac("sha256", env().BETTER_AUTH_SECRET)
+    .update(`unsubscribe\n${userId}\n${companyId}\n${kind}`)
+    .digest("base64url");
 }
 
 export function unsubscribeUrl(userId: string, companyId: string, kind: MailKind): string {

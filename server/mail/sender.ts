@@ -1,6 +1,7 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
+import { env } from "@/server/env";
 import { oneClickUnsubscribeUrl } from "./links";
 import { isAccountKind, type MailKind } from "./outbox";
 import { mailTransport, smtpConfig } from "./transport";
@@ -32,13 +33,6 @@ type Claimed = {
 };
 
 const BATCH = 10;
-
-function settings() {
-  return {
-    leaseSeconds: Number(process.env.KEELSON_MAIL_LEASE_SECONDS ?? 300),
-    maxAttempts: Number(process.env.KEELSON_MAIL_MAX_ATTEMPTS ?? 8),
-  };
-}
 
 /** 1 min, 2, 4 … after the 1st, 2nd, 3rd failed attempt, at most 6 h. */
 export function retryDelayMs(attempts: number): number {
@@ -130,10 +124,15 @@ async function release(db: Db, rows: Claimed[]): Promise<void> {
 /**
  * Claims due messages (pending and due, or 'sending' with an ended lease) in batches of 10 and
  * sends each; a failure goes back to pending with exponential back-off and its error, or to
- * 'failed' after KEELSON_MAIL_MAX_ATTEMPTS (8). `limit` caps the messages of this call (100).
+ * 'failed' after KEELSON_MAIL_MAX_ATTEMPTS (8). `limit` caps the messages of this call (100);
+ * `maxAttempts` stands in for the configured number (a test's own).
  */
-export async function sendDueMail(db: Db, options: { now?: Date; limit?: number } = {}): Promise<SendResult> {
-  const { leaseSeconds, maxAttempts } = settings();
+export async function sendDueMail(
+  db: Db,
+  options: { now?: Date; limit?: number; maxAttempts?: number } = {},
+): Promise<SendResult> {
+  const { KEELSON_MAIL_LEASE_SECONDS: leaseSeconds, KEELSON_MAIL_MAX_ATTEMPTS } = env();
+  const maxAttempts = options.maxAttempts ?? KEELSON_MAIL_MAX_ATTEMPTS;
   const limit = options.limit ?? 100;
   const result: SendResult = { sent: 0, retried: 0, failed: 0, claimed: 0 };
   while (result.claimed < limit) {

@@ -1,5 +1,6 @@
 import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
+import { env, type Env } from "@/server/env";
 
 // SMTP from configuration only, so the local fake and a real relay are the same code path.
 export type SmtpConfig = {
@@ -12,20 +13,17 @@ export type SmtpConfig = {
   from: string;
 };
 
-const flag = (value: string | undefined, fallback: boolean) =>
-  value === undefined || value === "" ? fallback : value === "true" || value === "1";
-
-export function smtpConfig(env: NodeJS.ProcessEnv = process.env): SmtpConfig {
-  const secure = flag(env.KEELSON_SMTP_SECURE, false);
+export function smtpConfig(config: Env = env()): SmtpConfig {
+  const secure = config.KEELSON_SMTP_SECURE;
   return {
-    host: env.KEELSON_SMTP_HOST || "127.0.0.1",
-    port: Number(env.KEELSON_SMTP_PORT || (secure ? 465 : 587)),
+    host: config.KEELSON_SMTP_HOST,
+    port: config.KEELSON_SMTP_PORT ?? (secure ? 465 : 587),
     secure,
     // The fake offers no STARTTLS; a real relay should leave this off so the session is encrypted.
-    ignoreTLS: flag(env.KEELSON_SMTP_IGNORE_TLS, false),
-    user: env.KEELSON_SMTP_USER || undefined,
-    password: env.KEELSON_SMTP_PASSWORD || undefined,
-    from: env.KEELSON_MAIL_FROM || "Keelson <keelson@brightwater.example>",
+    ignoreTLS: config.KEELSON_SMTP_IGNORE_TLS,
+    user: config.KEELSON_SMTP_USER,
+    password: config.KEELSON_SMTP_PASSWORD,
+    from: config.KEELSON_MAIL_FROM,
   };
 }
 

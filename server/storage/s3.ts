@@ -8,6 +8,7 @@ import {
   S3ServiceException,
 } from "@aws-sdk/client-s3";
 import { Readable } from "node:stream";
+import { env, type Env } from "@/server/env";
 
 // Object storage from configuration only, so the local fake (scripts/s3-fake.ts) and a hosted
 // bucket are the same code path: only the endpoint, credentials and path style differ.
@@ -21,19 +22,16 @@ export type S3Config = {
   forcePathStyle: boolean;
 };
 
-const flag = (value: string | undefined, fallback: boolean) =>
-  value === undefined || value === "" ? fallback : value === "true" || value === "1";
-
-export function s3Config(env: NodeJS.ProcessEnv = process.env): S3Config {
+export function s3Config(config: Env = env()): S3Config {
   return {
-    endpoint: env.KEELSON_S3_ENDPOINT || undefined,
-    region: env.KEELSON_S3_REGION || "us-east-1",
-    bucket: env.KEELSON_S3_BUCKET || "keelson-attachments",
-    accessKeyId: env.KEELSON_S3_ACCESS_KEY_ID || undefined,
-    secretAccessKey: env.KEELSON_S3_SECRET_ACCESS_KEY || undefined,
+    endpoint: config.KEELSON_S3_ENDPOINT,
+    region: config.KEELSON_S3_REGION,
+    bucket: config.KEELSON_S3_BUCKET,
+    accessKeyId: config.KEELSON_S3_ACCESS_KEY_ID,
+    secretAccessKey: config.KEELSON_S3_SECRET_ACCESS_KEY,
     // Path style (http://host/bucket/key) for the fake and most S3-compatible stores; AWS wants
     // virtual hosts, so the default follows whether an endpoint of one's own is set.
-    forcePathStyle: flag(env.KEELSON_S3_FORCE_PATH_STYLE, Boolean(env.KEELSON_S3_ENDPOINT)),
+    forcePathStyle: config.KEELSON_S3_FORCE_PATH_STYLE ?? config.KEELSON_S3_ENDPOINT !== undefined,
   };
 }
 

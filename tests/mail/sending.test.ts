@@ -97,16 +97,9 @@ describe("sendDueMail", () => {
     const to = freshAddress("give-up");
     const [id] = await queueDueAt(db, at, [testMail(f.companyId, to, `give-up-${to}`)]);
     await failNext(5, to);
-    const before = process.env.KEELSON_MAIL_MAX_ATTEMPTS;
-    process.env.KEELSON_MAIL_MAX_ATTEMPTS = "2";
-    try {
-      await sendDueMail(db, { now: at });
-      const result = await sendDueMail(db, { now: new Date(at.getTime() + MINUTE) });
-      expect(result.failed).toBeGreaterThanOrEqual(1);
-    } finally {
-      if (before === undefined) delete process.env.KEELSON_MAIL_MAX_ATTEMPTS;
-      else process.env.KEELSON_MAIL_MAX_ATTEMPTS = before;
-    }
+    await sendDueMail(db, { now: at, maxAttempts: 2 });
+    const result = await sendDueMail(db, { now: new Date(at.getTime() + MINUTE), maxAttempts: 2 });
+    expect(result.failed).toBeGreaterThanOrEqual(1);
     const row = await rowOf(id!);
     expect(row).toMatchObject({ status: "failed", attempts: 2 });
     expect(row.lastError).toContain("451");
