@@ -10,7 +10,7 @@ ensure_postgres_installed
 ensure_chromium_installed
 
 stack_env test
-export KEELSON_DEMO=1
+demo_env
 export TEST_OUTPUT="${TEST_OUTPUT:-$ROOT/test-output}"
 rm -rf "$TEST_OUTPUT"; mkdir -p "$TEST_OUTPUT"
 trap stack_stop EXIT

@@ -1,9 +1,12 @@
 // The demo scenario: an invented short-sea company, its vessels, people and machinery.
 // Every name, number and figure here is made up for the demo; none is a check value.
 
+import { DEMO_COMPANY_SLUG } from "../../server/auth/demo-company";
+
+/** scripts/lib.sh `demo_env` gives the web the same password (KEELSON_DEMO_PASSWORD), for its sign-in page. */
 export const DEMO_PASSWORD = "harbour-lights-42";
 
-export const demoCompany = { name: "Brightwater Coastal Lines", slug: "brightwater" };
+export const demoCompany = { name: "Brightwater Coastal Lines", slug: DEMO_COMPANY_SLUG };
 
 export type DemoRole = "admin" | "superintendent" | "chief-engineer" | "engineer" | "viewer";
 

@@ -12,7 +12,7 @@ export default async function SignInPage() {
   return (
     <AuthShell>
       <h1 className="sr-only">Sign in to Keelson</h1>
-      <SignInForm demo={demoSignIns()} />
+      <SignInForm demo={await demoSignIns()} />
     </AuthShell>
   );
 }
