@@ -9,13 +9,11 @@ import { listAccessibleVessels } from "@/server/vessels/queries";
 
 export const metadata: Metadata = { title: "Vessels" };
 
-const STALE_MS = 36 * 3_600_000;
-
 export default async function VesselsPage() {
   const access = await requirePageAccess();
-  const vessels = await listAccessibleVessels(access);
-  if (vessels.length === 1 && !seesWholeFleet(access.role)) redirect(`/vessels/${vessels[0]!.id}/hour-log`);
   const now = new Date();
+  const vessels = await listAccessibleVessels(access, now);
+  if (vessels.length === 1 && !seesWholeFleet(access.role)) redirect(`/vessels/${vessels[0]!.id}/hour-log`);
 
   return (
     <main>
@@ -40,7 +38,7 @@ export default async function VesselsPage() {
       ) : (
         <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
           {vessels.map((v) => {
-            const stale = !v.lastReadingAt || now.getTime() - v.lastReadingAt.getTime() > STALE_MS;
+            const stale = v.stoppedReporting;
             return (
               <li key={v.id} className="panel p-4">
                 <div className="flex items-baseline justify-between gap-2">

@@ -1,6 +1,7 @@
 // The demo maintenance plan: routines per component code. Intervals are editable demo defaults —
 // marine-diesel figures are `common practice` and vary by maker (SOURCES.md, "Running-hour facts");
 // the SOLAS and MSC figures are named where they apply. None of this replaces the maker's manual.
+import type { Rank } from "../../server/routines/contract";
 import type { RoutineCaution, RoutineMeasurement } from "../schema/maintenance";
 
 export type DemoRoutine = {
@@ -11,7 +12,7 @@ export type DemoRoutine = {
   calendarRule?: string;
   anchored?: boolean;
   manHours: number;
-  rank: "chief-engineer" | "second-engineer" | "third-engineer" | "fourth-engineer" | "motorman" | "electrician";
+  rank: Rank;
   engineStop?: boolean;
   critical?: boolean;
   classRelated?: boolean;

@@ -5,6 +5,7 @@ import { usePathname, useSearchParams } from "next/navigation";
 import { useMemo, useState } from "react";
 import { ageOf } from "@/app/_components/relative-age";
 import { ALL_STATES, BACKLOG_SORTS, type BacklogState, OPEN_STATES } from "@/server/backlog/contract";
+import { RANKS } from "@/server/routines/contract";
 import { backlogColumns } from "./backlog-columns";
 import { BacklogFilters, type FilterValues } from "./backlog-filters";
 import { useBacklog } from "./use-backlog";
@@ -17,7 +18,6 @@ const SORT_LABEL: Record<(typeof BACKLOG_SORTS)[number], string> = {
   component: "Component code",
   "remaining-hours": "Fewest hours left",
 };
-const RANKS = ["chief-engineer", "second-engineer", "third-engineer", "fourth-engineer", "motorman", "electrician"];
 const PAGE_SIZE = 50;
 
 function readFilters(params: URLSearchParams): FilterValues {
@@ -129,7 +129,7 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
         filtered={values.deferral}
         onFilter={(on) => update({ deferral: on ? "pending" : "" })}
       />
-      <BacklogFilters values={values} counts={data?.counts} ranks={RANKS} onChange={update} />
+      <BacklogFilters values={values} counts={data?.counts} ranks={[...RANKS]} onChange={update} />
       {error ? (
         <p role="alert" className="p-4 text-alarm-700 dark:text-alarm-300">
           The Backlog could not be loaded: {error.message}
