@@ -1,12 +1,12 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { problemSentence } from "@/app/_components/forms/form-problem";
 import { SidePanel } from "@/app/_components/forms/side-panel";
+import { useSendForm } from "@/app/_components/forms/use-send-form";
 import { Password, type AdminPerson } from "@/server/admin/contract";
 import { PasswordField } from "./password-field";
 import { useSendPasswordLink, useUpdatePerson } from "./use-admin";
@@ -20,25 +20,24 @@ type Props = { person: AdminPerson; onDone: (message: string) => void; onClose: 
 export function PasswordPanel({ person, onDone, onClose }: Props) {
   const update = useUpdatePerson();
   const sendLink = useSendPasswordLink();
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError, setValue } = useForm<PasswordForm>({
+  const form = useForm<PasswordForm>({
     resolver: zodResolver(PasswordForm),
     defaultValues: { newPassword: "" },
   });
 
-  async function onSubmit({ newPassword }: PasswordForm) {
-    setProblem(null);
-    try {
+  const { register, formState, setValue } = form;
+  const { onSubmit, problem, setProblem } = useSendForm(form, {
+    fields: ["newPassword"],
+    outcome: "the password was not changed",
+    send: async ({ newPassword }) => {
       await update.mutateAsync({ id: person.id, changes: { newPassword } });
       onDone(
         person.isYou
           ? "Your password is changed."
           : `New password set for ${person.name}; they were signed out everywhere. Hand the password over securely.`,
       );
-    } catch (e) {
-      setProblem(showProblem(e, setError, ["newPassword"], "the password was not changed"));
-    }
-  }
+    },
+  });
 
   async function onSendLink() {
     setProblem(null);
@@ -50,7 +49,7 @@ export function PasswordPanel({ person, onDone, onClose }: Props) {
           : `A link to choose a new password went to ${person.email}; it works for an hour.`,
       );
     } catch (e) {
-      setProblem(showProblem(e, setError, [], "no link was sent"));
+      setProblem(problemSentence(e, "no link was sent"));
     }
   }
 
@@ -73,7 +72,7 @@ export function PasswordPanel({ person, onDone, onClose }: Props) {
           <p className="text-xs text-ink-500 dark:text-ink-400">Or set one yourself and hand it over:</p>
         </section>
       )}
-      <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+      <form onSubmit={onSubmit} noValidate className="grid gap-4">
         <p className="text-ink-700 dark:text-ink-200">
           The old password stops working at once{person.isYou ? "." : ", and every session they have open is ended."}
         </p>

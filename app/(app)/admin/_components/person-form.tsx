@@ -1,11 +1,10 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
 import { Controller, useForm, useWatch } from "react-hook-form";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { useSendForm } from "@/app/_components/forms/use-send-form";
 import type { AdminPerson, AdminVessel } from "@/server/admin/contract";
 import { ROLE_LABEL, ROLES, seesWholeFleet } from "@/server/auth/roles";
 import { PasswordField } from "./password-field";
@@ -23,12 +22,7 @@ type Props = { person?: AdminPerson; vessels: AdminVessel[]; onDone: (message: s
 export function PersonForm({ person, vessels, onDone }: Props) {
   const create = useCreatePerson();
   const update = useUpdatePerson();
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError, setValue, control } = useForm<
-    PersonFormInput,
-    unknown,
-    PersonFormValues
-  >({
+  const form = useForm<PersonFormInput, unknown, PersonFormValues>({
     resolver: zodResolver(person ? EditPersonForm : NewPersonForm),
     defaultValues: {
       name: person?.name ?? "",
@@ -40,15 +34,16 @@ export function PersonForm({ person, vessels, onDone }: Props) {
       initialPassword: "",
     },
   });
+  const { register, formState, setValue, control } = form;
   const { errors, isSubmitting } = formState;
   const role = useWatch({ control, name: "role" });
   const access = useWatch({ control, name: "access" });
   // Retired vessels are offered only where the person is still assigned to one.
   const offered = vessels.filter((v) => !v.retiredAt || person?.vessels.some((pv) => pv.id === v.id));
 
-  async function onSubmit({ initialPassword, email, access, ...values }: PersonFormValues) {
-    setProblem(null);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: PERSON_FIELDS,
+    send: async ({ initialPassword, email, access, ...values }) => {
       if (person) {
         const saved = await update.mutateAsync({ id: person.id, changes: values });
         onDone(`${saved.name} saved.`);
@@ -63,13 +58,11 @@ export function PersonForm({ person, vessels, onDone }: Props) {
             : `${saved.name} added. Hand over the initial password in person or by phone, never in the same e-mail as the address.`,
         );
       }
-    } catch (error) {
-      setProblem(showProblem(error, setError, PERSON_FIELDS));
-    }
-  }
+    },
+  });
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+    <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <Field id="person-name" label="Name" error={errors.name?.message}>
         <input
           className="field"

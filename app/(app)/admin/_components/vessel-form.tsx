@@ -1,11 +1,11 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useMemo, useState } from "react";
+import { useMemo } from "react";
 import { useForm } from "react-hook-form";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { useSendForm } from "@/app/_components/forms/use-send-form";
 import { type AdminVessel, VesselInput, type VesselValues } from "@/server/admin/contract";
 import { useSaveVessel } from "./use-admin";
 
@@ -15,31 +15,28 @@ type Props = { vessel?: AdminVessel; onDone: (message: string) => void };
 
 export function VesselForm({ vessel, onDone }: Props) {
   const save = useSaveVessel();
-  const [problem, setProblem] = useState<string | null>(null);
   const zones = useMemo(() => ["UTC", ...Intl.supportedValuesOf("timeZone")], []);
-  const { register, handleSubmit, formState, setError } = useForm<VesselInput, unknown, VesselValues>({
+  const form = useForm<VesselInput, unknown, VesselValues>({
     resolver: zodResolver(VesselInput),
     defaultValues: vessel
       ? { name: vessel.name, imoNumber: vessel.imoNumber, code: vessel.code, timeZone: vessel.timeZone }
       : { name: "", imoNumber: "", code: "", timeZone: "UTC" },
   });
+  const { register, formState } = form;
   const { errors, isSubmitting } = formState;
-
-  async function onSubmit(values: VesselValues) {
-    setProblem(null);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: FIELDS,
+    send: async (values) => {
       const saved = await save.mutateAsync({ id: vessel?.id, values });
       onDone(vessel ? `${saved.name} saved.` : `${saved.name} (${saved.code}) added.`);
-    } catch (error) {
-      setProblem(showProblem(error, setError, FIELDS));
-    }
-  }
+    },
+  });
 
   const described = (field: (typeof FIELDS)[number], hasHint = false) =>
     describedBy(`vessel-${field}`, errors[field]?.message, hasHint);
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+    <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <Field id="vessel-name" label="Name" error={errors.name?.message}>
         <input className="field" autoComplete="off" {...described("name")} {...register("name")} />
       </Field>

@@ -1,11 +1,10 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
 import { type Control, type Path, useForm, useWatch } from "react-hook-form";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { useSendForm } from "@/app/_components/forms/use-send-form";
 import type { ToleranceKind, ToleranceUnit } from "@/server/scheduling/tolerance";
 import {
   type AdminToleranceRule,
@@ -78,12 +77,7 @@ const numberOrNull = (raw: unknown) => (raw === "" || raw === null || raw === un
 
 export function ToleranceRuleForm({ rule, kind, onDone }: Props) {
   const save = useSaveToleranceRule();
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError, setValue, getValues, control } = useForm<
-    ToleranceRuleInput,
-    unknown,
-    ToleranceRuleValues
-  >({
+  const form = useForm<ToleranceRuleInput, unknown, ToleranceRuleValues>({
     resolver: zodResolver(ToleranceRuleInput),
     defaultValues: rule
       ? {
@@ -98,6 +92,7 @@ export function ToleranceRuleForm({ rule, kind, onDone }: Props) {
         }
       : NEW_RULE[kind],
   });
+  const { register, formState, setValue, getValues, control } = form;
   const { errors, isSubmitting } = formState;
   const values = useRuleValues(control);
   const units = UNITS_FOR_KIND[values.kind];
@@ -111,24 +106,22 @@ export function ToleranceRuleForm({ rule, kind, onDone }: Props) {
     if (next === "calendar") setValue("capHours", null);
   }
 
-  async function onSubmit(submitted: ToleranceRuleValues) {
-    setProblem(null);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: FIELDS,
+    send: async (submitted) => {
       const saved = await save.mutateAsync({
         id: rule?.id,
         values: { ...submitted, capHours: submitted.capHours ?? null },
       });
       onDone(rule ? `“${saved.name}” saved; the Backlog follows within a minute.` : `“${saved.name}” added.`);
-    } catch (error) {
-      setProblem(showProblem(error, setError, FIELDS));
-    }
-  }
+    },
+  });
 
   const described = (id: string, error: string | undefined, hasHint = false) =>
     describedBy(`rule-${id}`, error, hasHint);
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+    <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <Field id="rule-name" label="Name" error={errors.name?.message}>
         <input
           className="field"

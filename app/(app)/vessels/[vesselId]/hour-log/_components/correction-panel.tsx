@@ -5,7 +5,7 @@ import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { useSendForm } from "@/app/_components/forms/use-send-form";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { formatHours, formatShipTime } from "@/server/format/hours";
 import type { HistoryReading } from "@/server/readings/contract";
@@ -33,16 +33,12 @@ export function CorrectionPanel({ vesselId, counterName, reading, neighbours, ti
   const when = formatShipTime(readAt, timeZone);
   const correct = useCorrectReading(vesselId);
   const remove = useRemoveReading(vesselId);
-  const [problem, setProblem] = useState<string | null>(null);
   const [confirming, setConfirming] = useState(false);
-  const { register, handleSubmit, formState, setError, control } = useForm<
-    CorrectionFormValues,
-    unknown,
-    CorrectionFormOutput
-  >({
+  const form = useForm<CorrectionFormValues, unknown, CorrectionFormOutput>({
     resolver: zodResolver(CorrectionForm),
     defaultValues: { remove: false, value: String(reading.meterValue), remark: reading.remark ?? "", reason: "" },
   });
+  const { register, formState, control } = form;
   const { errors, isSubmitting } = formState;
   const [removing, raw] = useWatch({ control, name: ["remove", "value"] });
 
@@ -59,15 +55,22 @@ export function CorrectionPanel({ vesselId, counterName, reading, neighbours, ti
       : null;
   const valueError = errors.value?.message ?? liveProblem ?? undefined;
 
-  async function onSubmit(values: CorrectionFormOutput) {
-    setProblem(null);
-    if (values.remove && !confirming) {
-      setConfirming(true);
-      return;
-    }
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: FIELDS,
+    outcome: (values) => (values.remove ? "nothing was removed" : "nothing was changed"),
+    send: async (values) => {
+      if (values.remove && !confirming) {
+        setConfirming(true);
+        return;
+      }
       if (values.remove) {
-        await remove.mutateAsync({ readingId: reading.id, input: { reason: values.reason } });
+        await remove
+          .mutateAsync({ readingId: reading.id, input: { reason: values.reason } })
+          .catch((error: unknown) => {
+            // A refused removal asks again before the next attempt.
+            setConfirming(false);
+            throw error;
+          });
         onDone(
           `Removed the reading of ${counterName} at ${when} (${formatHours(reading.meterValue)}); the audit trail keeps it with your reason.`,
         );
@@ -83,11 +86,8 @@ export function CorrectionPanel({ vesselId, counterName, reading, neighbours, ti
             : `Corrected the ${counterName} reading at ${when}: ${formatHours(reading.meterValue)} → ${formatHours(after)}.`,
         );
       }
-    } catch (error) {
-      setConfirming(false);
-      setProblem(showProblem(error, setError, FIELDS, values.remove ? "nothing was removed" : "nothing was changed"));
-    }
-  }
+    },
+  });
 
   return (
     <SidePanel
@@ -96,7 +96,7 @@ export function CorrectionPanel({ vesselId, counterName, reading, neighbours, ti
       onClose={onClose}
       closeOnBackdrop
     >
-      <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+      <form onSubmit={onSubmit} noValidate className="grid gap-4">
         <p className="text-ink-700 dark:text-ink-200">
           Stored: <span className="font-semibold tabular-nums">{formatHours(reading.meterValue)}</span>
           {reading.totalHours !== reading.meterValue && (

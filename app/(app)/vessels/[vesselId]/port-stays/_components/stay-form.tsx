@@ -1,11 +1,10 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
-import { type Path, useFieldArray, useForm, useWatch } from "react-hook-form";
+import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { rowFields, useSendForm } from "@/app/_components/forms/use-send-form";
 import type { CrewCapacity } from "@/db/schema/maintenance";
 import { PortStayInput, type PortStayValues, type PortStayView } from "@/server/port-stays/contract";
 import { RANKS } from "@/server/routines/contract";
@@ -33,8 +32,7 @@ function crewRows(crew: CrewCapacity[]): PortStayInput["crew"] {
 
 export function StayForm({ vesselId, timeZone, stay, crew, onDone }: Props) {
   const save = useSaveStay(vesselId);
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError, control } = useForm<PortStayInput, unknown, PortStayValues>({
+  const form = useForm<PortStayInput, unknown, PortStayValues>({
     resolver: zodResolver(PortStayInput),
     defaultValues: stay
       ? {
@@ -46,32 +44,36 @@ export function StayForm({ vesselId, timeZone, stay, crew, onDone }: Props) {
           crew: crewRows(stay.crew),
           remarks: stay.remarks,
         }
-      : { port: "", arrivesAt: "", departsAt: "", engineMayStop: false, immobilisationHours: 0, crew: crewRows(crew), remarks: "" },
+      : {
+          port: "",
+          arrivesAt: "",
+          departsAt: "",
+          engineMayStop: false,
+          immobilisationHours: 0,
+          crew: crewRows(crew),
+          remarks: "",
+        },
   });
+  const { register, formState, control } = form;
   const rows = useFieldArray({ control, name: "crew" });
   const { errors, isSubmitting } = formState;
   const engineMayStop = useWatch({ control, name: "engineMayStop" });
   const usedRanks = new Set((useWatch({ control, name: "crew" }) ?? []).map((c) => c?.rank));
 
-  async function onSubmit(values: PortStayValues) {
-    setProblem(null);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    // Errors on crew rows name the row's field (crew.2.manHoursPerDay): put them there.
+    fields: (values) => [...rowFields("crew", values.crew.length, ["rank", "manHoursPerDay"]), ...FIELDS],
+    send: async (values) => {
       const saved = await save.mutateAsync({ id: stay?.id, values });
       onDone(stay ? `${saved.port} saved.` : `${saved.port} added.`, saved);
-    } catch (error) {
-      // Errors on crew rows name the row's field (crew.2.manHoursPerDay): put them there.
-      const rowFields = (error as { problem?: { errors?: { field: string }[] } }).problem?.errors
-        ?.map((e) => e.field)
-        .filter((f): f is Path<PortStayInput> => /^crew\.\d+\.(rank|manHoursPerDay)$/.test(f));
-      setProblem(showProblem(error, setError, [...(rowFields ?? []), ...FIELDS]));
-    }
-  }
+    },
+  });
 
   const described = (field: (typeof FIELDS)[number], hasHint = false) =>
     describedBy(`stay-${field}`, errors[field]?.message, hasHint);
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+    <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <Field id="stay-port" label="Port" error={errors.port?.message}>
         <input className="field" autoComplete="off" {...described("port")} {...register("port")} />
       </Field>
@@ -79,7 +81,12 @@ export function StayForm({ vesselId, timeZone, stay, crew, onDone }: Props) {
         <Field id="stay-arrivesAt" label="Arrival" error={errors.arrivesAt?.message} hint={`Ship’s time, ${timeZone}`}>
           <input type="datetime-local" className="field" {...described("arrivesAt", true)} {...register("arrivesAt")} />
         </Field>
-        <Field id="stay-departsAt" label="Departure" error={errors.departsAt?.message} hint={`Ship’s time, ${timeZone}`}>
+        <Field
+          id="stay-departsAt"
+          label="Departure"
+          error={errors.departsAt?.message}
+          hint={`Ship’s time, ${timeZone}`}
+        >
           <input type="datetime-local" className="field" {...described("departsAt", true)} {...register("departsAt")} />
         </Field>
       </div>
@@ -106,7 +113,11 @@ export function StayForm({ vesselId, timeZone, stay, crew, onDone }: Props) {
           id="stay-immobilisationHours"
           label="Immobilisation allowed (h)"
           error={errors.immobilisationHours?.message}
-          hint={engineMayStop ? "Hours the engine may stay stopped for work, over the whole stay." : "0 while the engine may not stop."}
+          hint={
+            engineMayStop
+              ? "Hours the engine may stay stopped for work, over the whole stay."
+              : "0 while the engine may not stop."
+          }
         >
           <input
             type="number"
@@ -122,7 +133,9 @@ export function StayForm({ vesselId, timeZone, stay, crew, onDone }: Props) {
       <fieldset className="grid gap-2">
         <legend className="label">Crew’s maintenance hours per day</legend>
         {rows.fields.length === 0 && (
-          <p className="text-sm text-ink-500 dark:text-ink-400">No ranks yet: add the ranks who do maintenance in port.</p>
+          <p className="text-sm text-ink-500 dark:text-ink-400">
+            No ranks yet: add the ranks who do maintenance in port.
+          </p>
         )}
         {rows.fields.map((row, i) => {
           const rankError = errors.crew?.[i]?.rank?.message;

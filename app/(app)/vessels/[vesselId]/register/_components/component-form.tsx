@@ -1,12 +1,11 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { useSendForm } from "@/app/_components/forms/use-send-form";
 import { ComponentInput, type RegisterComponent, type RegisterView } from "@/server/register/contract";
 import { inheritedUnder, lookupOf } from "./counter-words";
 import { useAddComponent, useChangeComponent } from "./use-register";
@@ -31,8 +30,7 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
   const lookup = lookupOf(view);
   const add = useAddComponent(view.vessel.id);
   const change = useChangeComponent(view.vessel.id);
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<Values, unknown, Output>({
+  const form = useForm<Values, unknown, Output>({
     resolver: zodResolver(ComponentEdit),
     defaultValues: {
       code: editing?.code ?? "",
@@ -44,12 +42,13 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
       model: editing?.model ?? "",
     },
   });
+  const { register, formState } = form;
   const { errors, isSubmitting } = formState;
   const activeCounters = view.counters.filter((c) => !c.retiredAt || c.id === editing?.counterId);
 
-  async function onSubmit(values: Output) {
-    setProblem(null);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: FIELDS,
+    send: async (values) => {
       if (editing) {
         await change.mutateAsync({ id: editing.id, change: values });
         onDone(`${values.code} saved.`);
@@ -57,13 +56,11 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
         await add.mutateAsync({ ...values, parentId });
         onDone(`${values.code} added${parentId ? ` under ${lookup.components.get(parentId)?.code}` : ""}.`);
       }
-    } catch (error) {
-      setProblem(showProblem(error, setError, FIELDS));
-    }
-  }
+    },
+  });
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+    <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <p className="text-ink-600 dark:text-ink-300">
         {parentId ? (
           <>

@@ -1,12 +1,11 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { useSendForm } from "@/app/_components/forms/use-send-form";
 import { CounterInput, type RegisterCounter } from "@/server/register/contract";
 import { useAddCounter, useChangeCounter } from "./use-register";
 
@@ -23,28 +22,25 @@ type Props = {
 export function CounterForm({ vesselId, counter, onDone, onCancel }: Props) {
   const add = useAddCounter(vesselId);
   const change = useChangeCounter(vesselId);
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<Values, unknown, Output>({
+  const form = useForm<Values, unknown, Output>({
     resolver: zodResolver(CounterInput),
     defaultValues: { name: counter?.name ?? "", plannedHoursPerDay: counter ? String(counter.plannedHoursPerDay) : "" },
   });
+  const { register, formState } = form;
   const { errors, isSubmitting } = formState;
-
-  async function onSubmit(values: Output) {
-    setProblem(null);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: ["name", "plannedHoursPerDay"],
+    send: async (values) => {
       if (counter) await change.mutateAsync({ id: counter.id, change: values });
       else await add.mutateAsync(values);
       onDone(
         counter ? `Counter ${values.name} saved.` : `Counter ${values.name} added; it now appears in the Hour log.`,
       );
-    } catch (error) {
-      setProblem(showProblem(error, setError, ["name", "plannedHoursPerDay"]));
-    }
-  }
+    },
+  });
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+    <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <Field
         id="counter-name"
         label="Name"

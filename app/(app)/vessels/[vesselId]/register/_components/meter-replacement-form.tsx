@@ -1,12 +1,12 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useMemo, useState } from "react";
+import { useMemo } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { useSendForm } from "@/app/_components/forms/use-send-form";
 import {
   formatHours,
   formatShipTime,
@@ -37,8 +37,7 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
   const { timeZone } = view.vessel;
   const now = useMemo(() => new Date(view.now), [view.now]);
   const replace = useReplaceMeter(view.vessel.id);
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError, control } = useForm<Values, unknown, Output>({
+  const form = useForm<Values, unknown, Output>({
     resolver: zodResolver(MeterReplacementInput),
     defaultValues: {
       replacedAt: { shipDay: shipDay(now, timeZone), time: shipClock(now, timeZone) },
@@ -47,6 +46,7 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
       reason: "",
     },
   });
+  const { register, formState, control } = form;
   const { errors, isSubmitting } = formState;
   const [day, time, finalRaw, startRaw] = useWatch({
     control,
@@ -79,22 +79,20 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
   const totalAtChange =
     final?.success && offsetNow !== null ? round1(final.data + offsetNow) : (last?.totalHours ?? null);
 
-  async function onSubmit(values: Output) {
-    setProblem(null);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: FIELDS,
+    send: async (values) => {
       const result = await replace.mutateAsync({ id: counter.id, input: values });
       onDone(
         `${counter.name}: meter ${result.segment} fitted; totals carry on with an offset of ${formatHours(result.offsetHours)}.`,
       );
-    } catch (error) {
-      setProblem(showProblem(error, setError, FIELDS));
-    }
-  }
+    },
+  });
 
   const timeError =
     errors.replacedAt?.shipDay?.message ?? errors.replacedAt?.time?.message ?? errors.replacedAt?.message;
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+    <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <div
         role="note"
         className="rounded-md border border-brass-400 bg-brass-100 px-3 py-2 text-brass-700 dark:border-brass-600 dark:bg-brass-700/20 dark:text-brass-300"

@@ -1,11 +1,10 @@
 "use client";
 
-import { useState } from "react";
 import { type Path, useForm } from "react-hook-form";
 import { ProblemError } from "@/app/_components/fetch-json";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { rowFields, useSendForm } from "@/app/_components/forms/use-send-form";
 import { RANK_LABEL } from "@/app/_components/rank-words";
 import { fieldErrorsFromZod } from "@/server/http/problem";
 import { CAUTIONS, RANKS, RoutineInput, type RoutineList, type RoutineView } from "@/server/routines/contract";
@@ -47,25 +46,21 @@ type Props = {
 export function RoutineForm({ list, routine, onDone, onCancel }: Props) {
   const add = useAddRoutine(list.vessel.id);
   const change = useChangeRoutine(list.vessel.id);
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, control, handleSubmit, formState, setError, getValues } = useForm<RoutineFormValues>({
+  const form = useForm<RoutineFormValues>({
     defaultValues: valuesOf(routine, new Date().toISOString().slice(0, 10)),
   });
+  const { register, control, formState } = form;
   const { errors, isSubmitting } = formState;
 
-  const fieldsOfForm = (): Path<RoutineFormValues>[] => [
-    ...FIXED_FIELDS,
-    ...getValues("measurements").flatMap((_, i) =>
-      (["name", "unit", "lower", "upper"] as const).map((k) => `measurements.${i}.${k}` as const),
-    ),
-  ];
-
-  async function onSubmit(values: RoutineFormValues) {
-    setProblem(null);
-    const input = inputOf(values);
-    // Checked here first with the same contract as the server, so a mistake shows without a round trip.
-    const local = RoutineInput.safeParse(input);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: (values) => [
+      ...FIXED_FIELDS,
+      ...rowFields("measurements", values.measurements.length, ["name", "unit", "lower", "upper"]),
+    ],
+    send: async (values) => {
+      const input = inputOf(values);
+      // Checked here first with the same contract as the server, so a mistake shows without a round trip.
+      const local = RoutineInput.safeParse(input);
       if (!local.success) {
         const errors = fieldErrorsFromZod(local.error);
         throw new ProblemError({
@@ -83,13 +78,11 @@ export function RoutineForm({ list, routine, onDone, onCancel }: Props) {
         await add.mutateAsync(input);
         onDone(`${values.title} added; its work order appears in the Backlog in a moment.`);
       }
-    } catch (error) {
-      setProblem(showProblem(error, setError, fieldsOfForm()));
-    }
-  }
+    },
+  });
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+    <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <Field id="routine-component" label="Component" error={errors.componentId?.message}>
         <select
           className="field"

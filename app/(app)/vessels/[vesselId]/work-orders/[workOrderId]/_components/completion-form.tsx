@@ -1,12 +1,11 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
-import { type Path, useForm, useWatch } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { rowFields, useSendForm } from "@/app/_components/forms/use-send-form";
 import { CompletionInput, limitSide, type WorkOrderDetail } from "@/server/completions/contract";
 import { formatHours, formatShipTime, shipClock, shipDay } from "@/server/format/hours";
 import { useSaveCompletion } from "./use-work-order";
@@ -48,48 +47,39 @@ function startingValues(detail: WorkOrderDetail): Values {
 export function CompletionForm({ detail, onDone }: Props) {
   const resubmit = detail.completion?.status === "returned";
   const save = useSaveCompletion(detail.vessel.id, detail.workOrder.id, resubmit);
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError, control } = useForm<Values, unknown, Output>({
+  const form = useForm<Values, unknown, Output>({
     resolver: zodResolver(CompletionInput),
     defaultValues: startingValues(detail),
   });
+  const { register, formState, control } = form;
   const { errors, isSubmitting } = formState;
   const checklist = useWatch({ control, name: "checklist" });
   const measured = useWatch({ control, name: "measurements" });
   const limits = detail.routine?.measurements ?? [];
   const tz = detail.vessel.timeZone;
   const latest = detail.counter?.latest;
-  const fields: Path<Values>[] = [
-    "doneOn",
-    "time",
-    "counterHours",
-    "manHours",
-    "remarks",
-    ...checklist.map((_, i) => `checklist.${i}.remark` as const),
-    "checklist",
-    ...limits.flatMap((_, i) => [`measurements.${i}.value` as const, `measurements.${i}.name` as const]),
-    "measurements",
-  ];
-
-  async function onSubmit(values: Output) {
-    setProblem(null);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: [
+      "doneOn",
+      "time",
+      "counterHours",
+      "manHours",
+      "remarks",
+      ...rowFields("checklist", checklist.length, ["remark"]),
+      "checklist",
+      ...rowFields("measurements", limits.length, ["value", "name"]),
+      "measurements",
+    ],
+    send: async (values) => {
       const result = await save.mutateAsync(values);
       onDone(
         `Recorded; it now awaits the chief engineer’s approval.${result.followUpNumber ? ` Values out of limits raised the follow-up ${result.followUpNumber}.` : ""}`,
       );
-    } catch (error) {
-      setProblem(showProblem(error, setError, fields));
-    }
-  }
+    },
+  });
 
   return (
-    <form
-      onSubmit={handleSubmit(onSubmit)}
-      noValidate
-      className="grid gap-5 panel p-4"
-      aria-labelledby="completion-heading"
-    >
+    <form onSubmit={onSubmit} noValidate className="grid gap-5 panel p-4" aria-labelledby="completion-heading">
       <h2 id="completion-heading" className="text-base font-semibold">
         {resubmit ? "Correct and resubmit the completion" : "Record the completion"}
       </h2>

@@ -1,11 +1,10 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
-import { showProblem } from "@/app/_components/forms/form-problem";
+import { useSendForm } from "@/app/_components/forms/use-send-form";
 import { type DeferralRequest, DeferralRequestInput, type WorkOrderWithDeferrals } from "@/server/deferrals/contract";
 import { formatHours, formatShipDate } from "@/server/format/hours";
 import { addShipDays, shipDateFromKey, shipDateKey } from "@/server/scheduling/ship-date";
@@ -19,34 +18,33 @@ type Props = { detail: WorkOrderWithDeferrals; onDone: (message: string) => void
 export function DeferralRequestForm({ detail, onDone }: Props) {
   const { deferrals: d, vessel, workOrder: w } = detail;
   const send = useRequestDeferral(vessel.id, w.id);
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<DeferralRequestInput, unknown, DeferralRequest>({
+  const form = useForm<DeferralRequestInput, unknown, DeferralRequest>({
     resolver: zodResolver(DeferralRequestInput),
     defaultValues: { reason: "", proposedDueDay: "", proposedDueHours: "" },
   });
+  const { register, formState } = form;
   const { errors, isSubmitting } = formState;
   const tomorrow = shipDateKey(addShipDays(shipDateFromKey(d.today), 1));
   const dueDay = d.current.dueDate ? formatShipDate(new Date(d.current.dueDate), vessel.timeZone) : null;
 
-  async function onSubmit(values: DeferralRequest) {
-    setProblem(null);
-    try {
+  const { onSubmit, problem } = useSendForm(form, {
+    fields: FIELDS,
+    outcome: "nothing was requested",
+    send: async (values) => {
       const result = await send.mutateAsync(values);
       onDone(
         result.needsOffice
           ? `Deferral of ${w.number} requested: it awaits the technical superintendent’s decision.`
           : `Deferral of ${w.number} requested: you or the superintendent may decide it.`,
       );
-    } catch (error) {
-      setProblem(showProblem(error, setError, FIELDS, "nothing was requested"));
-    }
-  }
+    },
+  });
 
   const described = (field: (typeof FIELDS)[number], hasHint = false) =>
     describedBy(`deferral-${field}`, errors[field]?.message, hasHint);
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="grid gap-4">
+    <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <section aria-label="Limits now" className="rounded-md bg-ink-50 p-3 text-sm dark:bg-ink-850">
         <p className="font-semibold">{d.current.deferred ? "Limit in force (deferred)" : "Limit now"}</p>
         <p className="tabular-nums">
