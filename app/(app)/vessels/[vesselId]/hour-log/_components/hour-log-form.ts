@@ -1,36 +1,59 @@
-// The Hour log form's schema: the same pieces as the route handler's contract, per counter.
+// The Hour log form's schema: the batch contract's shape (day, time, `entries[]`), with a row for
+// every counter; a row left empty is not sent.
 import { z } from "zod";
-import { CorrectionReason, MeterValue, type ReadingBatchInput, ShipClock, ShipDay } from "@/server/readings/contract";
+import {
+  CorrectionReason,
+  MeterValue,
+  ReadingEntry,
+  type ReadingBatchInput,
+  ShipClock,
+  ShipDay,
+} from "@/server/readings/contract";
 
-export const HourLogForm = z
-  .object({
-    shipDay: ShipDay,
-    time: ShipClock,
-    values: z.record(z.string(), z.string()),
-  })
-  .superRefine((form, ctx) => {
-    let filled = 0;
-    for (const [counterId, raw] of Object.entries(form.values)) {
-      if (!raw.trim()) continue;
-      filled++;
-      const parsed = MeterValue.safeParse(raw);
-      if (!parsed.success) {
-        ctx.addIssue({ code: "custom", path: ["values", counterId], message: parsed.error.issues[0]!.message });
-      }
-    }
-    if (filled === 0) ctx.addIssue({ code: "custom", path: ["values"], message: "Enter at least one reading." });
-  });
+const isFilled = (entry: { value: string }) => entry.value.trim() !== "";
+
+const HourLogEntry = z.object({
+  counterId: ReadingEntry.shape.counterId,
+  value: z.string().superRefine((raw, ctx) => {
+    if (!raw.trim()) return;
+    const parsed = MeterValue.safeParse(raw);
+    if (!parsed.success) ctx.addIssue({ code: "custom", message: parsed.error.issues[0]!.message });
+  }),
+});
+
+export const HourLogForm = z.object({
+  shipDay: ShipDay,
+  time: ShipClock,
+  entries: z
+    .array(HourLogEntry)
+    .refine((entries) => entries.some(isFilled), { message: "Enter at least one reading." }),
+});
 export type HourLogForm = z.infer<typeof HourLogForm>;
 
+/** A row per counter, in the page's order, nothing typed yet. */
+export function emptyEntries(counterIds: readonly string[]): HourLogForm["entries"] {
+  return counterIds.map((counterId) => ({ counterId, value: "" }));
+}
+
 /** The batch the route handler takes: the filled rows, in the page's order. */
-export function toBatch(form: HourLogForm, order: string[]): ReadingBatchInput {
+export function toBatch(form: HourLogForm): ReadingBatchInput {
   return {
     shipDay: form.shipDay,
     time: form.time,
-    entries: order
-      .filter((id) => form.values[id]?.trim())
-      .map((counterId) => ({ counterId, value: form.values[counterId]!.trim() })),
+    entries: form.entries.filter(isFilled).map(({ counterId, value }) => ({ counterId, value: value.trim() })),
   };
+}
+
+/**
+ * The form's field for a field of the batch: the batch's row N is the form's Nth filled row, and
+ * whatever the server says of a row (its value, its counter) goes beside the row's one input.
+ */
+export function formFieldOfBatch(field: string, form: HourLogForm): string {
+  const row = /^entries\.(\d+)\./.exec(field)?.[1];
+  if (row === undefined) return field;
+  const filled = form.entries.flatMap((entry, index) => (isFilled(entry) ? [index] : []));
+  const index = filled[Number(row)];
+  return index === undefined ? field : `entries.${index}.value`;
 }
 
 /**

@@ -30,7 +30,8 @@ export function HourLog({ vesselId }: { vesselId: string }) {
   const selected = chartCounter ?? data.counters[0]!.id;
   return (
     <div className="grid gap-4">
-      <ReadingForm view={data} onShowChart={setChartCounter} />
+      {/* A counter added or retired elsewhere gives the form a new set of rows. */}
+      <ReadingForm key={data.counters.map((c) => c.id).join()} view={data} onShowChart={setChartCounter} />
       <RunningHoursChart
         vesselId={vesselId}
         counters={data.counters.map(({ id, name }) => ({ id, name }))}
@@ -45,7 +46,7 @@ export function HourLog({ vesselId }: { vesselId: string }) {
 
 function HourLogSkeleton() {
   return (
-    <div className="panel animate-pulse p-4" aria-busy="true" aria-label="Loading the Hour log">
+    <div className="animate-pulse panel p-4" aria-busy="true" aria-label="Loading the Hour log">
       <div className="mb-4 h-6 w-64 rounded bg-ink-200 dark:bg-ink-800" />
       {Array.from({ length: 8 }, (_, i) => (
         <div key={i} className="mb-2 h-9 rounded bg-ink-100 dark:bg-ink-850" />
