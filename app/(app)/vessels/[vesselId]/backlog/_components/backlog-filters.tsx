@@ -1,20 +1,20 @@
 "use client";
 
 import { StateBadge } from "@/app/_components/state-badge";
-import { ALL_STATES, type BacklogPage, type BacklogState, OPEN_STATES } from "@/server/backlog/contract";
+import {
+  ALL_STATES,
+  type BacklogFilter,
+  type BacklogPage,
+  type BacklogState,
+  OPEN_STATES,
+} from "@/server/backlog/contract";
 import { rankLabel } from "@/app/_components/rank-words";
 
-export type FilterValues = {
-  state: BacklogState[];
-  q: string;
-  rank: string;
-  critical: boolean;
-  classRelated: boolean;
-  engineStop: boolean;
-  dueBefore: string;
-  /** Only work orders with a deferral request awaiting a decision (the notice above sets it). */
-  deferral: boolean;
-};
+/** The filters this bar sets, in the Backlog query's own shape (a value left out is no filter). */
+export type FilterValues = Pick<
+  BacklogFilter,
+  "state" | "q" | "rank" | "critical" | "classRelated" | "engineStop" | "dueBefore"
+>;
 
 type Props = {
   values: FilterValues;
@@ -22,7 +22,6 @@ type Props = {
   ranks: string[];
   onChange: (next: Partial<FilterValues>) => void;
 };
-
 
 /** Controlled by the caller's filter values, which follow the URL (or the change just made). */
 export function BacklogFilters({ values, counts, ranks, onChange }: Props) {
@@ -63,9 +62,9 @@ export function BacklogFilters({ values, counts, ranks, onChange }: Props) {
             type="search"
             className="field w-56"
             placeholder="Title, number or code"
-            defaultValue={values.q}
+            defaultValue={values.q ?? ""}
             onKeyDown={(e) => e.key === "Enter" && onChange({ q: e.currentTarget.value })}
-            onBlur={(e) => e.currentTarget.value !== values.q && onChange({ q: e.currentTarget.value })}
+            onBlur={(e) => e.currentTarget.value !== (values.q ?? "") && onChange({ q: e.currentTarget.value })}
           />
         </div>
         <div>
@@ -75,7 +74,7 @@ export function BacklogFilters({ values, counts, ranks, onChange }: Props) {
           <select
             id="backlog-rank"
             className="field w-44"
-            value={values.rank}
+            value={values.rank ?? ""}
             onChange={(e) => onChange({ rank: e.target.value })}
           >
             <option value="">Any rank</option>
@@ -94,7 +93,7 @@ export function BacklogFilters({ values, counts, ranks, onChange }: Props) {
             id="backlog-due"
             type="date"
             className="field w-40"
-            value={values.dueBefore}
+            value={values.dueBefore ?? ""}
             onChange={(e) => onChange({ dueBefore: e.target.value })}
           />
         </div>
@@ -109,7 +108,7 @@ export function BacklogFilters({ values, counts, ranks, onChange }: Props) {
             <input
               type="checkbox"
               className="accent-tide-600"
-              checked={values[key]}
+              checked={values[key] ?? false}
               onChange={(e) => onChange({ [key]: e.target.checked })}
             />
             {label}

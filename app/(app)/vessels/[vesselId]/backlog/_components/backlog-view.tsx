@@ -4,10 +4,11 @@ import { flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-tabl
 import { usePathname, useSearchParams } from "next/navigation";
 import { useMemo, useState } from "react";
 import { ageOf } from "@/app/_components/relative-age";
-import { ALL_STATES, BACKLOG_SORTS, type BacklogState, OPEN_STATES } from "@/server/backlog/contract";
+import { BACKLOG_SORTS, type BacklogFilter } from "@/server/backlog/contract";
 import { RANKS } from "@/server/routines/contract";
 import { backlogColumns } from "./backlog-columns";
-import { BacklogFilters, type FilterValues } from "./backlog-filters";
+import { BacklogFilters } from "./backlog-filters";
+import { backlogExportSearch, backlogSearch, readBacklogUrl } from "./backlog-url";
 import { useBacklog } from "./use-backlog";
 
 const SORT_LABEL: Record<(typeof BACKLOG_SORTS)[number], string> = {
@@ -18,24 +19,6 @@ const SORT_LABEL: Record<(typeof BACKLOG_SORTS)[number], string> = {
   component: "Component code",
   "remaining-hours": "Fewest hours left",
 };
-const PAGE_SIZE = 50;
-
-function readFilters(params: URLSearchParams): FilterValues {
-  const states = (params.get("state") ?? "")
-    .split(",")
-    .filter((s): s is BacklogState => (ALL_STATES as readonly string[]).includes(s));
-  return {
-    state: states.length ? states : [...OPEN_STATES],
-    q: params.get("q") ?? "",
-    rank: params.get("rank") ?? "",
-    critical: params.get("critical") === "true",
-    classRelated: params.get("classRelated") === "true",
-    engineStop: params.get("engineStop") === "true",
-    dueBefore: params.get("dueBefore") ?? "",
-    deferral: params.get("deferral") === "pending",
-  };
-}
-
 export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone: string }) {
   const pathname = usePathname();
   const urlParams = useSearchParams();
@@ -43,40 +26,18 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
   // the URL is still the one it was changed from, the pending query stands in for it.
   const [pending, setPending] = useState<{ from: string; to: string } | null>(null);
   const current = pending && pending.from === urlParams.toString() ? pending.to : urlParams.toString();
-  const params = useMemo(() => new URLSearchParams(current), [current]);
-  const values = readFilters(params);
-  const sort = (BACKLOG_SORTS as readonly string[]).includes(params.get("sort") ?? "")
-    ? params.get("sort")!
-    : "urgency";
-  const page = Math.max(1, Number(params.get("page") ?? 1) || 1);
-
-  // The API's query: the same names as the page's URL, so a link to the page is a link to the list.
-  const search = useMemo(() => {
-    const q = new URLSearchParams(params.toString());
-    q.set("pageSize", String(PAGE_SIZE));
-    return q.toString();
-  }, [params]);
+  const filter = useMemo(() => readBacklogUrl(new URLSearchParams(current)), [current]);
+  // The API's query is the page's: the same names, read by the same schema.
+  const search = backlogSearch(filter);
   const { data, error, isPending, isFetching } = useBacklog(vesselId, search);
 
-  function update(next: Record<string, string | boolean | string[] | undefined>) {
-    const q = new URLSearchParams(params.toString());
-    for (const [key, value] of Object.entries(next)) {
-      const text = Array.isArray(value)
-        ? value.join(",")
-        : value === true
-          ? "true"
-          : value === false
-            ? ""
-            : (value ?? "");
-      const isDefaultState = key === "state" && text === OPEN_STATES.join(",");
-      if (!text || isDefaultState) q.delete(key);
-      else q.set(key, text);
-    }
-    if (!("page" in next)) q.delete("page");
+  function update(next: Partial<BacklogFilter>) {
+    // Another filter or sort starts again at the first page.
+    const to = backlogSearch({ ...filter, page: 1, ...next });
     // The History API, not router.replace: Next keeps useSearchParams in step, and the ship's link
     // is spared a server round trip for what is only a new query to the route handler.
-    setPending({ from: urlParams.toString(), to: q.toString() });
-    window.history.replaceState(null, "", `${pathname}${q.size ? `?${q}` : ""}`);
+    setPending({ from: urlParams.toString(), to });
+    window.history.replaceState(null, "", `${pathname}${to ? `?${to}` : ""}`);
   }
 
   const columns = useMemo(() => backlogColumns(timeZone), [timeZone]);
@@ -87,7 +48,7 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
     getCoreRowModel: getCoreRowModel(),
     manualPagination: true,
   });
-  const pages = data ? Math.max(1, Math.ceil(data.total / PAGE_SIZE)) : 1;
+  const pages = data ? Math.max(1, Math.ceil(data.total / data.pageSize)) : 1;
 
   return (
     <section className="panel" aria-labelledby="backlog-heading" aria-busy={isFetching}>
@@ -102,7 +63,7 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
         <div className="flex flex-wrap items-center gap-3">
           <a
             className="btn-quiet"
-            href={`/api/vessels/${vesselId}/backlog/export${exportQuery(params)}`}
+            href={`/api/vessels/${vesselId}/backlog/export${exportQuery(filter)}`}
             download
             title="Every work order under these filters, in this order, as a spreadsheet file"
           >
@@ -112,8 +73,8 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
             <span className="text-ink-600 dark:text-ink-300">Sort</span>
             <select
               className="field w-auto"
-              value={sort}
-              onChange={(e) => update({ sort: e.target.value === "urgency" ? "" : e.target.value })}
+              value={filter.sort}
+              onChange={(e) => update({ sort: BACKLOG_SORTS.find((s) => s === e.target.value) })}
             >
               {BACKLOG_SORTS.map((s) => (
                 <option key={s} value={s}>
@@ -126,10 +87,10 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
       </div>
       <PendingDeferrals
         count={data?.pendingDeferrals ?? 0}
-        filtered={values.deferral}
-        onFilter={(on) => update({ deferral: on ? "pending" : "" })}
+        filtered={filter.deferral === "pending"}
+        onFilter={(on) => update({ deferral: on ? "pending" : undefined })}
       />
-      <BacklogFilters values={values} counts={data?.counts} ranks={[...RANKS]} onChange={update} />
+      <BacklogFilters values={filter} counts={data?.counts} ranks={[...RANKS]} onChange={update} />
       {error ? (
         <p role="alert" className="p-4 text-alarm-700 dark:text-alarm-300">
           The Backlog could not be loaded: {error.message}
@@ -180,19 +141,19 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
           <button
             type="button"
             className="btn-quiet"
-            disabled={page <= 1}
-            onClick={() => update({ page: String(page - 1) })}
+            disabled={filter.page <= 1}
+            onClick={() => update({ page: filter.page - 1 })}
           >
             ← Previous
           </button>
           <span className="text-ink-600 dark:text-ink-300">
-            Page {page} of {pages}
+            Page {filter.page} of {pages}
           </span>
           <button
             type="button"
             className="btn-quiet"
-            disabled={page >= pages}
-            onClick={() => update({ page: String(page + 1) })}
+            disabled={filter.page >= pages}
+            onClick={() => update({ page: filter.page + 1 })}
           >
             Next →
           </button>
@@ -203,11 +164,9 @@ export function BacklogView({ vesselId, timeZone }: { vesselId: string; timeZone
 }
 
 /** The page's filters and sort without its paging: the export carries every page. */
-function exportQuery(params: URLSearchParams): string {
-  const q = new URLSearchParams(params.toString());
-  q.delete("page");
-  q.delete("pageSize");
-  return q.size ? `?${q.toString().replace(/%2C/g, ",")}` : "";
+function exportQuery(filter: BacklogFilter): string {
+  const search = backlogExportSearch(filter);
+  return search ? `?${search}` : "";
 }
 
 /** Requests someone has to decide: said above the list, with the filter that shows just those. */
