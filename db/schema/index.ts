@@ -5,3 +5,4 @@ export * from "./tenancy";
 export * from "./maintenance";
 export * from "./mail";
 export * from "./fleet";
+export * from "./plan-problems";

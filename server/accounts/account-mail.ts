@@ -6,7 +6,7 @@ import "server-only";
 import { and, eq, isNotNull } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { company, membership, user, verification } from "@/db/schema";
-import { requestMailSend } from "@/server/jobs";
+import { requestMailSend } from "@/server/jobs/mail-send";
 import { enqueueMail } from "@/server/mail/outbox";
 import { appUrl } from "@/server/mail/links";
 import { renderMail } from "@/server/mail/render";
@@ -69,17 +69,19 @@ export async function sendAccountMail({ user: person, url, token }: ResetHook, n
         action: { label: "Choose a new password", href: link },
         footer: "If you did not ask for this, ignore this message; your password stays as it is.",
       });
-  await enqueueMail(db, {
-    companyId: found.companyId,
-    userId: person.id,
-    to: person.email,
-    kind: invitation ? "invitation" : "password-reset",
-    // One message per token: asking again sends a new link, a retry never sends the same one twice.
-    dedupeKey: `${invitation ? "invitation" : "password-reset"}:${person.id}:${token}`,
-    subject: invitation ? `Your Keelson account at ${found.companyName}` : "Your Keelson password",
-    ...content,
+  await db.transaction(async (tx) => {
+    await enqueueMail(tx, {
+      companyId: found.companyId,
+      userId: person.id,
+      to: person.email,
+      kind: invitation ? "invitation" : "password-reset",
+      // One message per token: asking again sends a new link, a retry never sends the same one twice.
+      dedupeKey: `${invitation ? "invitation" : "password-reset"}:${person.id}:${token}`,
+      subject: invitation ? `Your Keelson account at ${found.companyName}` : "Your Keelson password",
+      ...content,
+    });
+    await requestMailSend(tx);
   });
-  await requestMailSend();
 }
 
 /** better-auth's link points at its own base URL; the message uses the app's public address. */

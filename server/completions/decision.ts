@@ -7,6 +7,7 @@ import { getDb } from "@/db/client";
 import { completion, workOrder, workOrderStateChange } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { AppError } from "@/server/http/problem";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { type CompletionStatus, DecisionInput } from "./contract";
 import { lockWorkOrder } from "@/server/work-orders/lock";
 
@@ -57,6 +58,8 @@ export async function decideCompletion(
     await tx
       .insert(workOrderStateChange)
       .values({ companyId, workOrderId: w.id, fromState: w.state, toState: "done", changedAt: now });
+    // The worker schedules the next occurrence from the approved completion.
+    await requestRecompute(tx, companyId, vessel.id);
     return { status: "approved", workOrderState: "done" };
   });
 }

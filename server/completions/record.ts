@@ -7,6 +7,7 @@ import { completion, component, counter, routine, workOrder } from "@/db/schema"
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatShipTime, instantOfShipTime, shipDay } from "@/server/format/hours";
 import { isUuid } from "@/server/http/ids";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
 import { isInFuture, readingProblem } from "@/server/readings/rules";
 import { assessMeasurements, type Completion, type CompletionResult, measurementMismatches } from "./contract";
@@ -165,6 +166,8 @@ async function writeCompletion(
       needsEngineStop: w.needsEngineStop,
       now,
     });
+    // A follow-up raised by a measurement out of limits gets its windows from the worker.
+    if (followUpNumber) await requestRecompute(tx, companyId, vessel.id);
     return { completionId: saved!.id, status: "awaiting-approval", followUpNumber };
   });
 }

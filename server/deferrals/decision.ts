@@ -7,6 +7,7 @@ import { getDb } from "@/db/client";
 import { deferral, workOrder, workOrderStateChange } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { lockVesselWorkOrders } from "@/server/work-orders/lock";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { isUuid } from "@/server/http/ids";
 import { AppError } from "@/server/http/problem";
 import { endOfShipDate, shipDateFromKey } from "@/server/scheduling/ship-date";
@@ -85,6 +86,8 @@ export async function decideDeferral(
         .insert(workOrderStateChange)
         .values({ companyId, workOrderId: w.id, fromState: w.state, toState: "deferred", changedAt: now });
     }
+    // The worker measures the tolerance windows from the new limit.
+    await requestRecompute(tx, companyId, vessel.id);
     return { id: d.id, status: "approved", workOrderState: "deferred" };
   });
 }

@@ -6,7 +6,7 @@ import type { Access } from "@/server/auth/access";
 import { env } from "@/server/env";
 import { isUuid } from "@/server/http/ids";
 import { AppError, invalidInput } from "@/server/http/problem";
-import { requestMailSend } from "@/server/jobs";
+import { requestMailSend } from "@/server/jobs/mail-send";
 import type { AdminMail, CaughtMessage, ClearCaughtResult, MailActionResult, OutboxRow } from "./contract";
 import { smtpConfig } from "./transport";
 
@@ -151,13 +151,16 @@ async function whyUnchanged(companyId: string, messageId: string, action: "retri
  */
 export async function retryMail(access: Access, messageId: string): Promise<MailActionResult> {
   if (!isUuid(messageId)) throw notFound();
-  const [row] = await getDb()
-    .update(mailOutbox)
-    .set({ status: "pending", nextAttemptAt: sql`now()`, claimedUntil: null })
-    .where(changeable(access.company.id, messageId, ["pending", "failed", "cancelled"]))
-    .returning();
+  const row = await getDb().transaction(async (tx) => {
+    const [updated] = await tx
+      .update(mailOutbox)
+      .set({ status: "pending", nextAttemptAt: sql`now()`, claimedUntil: null })
+      .where(changeable(access.company.id, messageId, ["pending", "failed", "cancelled"]))
+      .returning();
+    if (updated) await requestMailSend(tx);
+    return updated;
+  });
   if (!row) throw await whyUnchanged(access.company.id, messageId, "retried");
-  await requestMailSend();
   return { message: toOutboxRow(row) };
 }
 

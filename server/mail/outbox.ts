@@ -28,8 +28,9 @@ export type OutgoingMail = {
 /**
  * Queues a message (INSERT … ON CONFLICT (dedupe_key) DO NOTHING), unless the user opted out of its
  * kind. Usable inside a caller's transaction (pass tx), so the message is queued with the change
- * that caused it or not at all. Returns true when a row was inserted; call `requestMailSend()`
- * after the commit so it leaves within seconds instead of at the next minute's sweep.
+ * that caused it or not at all. Returns true when a row was inserted; then call
+ * `requestMailSend(tx)` in the same transaction, so it leaves within seconds of the commit instead
+ * of at the worker's next minute's sweep.
  */
 export async function enqueueMail(db: Db | Tx, mail: OutgoingMail): Promise<boolean> {
   if (mail.userId && !isAccountKind(mail.kind)) {

@@ -9,6 +9,7 @@ import { counter, reading, readingCorrection, user } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatHours, formatShipDate, formatShipTime } from "@/server/format/hours";
 import { isUuid } from "@/server/http/ids";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { AppError, invalidInput } from "@/server/http/problem";
 import type { ReadingCorrection, ReadingCorrectionEntry, ReadingCorrectionResult } from "./contract";
 import { loadNeighbours } from "./neighbours";
@@ -53,6 +54,7 @@ export async function correctReading(
       newRemark: remark,
       reason: input.reason,
     });
+    await requestRecompute(tx, access.company.id, vessel.id);
     return {
       reading: {
         id: updated!.id,
@@ -89,6 +91,7 @@ export async function removeReading(
       reason,
     });
     await tx.delete(reading).where(and(eq(reading.companyId, access.company.id), eq(reading.id, old.id)));
+    await requestRecompute(tx, access.company.id, vessel.id);
     return { reading: null, correction };
   });
 }

@@ -5,6 +5,7 @@ import { component, counter, reading, user } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { instantOfShipTime, shipDay } from "@/server/format/hours";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
 import type { HourLogView, ReadingBatch, ReadingBatchResult, ReadingHistory } from "./contract";
 import { correctionsSince } from "./corrections";
@@ -147,6 +148,7 @@ export async function saveReadingBatch(
     if (errors.length) throw invalidInput(errors);
 
     await tx.insert(reading).values(rows);
+    await requestRecompute(tx, access.company.id, vessel.id);
     return { saved: rows.length, readAt: readAt.toISOString() };
   });
 }

@@ -7,6 +7,7 @@ import type { Access, VesselRef } from "@/server/auth/access";
 import { formatHours, formatShipDate, formatShipTime, instantOfShipTime, shipDay } from "@/server/format/hours";
 import { isUuid } from "@/server/http/ids";
 import { AppError, invalidInput } from "@/server/http/problem";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { isInFuture, readingProblem, round1 } from "@/server/readings/rules";
 import type { CounterChange, MeterReplacement, MeterReplacementResult, NewCounter, RegisterCounter } from "./contract";
 import { counterScope, lockRegister, noSuch, type RegisterScope, rethrowConstraint } from "./register-scope";
@@ -91,6 +92,7 @@ export async function createCounter(
       offsetHours: 0,
       createdBy: access.user.id,
     });
+    await requestRecompute(tx, access.company.id, vessel.id);
     return toSummary(row!);
   });
 }
@@ -112,6 +114,8 @@ export async function updateCounter(
       .where(and(counterScope(scope), eq(counter.id, current.id)))
       .returning()
       .catch(rethrowConstraint);
+    // A planned rate stands in for a short history: the due dates it projects change with it.
+    if (change.plannedHoursPerDay !== undefined) await requestRecompute(tx, access.company.id, vessel.id);
     return toSummary(row!);
   });
 }
@@ -276,6 +280,7 @@ export async function replaceMeter(
       .update(counter)
       .set({ currentSegment: next })
       .where(and(counterScope(scope), eq(counter.id, current.id)));
+    await requestRecompute(tx, access.company.id, vessel.id);
     return {
       segment: next,
       startedAt: replacedAt.toISOString(),

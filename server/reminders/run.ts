@@ -5,7 +5,7 @@
 // that queues the messages, so either both happen or neither does.
 import "server-only";
 import type { Db, Tx } from "@/db/client";
-import { requestMailSend } from "@/server/jobs";
+import { requestMailSend } from "@/server/jobs/mail-send";
 import { appUrl, unsubscribeUrl } from "@/server/mail/links";
 import { enqueueMail, type MailKind } from "@/server/mail/outbox";
 import { renderMail } from "@/server/mail/render";
@@ -58,8 +58,6 @@ export type ReminderCounts = {
 export type RunOptions = {
   /** Only these companies (tests); every company by default. */
   companyIds?: string[];
-  /** Called after the run when anything was queued; `requestMailSend` by default. */
-  afterQueued?: () => Promise<void>;
 };
 
 function linksFor(companyId: string, userId: string): MailLinks {
@@ -90,6 +88,8 @@ async function queue(
     });
     if (inserted) queued++;
   }
+  // The worker sends them within seconds of the commit (and only if it commits).
+  if (queued > 0) await requestMailSend(tx);
   return queued;
 }
 
@@ -206,7 +206,5 @@ export async function runReminders(db: Db, now = new Date(), options: RunOptions
     }
     counts.fleetSummaries += await fleetSummaryOf(db, co, members, now);
   }
-  const queued = counts.dueDigests + counts.missingReadings + counts.escalations + counts.fleetSummaries;
-  if (queued > 0) await (options.afterQueued ?? requestMailSend)();
   return counts;
 }

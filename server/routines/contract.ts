@@ -292,7 +292,12 @@ export type RoutineSummary = Pick<
 > & {
   /** The fixed anniversary of an anchored routine, else null. */
   anchoredOn: string | null;
+  /** Why the due engine could not plan it on its last run (it has no open work order), else null. */
+  planProblem: string | null;
 };
+
+/** A routine the due engine could not plan, whatever the list's filter: the page names them all. */
+export type RoutinePlanProblem = { id: string; title: string; componentCode: string; reason: string; since: string };
 
 export type RoutineList = {
   vessel: { id: string; name: string; code: string };
@@ -302,6 +307,8 @@ export type RoutineList = {
   total: number;
   components: { id: string; code: string; name: string }[];
   toleranceRules: { id: string; name: string; kind: "hours" | "calendar" }[];
+  /** Every routine of the vessel the due engine could not plan on its last run. */
+  planProblems: RoutinePlanProblem[];
 };
 
 export type CopyTarget = { id: string; code: string; name: string; vessel: { id: string; name: string } };

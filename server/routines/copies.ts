@@ -6,7 +6,7 @@ import { getDb } from "@/db/client";
 import { component, routine, vessel as vesselTable } from "@/db/schema";
 import { type Access, mayOpenVessel, type VesselRef } from "@/server/auth/access";
 import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
-import { requestRecompute } from "@/server/jobs";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import type { CopyResult, CopyTarget } from "./contract";
 
 async function sourceOf(access: Access, vessel: VesselRef, routineId: string) {
@@ -100,13 +100,14 @@ export async function copyRoutine(
       .insert(routine)
       .values(ids.map((id) => ({ ...definition, componentId: id, vesselId: byId.get(id)!.vesselId })))
       .returning({ id: routine.id, componentId: routine.componentId });
+    // In vessel id order, as every writer that asks for several vessels does (no deadlock).
+    for (const vesselId of [...new Set(targets.map((t) => t.vesselId))].sort()) {
+      await requestRecompute(tx, access.company.id, vesselId);
+    }
     return rows.map((row) => {
       const t = byId.get(row.componentId)!;
-      return { id: row.id, componentCode: t.code, vesselName: t.vesselName, vesselId: t.vesselId };
+      return { id: row.id, componentCode: t.code, vesselName: t.vesselName };
     });
   });
-  for (const vesselId of new Set(created.map((c) => c.vesselId))) {
-    await requestRecompute(access.company.id, vesselId);
-  }
   return { created: created.map(({ id, componentCode, vesselName }) => ({ id, componentCode, vesselName })) };
 }

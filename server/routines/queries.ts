@@ -1,13 +1,13 @@
 import "server-only";
 import { and, asc, count, eq, ilike, isNull, ne, notExists, or, type SQL, sql } from "drizzle-orm";
 import { type Db, getDb, type Tx } from "@/db/client";
-import { completion, component, routine, toleranceRule, workOrder } from "@/db/schema";
+import { completion, component, routine, routinePlanProblem, toleranceRule, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { instantOfShipTime, shipDay } from "@/server/format/hours";
 import { isUuid } from "@/server/http/ids";
 import { AppError, fieldErrorsFromZod, type FieldError, invalidInput } from "@/server/http/problem";
-import { requestRecompute } from "@/server/jobs";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { formFromCalendarRule } from "@/server/scheduling/calendar-rule-words";
 import {
   type NewRoutine,
@@ -19,6 +19,7 @@ import {
   type RoutineView,
 } from "./contract";
 import { intervalWords } from "./interval-words";
+import { loadPlanProblems } from "./plan-problems";
 
 /** The list sends at most this many rows: a satellite link pays for every byte. */
 export const LIST_LIMIT = 500;
@@ -110,9 +111,11 @@ export async function listRoutines(
       classRelated: routine.classRelated,
       classItemRef: routine.classItemRef,
       needsEngineStop: routine.needsEngineStop,
+      planProblem: routinePlanProblem.reason,
     })
     .from(routine)
     .innerJoin(component, eq(component.id, routine.componentId))
+    .leftJoin(routinePlanProblem, eq(routinePlanProblem.routineId, routine.id))
     .where(and(...where))
     .orderBy(asc(component.code), asc(routine.title))
     .limit(LIST_LIMIT);
@@ -143,6 +146,7 @@ export async function listRoutines(
     total: total?.n ?? 0,
     components,
     toleranceRules: rules,
+    planProblems: await loadPlanProblems(db, access.company.id, vessel.id),
   };
 }
 
@@ -205,9 +209,9 @@ export async function createRoutine(access: Access, vessel: VesselRef, input: Ne
       .insert(routine)
       .values({ companyId: access.company.id, vesselId: vessel.id, ...routineColumns(input, vessel.timeZone) })
       .returning({ id: routine.id });
+    await requestRecompute(tx, access.company.id, vessel.id);
     return row!.id;
   });
-  await requestRecompute(access.company.id, vessel.id);
   return getRoutine(access, vessel, id);
 }
 
@@ -257,8 +261,8 @@ export async function updateRoutine(
         updatedAt: now,
       })
       .where(and(routineScope(scope), eq(routine.id, found.r.id)));
+    await requestRecompute(tx, access.company.id, vessel.id);
   });
-  await requestRecompute(access.company.id, vessel.id);
   return getRoutine(access, vessel, routineId);
 }
 
@@ -296,8 +300,8 @@ export async function retireRoutine(
         ),
       )
       .returning({ id: workOrder.id });
+    await requestRecompute(tx, access.company.id, vessel.id);
     return gone.length;
   });
-  await requestRecompute(access.company.id, vessel.id);
   return { id: routineId, retiredAt: now.toISOString(), openWorkOrdersRemoved: removed };
 }

@@ -2,9 +2,9 @@
 // one open work order per routine with its due point, windows and state. Data access shared with
 // the worker process, which runs with the react-server condition so `server-only` resolves there.
 import "server-only";
-import { and, asc, eq, gte, inArray, isNull, lt, sql } from "drizzle-orm";
+import { and, asc, eq, gte, inArray, isNull, lt, notInArray, sql } from "drizzle-orm";
 import type { Db, Tx } from "@/db/client";
-import { counter, reading, vessel } from "@/db/schema";
+import { counter, reading, routinePlanProblem, vessel } from "@/db/schema";
 import { takeVesselSnapshot } from "@/server/fleet/snapshot";
 import { DEFAULT_LOOKBACK_DAYS, type RateReading, runningRate } from "./running-rate";
 import { lockVesselWorkOrders } from "@/server/work-orders/lock";
@@ -28,6 +28,7 @@ export async function recomputeVessel(
     if (!v) return { counters: 0, created: 0, updated: 0, stateChanges: 0, skipped: [] };
     const counters = await refreshRunningRatesIn(tx, companyId, vesselId, now);
     const summary = await writeWorkOrders(tx, { companyId, vesselId, vessel: v, counters, now });
+    await notePlanProblems(tx, companyId, vesselId, summary.skipped);
     // Today's Fleet board figures, from the rows just written (server/fleet/snapshot.ts).
     await takeVesselSnapshot(tx, companyId, vesselId, now);
     return { counters: counters.size, ...summary };
@@ -87,4 +88,37 @@ async function refreshRunningRatesIn(
     );
   }
   return result;
+}
+
+/**
+ * Keeps `routine_plan_problem` to what this run could not plan: a routine planned again loses its
+ * row, a new problem gets one, and a problem that stays keeps the time it was first seen.
+ */
+async function notePlanProblems(
+  tx: Tx,
+  companyId: string,
+  vesselId: string,
+  skipped: WorkOrderRunSummary["skipped"],
+): Promise<void> {
+  const ids = skipped.map((s) => s.routineId);
+  await tx
+    .delete(routinePlanProblem)
+    .where(
+      and(
+        eq(routinePlanProblem.companyId, companyId),
+        eq(routinePlanProblem.vesselId, vesselId),
+        ...(ids.length ? [notInArray(routinePlanProblem.routineId, ids)] : []),
+      ),
+    );
+  if (skipped.length === 0) return;
+  await tx
+    .insert(routinePlanProblem)
+    .values(skipped.map((s) => ({ companyId, vesselId, routineId: s.routineId, reason: s.reason })))
+    .onConflictDoUpdate({
+      target: [routinePlanProblem.companyId, routinePlanProblem.routineId],
+      set: {
+        reason: sql`excluded.reason`,
+        since: sql`case when ${routinePlanProblem.reason} = excluded.reason then ${routinePlanProblem.since} else now() end`,
+      },
+    });
 }

@@ -6,7 +6,7 @@ import { explainUniqueViolation } from "@/server/admin/queries";
 import type { Access } from "@/server/auth/access";
 import { isUuid } from "@/server/http/ids";
 import { AppError, fieldErrorsFromZod, invalidInput } from "@/server/http/problem";
-import { requestRecompute } from "@/server/jobs";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { TOLERANCE_PRESETS } from "@/server/scheduling/presets";
 import {
   type AdminToleranceRule,
@@ -66,13 +66,18 @@ async function assertUniqueName(tx: Db | Tx, companyId: string, name: string, se
   }
 }
 
-/** Every vessel's work-order states may move with a rule; retired vessels have no open work. */
-async function recomputeCompany(companyId: string): Promise<void> {
-  const vessels = await getDb()
+/**
+ * Every vessel's work-order states may move with a rule; retired vessels have no open work. Sent
+ * in the rule's transaction, in vessel id order (two writers asking for several vessels in one
+ * order cannot deadlock on the queue's per-vessel key).
+ */
+async function recomputeCompany(tx: Tx, companyId: string): Promise<void> {
+  const vessels = await tx
     .select({ id: vessel.id })
     .from(vessel)
-    .where(and(eq(vessel.companyId, companyId), isNull(vessel.retiredAt)));
-  await Promise.all(vessels.map((v) => requestRecompute(companyId, v.id)));
+    .where(and(eq(vessel.companyId, companyId), isNull(vessel.retiredAt)))
+    .orderBy(asc(vessel.id));
+  for (const v of vessels) await requestRecompute(tx, companyId, v.id);
 }
 
 /**
@@ -105,11 +110,11 @@ export async function createToleranceRule(access: Access, values: ToleranceRuleV
           .insert(toleranceRule)
           .values({ companyId, ...toleranceRuleColumns(values), sortOrder: (last?.max ?? -1) + 1 })
           .returning({ id: toleranceRule.id });
+        await recomputeCompany(tx, companyId);
         return row!.id;
       }),
     () => assertUniqueName(db, companyId, values.name),
   );
-  await recomputeCompany(companyId);
   return loadRule(access, id);
 }
 
@@ -134,10 +139,10 @@ export async function updateToleranceRule(
           .update(toleranceRule)
           .set({ ...toleranceRuleColumns(values), updatedAt: new Date() })
           .where(and(eq(toleranceRule.companyId, companyId), eq(toleranceRule.id, ruleId)));
+        await recomputeCompany(tx, companyId);
       }),
     () => assertUniqueName(db, companyId, values.name, ruleId),
   );
-  await recomputeCompany(companyId);
   return loadRule(access, ruleId);
 }
 
@@ -164,8 +169,8 @@ export async function deleteToleranceRule(access: Access, ruleId: string): Promi
       );
     }
     await tx.delete(toleranceRule).where(and(eq(toleranceRule.companyId, companyId), eq(toleranceRule.id, ruleId)));
+    await recomputeCompany(tx, companyId);
   });
-  await recomputeCompany(companyId);
   return { deleted: rule.name };
 }
 
@@ -186,9 +191,9 @@ export async function restoreTolerancePresets(access: Access): Promise<RestoredP
         .values(missing.map((i) => presetRow(companyId, i)))
         // Two administrators restoring at once: the second finds the names taken and adds nothing.
         .onConflictDoNothing();
+      await recomputeCompany(tx, companyId);
     }
     return missing.map((i) => TOLERANCE_PRESETS[i]!.name);
   });
-  if (restored.length) await recomputeCompany(companyId);
   return { restored, rules: await listToleranceRules(access) };
 }

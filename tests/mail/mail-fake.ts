@@ -2,12 +2,12 @@
 // running worker's reach.
 import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
-import PgBoss from "pg-boss";
 import type { Db } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
 import type { CaughtMessage } from "@/server/mail/contract";
 import { enqueueMail, type OutgoingMail } from "@/server/mail/outbox";
-import { mailSend } from "@/workers/jobs/mail-send";
+import { requestMailSend } from "@/server/jobs/mail-send";
+import { testDb } from "../support/fixtures";
 
 const FAKE = process.env.KEELSON_MAIL_FAKE_URL;
 
@@ -88,18 +88,9 @@ export async function waitFor<T>(
 }
 
 /**
- * What `requestMailSend()` does after a commit: a mail-send job for the stack's worker, which
- * sends what is due within seconds instead of at its next minute's sweep. (A boss of its own,
- * stopped at once, so the test process keeps no connection open.)
+ * A mail-send job for the stack's worker, as a write that queues mail sends one: the worker sends
+ * what is due within seconds instead of at its next minute's sweep.
  */
 export async function askTheWorkerToSend(): Promise<void> {
-  const boss = new PgBoss({
-    connectionString: process.env.DATABASE_URL!,
-    supervise: false,
-    schedule: false,
-    migrate: false,
-  });
-  await boss.start();
-  await boss.send(mailSend.name, {});
-  await boss.stop({ graceful: false, wait: true });
+  await requestMailSend(testDb());
 }

@@ -19,7 +19,7 @@ describe("the demo company", () => {
     const [demo] = await db.select().from(s.company).where(eq(s.company.slug, "brightwater"));
     expect(demo).toBeDefined();
     const now = new Date();
-    await runReminders(db, now, { companyIds: [demo!.id], afterQueued: async () => {} });
+    await runReminders(db, now, { companyIds: [demo!.id] });
 
     const rows = await db.select().from(s.mailOutbox).where(eq(s.mailOutbox.companyId, demo!.id));
     const vessels = await db.select().from(s.vessel).where(eq(s.vessel.companyId, demo!.id));

@@ -9,7 +9,6 @@ import { runReminders } from "@/server/reminders/run";
 import { askTheWorkerToSend, waitFor } from "../mail/mail-fake";
 import { closeTestDb, createCompany, type Fixture, testDb } from "../support/fixtures";
 
-const quiet = { afterQueued: async () => {} };
 // Wed 5 Mar 2031 06:30 in Singapore (vessel A's zone, UTC+8): 30 minutes after the digest hour.
 const NOW = new Date("2031-03-04T22:30:00Z");
 const h = (hours: number, from: Date) => new Date(from.getTime() + hours * 3_600_000);
@@ -132,7 +131,7 @@ afterAll(async () => {
 
 describe("the due digest", () => {
   it("holds exactly the hand-worked work orders, for the vessel's engineer and chief", async () => {
-    const counts = await runReminders(testDb(), NOW, { ...quiet, companyIds: [f.companyId, other.companyId] });
+    const counts = await runReminders(testDb(), NOW, { companyIds: [f.companyId, other.companyId] });
     expect(counts.companies).toBe(2);
     const rows = await outbox(f.companyId, "due-digest");
     expect(rows.map((r) => r.toAddress).sort()).toEqual(
@@ -163,7 +162,7 @@ describe("the due digest", () => {
 
   it("is queued once: a rerun the same ship's day adds nothing", async () => {
     const before = await outbox(f.companyId, "due-digest");
-    const counts = await runReminders(testDb(), h(3, NOW), { ...quiet, companyIds: [f.companyId] });
+    const counts = await runReminders(testDb(), h(3, NOW), { companyIds: [f.companyId] });
     expect(counts.dueDigests).toBe(0);
     expect(await outbox(f.companyId, "due-digest")).toHaveLength(before.length);
   });
@@ -198,7 +197,7 @@ describe("escalation", () => {
   });
 
   it("never sends again on a rerun", async () => {
-    const counts = await runReminders(testDb(), h(1, NOW), { ...quiet, companyIds: [f.companyId] });
+    const counts = await runReminders(testDb(), h(1, NOW), { companyIds: [f.companyId] });
     expect(counts.escalations).toBe(0);
     expect(counts.escalationsMarkedOnly).toBe(0);
     expect(await outbox(f.companyId, "escalation")).toHaveLength(2);
@@ -216,7 +215,7 @@ describe("escalation", () => {
         changedAt: h(2, NOW),
       })
       .returning();
-    const counts = await runReminders(testDb(), h(2.5, NOW), { ...quiet, companyIds: [f.companyId] });
+    const counts = await runReminders(testDb(), h(2.5, NOW), { companyIds: [f.companyId] });
     expect(counts.escalations).toBe(2);
     const rows = await testDb()
       .select()
@@ -230,7 +229,7 @@ describe("the missing-readings chain", () => {
   let m: Fixture;
   const sent = async () =>
     (await outbox(m.companyId, "missing-readings")).map((r) => ({ to: r.toAddress, key: r.dedupeKey }));
-  const run = (at: Date) => runReminders(testDb(), at, { ...quiet, companyIds: [m.companyId] });
+  const run = (at: Date) => runReminders(testDb(), at, { companyIds: [m.companyId] });
 
   beforeAll(async () => {
     // Readings of vessel A at `lastReadAt` (24 h before the fixture's now); vessel B has none.
@@ -295,8 +294,8 @@ describe("the weekly fleet summary", () => {
     // 10 Mar is day 69 of the year, 70 days after 30 Dec: 10 whole weeks → week 11.
     const monday = new Date("2031-03-10T06:00:00Z");
     expect(await outbox(f.companyId, "fleet-summary")).toEqual([]);
-    await runReminders(testDb(), monday, { ...quiet, companyIds: [f.companyId] });
-    await runReminders(testDb(), h(5, monday), { ...quiet, companyIds: [f.companyId] });
+    await runReminders(testDb(), monday, { companyIds: [f.companyId] });
+    await runReminders(testDb(), h(5, monday), { companyIds: [f.companyId] });
     const rows = await outbox(f.companyId, "fleet-summary");
     expect(rows.map((r) => [r.toAddress, r.dedupeKey])).toEqual([
       [f.users.superintendent.email, `fleet-summary:${f.companyId}:2031-W11:${f.users.superintendent.id}`],
@@ -332,8 +331,8 @@ describe("delivery through the SMTP fake", () => {
     async () => {
       const key = `due-digest:${f.vesselA.id}:2031-03-05:${f.users.engineer.id}`;
       const row = async () => (await testDb().select().from(s.mailOutbox).where(eq(s.mailOutbox.dedupeKey, key)))[0]!;
-      // The run above queued it quietly; the worker's sender takes it at once when asked (its
-      // minute's sweep alone may come later than a test should wait).
+      // The run above asked the worker to send; ask again in case that send ran before this
+      // test (its minute's sweep alone may come later than a test should wait).
       await askTheWorkerToSend();
       await waitFor("the worker to send the digest", async () => (await row()).status === "sent", 75_000).catch(
         () => undefined,

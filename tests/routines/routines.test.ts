@@ -238,6 +238,7 @@ describe("routines become work orders through the worker", () => {
         "classRelated",
         "classItemRef",
         "needsEngineStop",
+        "planProblem",
       ].sort(),
     );
     expect(row).toMatchObject({
@@ -249,6 +250,7 @@ describe("routines become work orders through the worker", () => {
       needsEngineStop: true,
       classRelated: false,
       anchoredOn: null,
+      planProblem: null,
     });
     expect(list.body.total).toBe(1);
     const full = await api<RoutineView>(sessions.viewer, "GET", path(one, `/${created.id}`));

@@ -1,4 +1,3 @@
-import { requestRecompute } from "@/server/jobs";
 import { withAccess } from "@/server/http/with-access";
 import { CounterInput } from "@/server/register/contract";
 import { createCounter } from "@/server/register/counters";
@@ -8,7 +7,6 @@ export const POST = withAccess(
   { permission: "register:edit", vessel: true, body: CounterInput },
   async ({ access, vessel, body }) => {
     const created = await createCounter(access, vessel, body);
-    await requestRecompute(access.company.id, vessel.id);
     return Response.json(created, { status: 201 });
   },
 );

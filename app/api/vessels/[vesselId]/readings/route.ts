@@ -1,5 +1,4 @@
 import { withAccess } from "@/server/http/with-access";
-import { requestRecompute } from "@/server/jobs";
 import { ReadingBatchInput, ReadingHistoryQuery } from "@/server/readings/contract";
 import { readingHistory, saveReadingBatch } from "@/server/readings/queries";
 
@@ -14,7 +13,6 @@ export const POST = withAccess(
   { permission: "readings:write", vessel: true, body: ReadingBatchInput },
   async ({ access, vessel, body }) => {
     const result = await saveReadingBatch(access, vessel, body);
-    await requestRecompute(access.company.id, vessel.id);
     return Response.json(result, { status: 201 });
   },
 );

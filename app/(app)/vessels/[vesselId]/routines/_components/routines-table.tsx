@@ -70,6 +70,7 @@ export function RoutinesTable({ list, onAction }: Props) {
                   {r.critical && <Mark>critical</Mark>}
                   {r.classRelated && <Mark>class{r.classItemRef ? ` ${r.classItemRef}` : ""}</Mark>}
                   {r.needsEngineStop && <Mark>engine stop</Mark>}
+                  {r.planProblem && <Mark tone="alarm">cannot be planned: {r.planProblem}</Mark>}
                 </span>
               </td>
               {list.canEdit && (
@@ -95,12 +96,13 @@ export function RoutinesTable({ list, onAction }: Props) {
   );
 }
 
-function Mark({ children }: { children: React.ReactNode }) {
-  return (
-    <span className="rounded bg-ink-100 px-1 whitespace-nowrap text-ink-700 dark:bg-ink-800 dark:text-ink-200">
-      {children}
-    </span>
-  );
+const MARK_TONE = {
+  plain: "whitespace-nowrap bg-ink-100 text-ink-700 dark:bg-ink-800 dark:text-ink-200",
+  alarm: "bg-alarm-50 font-medium text-alarm-700 dark:bg-alarm-700/20 dark:text-alarm-300",
+} as const;
+
+function Mark({ tone = "plain", children }: { tone?: keyof typeof MARK_TONE; children: React.ReactNode }) {
+  return <span className={`rounded px-1 ${MARK_TONE[tone]}`}>{children}</span>;
 }
 
 function RowButton({ label, onClick, children }: { label: string; onClick: () => void; children: React.ReactNode }) {

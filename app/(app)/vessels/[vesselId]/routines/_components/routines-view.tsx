@@ -8,6 +8,7 @@ import type { RoutineList, RoutineSummary } from "@/server/routines/contract";
 import { CopyRoutine } from "./copy-routine";
 import { RetireRoutine } from "./retire-routine";
 import { RoutineEditor } from "./routine-editor";
+import { PlanProblems } from "./plan-problems";
 import { RoutinesTable } from "./routines-table";
 import { useRoutines } from "./use-routines";
 
@@ -67,6 +68,7 @@ export function RoutinesView({ vesselId }: { vesselId: string }) {
         )}
       </div>
       <Notice message={done} />
+      <PlanProblems list={data} />
       <RoutinesTable list={data} onAction={open} />
       {sheet && <SheetFor sheet={sheet} list={data} onDone={finish} onCancel={close} />}
     </div>

@@ -1,4 +1,3 @@
-import { requestRecompute } from "@/server/jobs";
 import { withAccess } from "@/server/http/with-access";
 import { CounterPatch } from "@/server/register/contract";
 import { retireCounter, updateCounter } from "@/server/register/counters";
@@ -8,7 +7,6 @@ export const PATCH = withAccess(
   { permission: "register:edit", vessel: true, body: CounterPatch },
   async ({ access, vessel, params, body }) => {
     const updated = await updateCounter(access, vessel, params.counterId ?? "", body);
-    if (body.plannedHoursPerDay !== undefined) await requestRecompute(access.company.id, vessel.id);
     return updated;
   },
 );

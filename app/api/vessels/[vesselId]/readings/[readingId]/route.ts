@@ -1,5 +1,4 @@
 import { withAccess } from "@/server/http/with-access";
-import { requestRecompute } from "@/server/jobs";
 import { ReadingCorrectionInput, ReadingRemovalInput } from "@/server/readings/contract";
 import { correctReading, removeReading } from "@/server/readings/corrections";
 
@@ -8,7 +7,6 @@ export const PATCH = withAccess(
   { permission: "readings:write", vessel: true, body: ReadingCorrectionInput },
   async ({ access, vessel, params, body }) => {
     const result = await correctReading({ access, vessel }, params.readingId ?? "", body);
-    await requestRecompute(access.company.id, vessel.id);
     return result;
   },
 );
@@ -18,7 +16,6 @@ export const DELETE = withAccess(
   { permission: "readings:write", vessel: true, body: ReadingRemovalInput },
   async ({ access, vessel, params, body }) => {
     const result = await removeReading({ access, vessel }, params.readingId ?? "", body.reason);
-    await requestRecompute(access.company.id, vessel.id);
     return result;
   },
 );

@@ -1,4 +1,3 @@
-import { requestRecompute } from "@/server/jobs";
 import { withAccess } from "@/server/http/with-access";
 import { MeterReplacementInput } from "@/server/register/contract";
 import { replaceMeter } from "@/server/register/counters";
@@ -8,7 +7,6 @@ export const POST = withAccess(
   { permission: "register:edit", vessel: true, body: MeterReplacementInput },
   async ({ access, vessel, params, body }) => {
     const result = await replaceMeter(access, vessel, params.counterId ?? "", body);
-    await requestRecompute(access.company.id, vessel.id);
     return Response.json(result, { status: 201 });
   },
 );

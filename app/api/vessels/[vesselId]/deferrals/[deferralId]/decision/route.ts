@@ -1,15 +1,12 @@
 import { DeferralDecisionInput } from "@/server/deferrals/contract";
 import { decideDeferral } from "@/server/deferrals/decision";
 import { withAccess } from "@/server/http/with-access";
-import { requestRecompute } from "@/server/jobs";
 
 /** The superintendent (or, for plain work where the company allows it, the chief) decides a request. */
 export const POST = withAccess(
   { permission: "deferral:decide", vessel: true, body: DeferralDecisionInput },
   async ({ access, vessel, params, body }) => {
     const result = await decideDeferral(access, vessel, params.deferralId ?? "", body);
-    // The worker measures the tolerance windows from the new limit.
-    if (result.status === "approved") await requestRecompute(access.company.id, vessel.id);
     return result;
   },
 );

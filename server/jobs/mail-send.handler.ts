@@ -1,9 +1,8 @@
-// Sends what is due in the outbox: every minute by cron, within a second of `requestMailSend()`,
-// once when the worker starts, and again when a retry or an ended lease falls due in the next
-// minute (a timer in this process, so it does not wait for the cron).
+// The outbox drain (mail-send.ts says when it runs). The follow-up timer lives in this process, so
+// a retry due within the minute does not wait for the cron.
 import type { Db } from "@/db/client";
 import { nextMailDueAt, sendDueMail } from "@/server/mail/sender";
-import type { ScheduledJob } from "./schedule";
+import type { JobHandler } from "./definition";
 
 let followUp: NodeJS.Timeout | null = null;
 // One drain at a time in this process (the cron, a request and the timer may coincide): a call
@@ -46,16 +45,13 @@ async function drainNow(db: Db) {
 const summary = ({ sent, retried, failed }: { sent: number; retried: number; failed: number }) =>
   `${sent} sent, ${retried} to retry, ${failed} given up`;
 
-export const mailSend: ScheduledJob = {
-  name: "mail-send",
-  cron: "* * * * *",
-  async handle(db) {
-    const total = await drain(db);
-    return total.sent + total.retried + total.failed ? summary(total) : "";
-  },
+const mailSendHandler: JobHandler<object> = async (_payload, { db }) => {
+  const total = await drain(db);
+  return total.sent + total.retried + total.failed ? summary(total) : "";
 };
+export default mailSendHandler;
 
-export function stopMailFollowUp(): void {
+export function stop(): void {
   if (followUp) clearTimeout(followUp);
   followUp = null;
 }

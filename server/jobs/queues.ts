@@ -1,0 +1,7 @@
+import type PgBoss from "pg-boss";
+import { jobRegistry } from "./registry";
+
+/** Creates each registered job's queue with its policy; pg-boss keeps an existing queue as it is. */
+export async function createJobQueues(boss: PgBoss): Promise<void> {
+  for (const job of jobRegistry) await boss.createQueue(job.name, { name: job.name, ...job.queue });
+}
