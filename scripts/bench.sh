@@ -14,5 +14,7 @@ trap 'exit 130' INT TERM
 
 stack_database
 stack_start_app bench-output
-node_modules/.bin/tsx --conditions=react-server scripts/bench/run.ts
-node_modules/.bin/tsx --conditions=react-server scripts/bench/fleet.ts
+# BENCH_ONLY="access" (or any of the parts, space-separated) runs only those parts.
+for part in ${BENCH_ONLY:-run fleet access}; do
+  node_modules/.bin/tsx --conditions=react-server "scripts/bench/$part.ts"
+done
