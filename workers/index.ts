@@ -1,7 +1,8 @@
 // The worker process: pg-boss on the application's PostgreSQL, working every job of the registry
 // (server/jobs/registry.ts). Several workers may run at once; pg-boss hands each job to one of them.
 import PgBoss from "pg-boss";
-import { closeDb, databaseUrl, getDb } from "@/db/client";
+import { closeDb, getDb } from "@/db/client";
+import { envOrExit } from "@/server/env";
 import { closeMailTransport } from "@/server/mail/transport";
 import { mailSendJob } from "@/server/jobs/mail-send";
 import { createJobQueues } from "@/server/jobs/queues";
@@ -9,9 +10,11 @@ import { jobRegistry } from "@/server/jobs/registry";
 import { remindersJob } from "@/server/jobs/reminders";
 import { sendJob } from "@/server/jobs/send";
 
+// A bad variable stops the worker here, with a message naming it.
+const env = envOrExit();
 const boss = new PgBoss({
-  connectionString: databaseUrl(),
-  cronMonitorIntervalSeconds: Number(process.env.KEELSON_CRON_MONITOR_SECONDS ?? 30),
+  connectionString: env.DATABASE_URL,
+  cronMonitorIntervalSeconds: env.KEELSON_CRON_MONITOR_SECONDS,
 });
 boss.on("error", (error) => console.error("[worker] pg-boss error", error));
 

@@ -4,10 +4,9 @@
 import { writeFileSync } from "node:fs";
 import autocannon from "autocannon";
 import { closeTestDb, createCompany, PASSWORD } from "@/tests/support/fixtures";
-import { signIn } from "@/tests/support/http";
+import { BASE_URL, signIn } from "@/tests/support/http";
 
-const BASE_URL = process.env.KEELSON_TEST_URL ?? "http://127.0.0.1:3000";
-const SECONDS = Number(process.env.BENCH_ACCESS_SECONDS ?? 10);
+const SECONDS = 10;
 const CONNECTIONS = 10;
 
 type Load = { requestsPerSecond: number; p50: number; p99: number; non2xx: number; errors: number };

@@ -2,6 +2,7 @@
 // recompute also retakes its vessel's row of the day; this run makes sure each vessel has one,
 // even a vessel that stopped reporting (its days since the last reading keep growing).
 import { z } from "zod";
+import { envOf } from "@/server/env";
 import { defineJob } from "./definition";
 
 export const fleetSnapshotJob = defineJob({
@@ -10,7 +11,7 @@ export const fleetSnapshotJob = defineJob({
   // A run that outlives its worker (kill -9) holds a singleton queue until pg-boss expires it.
   queue: { policy: "singleton", expireInSeconds: 300 },
   work: { pollingIntervalSeconds: 1 },
-  /** Cron in UTC: after the nightly recompute (00:15) has queued every vessel. */
-  cron: process.env.KEELSON_SNAPSHOT_CRON ?? "30 0 * * *",
+  /** Cron in UTC (KEELSON_SNAPSHOT_CRON): after the nightly recompute has queued every vessel. */
+  cron: envOf("KEELSON_SNAPSHOT_CRON").KEELSON_SNAPSHOT_CRON,
   handler: () => import("./fleet-snapshot.handler"),
 });

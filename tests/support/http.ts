@@ -1,5 +1,5 @@
 // Talking to the running app the way a browser does: sign in, keep the cookie, send Origin.
-const BASE_URL = process.env.KEELSON_TEST_URL ?? "http://127.0.0.1:3000";
+export const BASE_URL = process.env.KEELSON_TEST_URL ?? "http://127.0.0.1:3000";
 
 export type Session = { cookie: string };
 
