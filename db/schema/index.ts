@@ -6,3 +6,4 @@ export * from "./maintenance";
 export * from "./mail";
 export * from "./fleet";
 export * from "./plan-problems";
+export * from "./sign-in";
