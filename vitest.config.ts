@@ -13,7 +13,7 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", include: ["server/**/*.test.ts", "db/**/*.test.ts"], environment: "node" },
+        test: { name: "unit", include: ["server/**/*.test.ts", "db/**/*.test.ts", "app/**/*.test.ts"], environment: "node" },
       },
       {
         extends: true,

@@ -7,7 +7,7 @@ import { account, membership, session, user, vessel, vesselAssignment } from "@/
 import type { Access } from "@/server/auth/access";
 import { AppError, invalidInput } from "@/server/http/problem";
 import type { AdminPerson, UserChanges, UserValues } from "./contract";
-import { explainUniqueViolation, foreignVesselErrors } from "./queries";
+import { foreignVesselErrors } from "./queries";
 import { lastAdminError } from "./rules";
 import { SET_PASSWORD_PATH } from "@/server/accounts/account-mail";
 import { auth } from "@/server/auth/auth";
@@ -93,32 +93,28 @@ export async function createPerson(access: Access, values: UserValues): Promise<
   const companyId = access.company.id;
   const passwordHash = values.invite || !values.initialPassword ? null : await hashPassword(values.initialPassword);
   const userId = randomUUID();
-  await explainUniqueViolation(
-    () =>
-      db.transaction(async (tx) => {
-        await assertEmailFree(tx, values.email);
-        await assertOwnVessels(tx, companyId, values.vesselIds);
-        // `role` is better-auth's admin-plugin column; Keelson's role lives on the membership.
-        await tx
-          .insert(user)
-          .values({ id: userId, name: values.name, email: values.email, emailVerified: false, role: "user" });
-        // An invited person has no password until they choose one (better-auth creates the
-        // credential account then); until that, signing in simply fails.
-        if (passwordHash)
-          await tx
-            .insert(account)
-            .values({ id: randomUUID(), accountId: userId, providerId: "credential", userId, password: passwordHash });
-        await tx.insert(membership).values({
-          companyId,
-          userId,
-          role: values.role,
-          rank: values.rank ?? null,
-          invitedAt: passwordHash ? null : new Date(),
-        });
-        await replaceAssignments(tx, companyId, userId, values.vesselIds);
-      }),
-    () => assertEmailFree(db, values.email),
-  );
+  await db.transaction(async (tx) => {
+    await assertEmailFree(tx, values.email);
+    await assertOwnVessels(tx, companyId, values.vesselIds);
+    // `role` is better-auth's admin-plugin column; Keelson's role lives on the membership.
+    await tx
+      .insert(user)
+      .values({ id: userId, name: values.name, email: values.email, emailVerified: false, role: "user" });
+    // An invited person has no password until they choose one (better-auth creates the
+    // credential account then); until that, signing in simply fails.
+    if (passwordHash)
+      await tx
+        .insert(account)
+        .values({ id: randomUUID(), accountId: userId, providerId: "credential", userId, password: passwordHash });
+    await tx.insert(membership).values({
+      companyId,
+      userId,
+      role: values.role,
+      rank: values.rank ?? null,
+      invitedAt: passwordHash ? null : new Date(),
+    });
+    await replaceAssignments(tx, companyId, userId, values.vesselIds);
+  });
   if (!passwordHash) await sendPasswordLink(values.email);
   return loadCompanyPerson(access, userId);
 }

@@ -66,40 +66,17 @@ async function assertUniqueVessel(
   if (errors.length) throw invalidInput(errors);
 }
 
-/**
- * The unique constraints are the last word when two administrators save the same code at once:
- * the loser's insert fails, and the check is run again to say which field clashed.
- */
-export async function explainUniqueViolation<T>(write: () => Promise<T>, explain: () => Promise<void>): Promise<T> {
-  try {
-    return await write();
-  } catch (error) {
-    if (!isUniqueViolation(error)) throw error;
-    await explain();
-    throw error;
-  }
-}
-
-export function isUniqueViolation(error: unknown): boolean {
-  const codeOf = (e: unknown) => (e && typeof e === "object" && "code" in e ? e.code : undefined);
-  return codeOf(error) === "23505" || (error instanceof Error && codeOf(error.cause) === "23505");
-}
-
 export async function createVessel(access: Access, values: VesselValues): Promise<AdminVessel> {
   const db = getDb();
   const companyId = access.company.id;
-  const id = await explainUniqueViolation(
-    () =>
-      db.transaction(async (tx) => {
-        await assertUniqueVessel(tx, companyId, values);
-        const [row] = await tx
-          .insert(vessel)
-          .values({ companyId, ...values })
-          .returning({ id: vessel.id });
-        return row!.id;
-      }),
-    () => assertUniqueVessel(db, companyId, values),
-  );
+  const id = await db.transaction(async (tx) => {
+    await assertUniqueVessel(tx, companyId, values);
+    const [row] = await tx
+      .insert(vessel)
+      .values({ companyId, ...values })
+      .returning({ id: vessel.id });
+    return row!.id;
+  });
   return loadCompanyVessel(access, id);
 }
 
@@ -110,17 +87,13 @@ export async function updateVessel(access: Access, vesselId: string, changes: Ve
   const set = { ...fields, ...(retired === false ? { retiredAt: null } : {}) };
   await loadCompanyVessel(access, vesselId);
   if (Object.keys(set).length) {
-    await explainUniqueViolation(
-      () =>
-        db.transaction(async (tx) => {
-          await assertUniqueVessel(tx, companyId, fields, vesselId);
-          await tx
-            .update(vessel)
-            .set(set)
-            .where(and(eq(vessel.companyId, companyId), eq(vessel.id, vesselId)));
-        }),
-      () => assertUniqueVessel(db, companyId, fields, vesselId),
-    );
+    await db.transaction(async (tx) => {
+      await assertUniqueVessel(tx, companyId, fields, vesselId);
+      await tx
+        .update(vessel)
+        .set(set)
+        .where(and(eq(vessel.companyId, companyId), eq(vessel.id, vesselId)));
+    });
   }
   return loadCompanyVessel(access, vesselId);
 }

@@ -8,7 +8,6 @@ import { type Db, getDb, type Tx } from "@/db/client";
 import { completion, completionAttachment, user, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
-import { isUuid } from "@/server/http/ids";
 import { AppError, invalidInput } from "@/server/http/problem";
 import { deleteObject, putObject } from "@/server/storage/s3";
 import { noSuchWorkOrder } from "@/server/work-orders/lock";
@@ -26,7 +25,6 @@ type WorkOrderState = { id: string; number: string; state: string; completionSta
 
 /** The work order of this company and vessel with its completion's status; anything else is 404. */
 async function findWorkOrder(db: Db | Tx, access: Access, vessel: VesselRef, id: string) {
-  if (!isUuid(id)) throw noSuchWorkOrder();
   const [row] = await db
     .select({ id: workOrder.id, number: workOrder.number, state: workOrder.state, completionStatus: completion.status })
     .from(workOrder)
@@ -199,7 +197,6 @@ export async function addAttachment(
 
 /** The row a download needs: of this company, vessel and work order, else 404. */
 export async function findAttachment(access: Access, vessel: VesselRef, workOrderId: string, attachmentId: string) {
-  if (!isUuid(workOrderId) || !isUuid(attachmentId)) throw noSuchAttachment();
   const [row] = await getDb()
     .select()
     .from(completionAttachment)

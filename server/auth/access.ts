@@ -1,14 +1,12 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
 import { headers } from "next/headers";
 import { notFound, redirect } from "next/navigation";
 import { cache } from "react";
-import { getDb } from "@/db/client";
-import { company, membership, vessel, vesselAssignment } from "@/db/schema";
+import type { z } from "zod";
 import { isUuid } from "@/server/http/ids";
 import { AppError } from "@/server/http/problem";
-import { auth } from "./auth";
-import { can, type Permission, type Role, seesWholeFleet } from "./roles";
+import { resolveAccess } from "./resolve-access";
+import { can, type Permission, type Role } from "./roles";
 
 export type Access = {
   user: { id: string; name: string; email: string };
@@ -28,65 +26,13 @@ export type VesselRef = {
   retiredAt: Date | null;
 };
 
-async function loadAccess(requestHeaders: Headers): Promise<Access | null> {
-  const session = await auth.api.getSession({ headers: requestHeaders });
-  if (!session || session.user.banned) return null;
-  const db = getDb();
-  const [member] = await db
-    .select({ role: membership.role, companyId: company.id, companyName: company.name })
-    .from(membership)
-    .innerJoin(company, eq(company.id, membership.companyId))
-    .where(eq(membership.userId, session.user.id))
-    .orderBy(membership.createdAt)
-    .limit(1);
-  if (!member) return null;
-  const assignedVesselIds = seesWholeFleet(member.role)
-    ? null
-    : (
-        await db
-          .select({ vesselId: vesselAssignment.vesselId })
-          .from(vesselAssignment)
-          .where(
-            and(
-              eq(vesselAssignment.companyId, member.companyId),
-              eq(vesselAssignment.userId, session.user.id),
-            ),
-          )
-      ).map((r) => r.vesselId);
-  return {
-    user: { id: session.user.id, name: session.user.name, email: session.user.email },
-    company: { id: member.companyId, name: member.companyName },
-    role: member.role,
-    assignedVesselIds,
-  };
-}
-
 /** The signed-in user's access for this request, or null (cached per request). */
-export const getAccess = cache(async (): Promise<Access | null> => loadAccess(await headers()));
+export const getAccess = cache(async (): Promise<Access | null> => (await resolveAccess(await headers(), null))?.access ?? null);
+
+const getAccessWithVessel = cache(async (vesselId: string) => resolveAccess(await headers(), vesselId));
 
 export function mayOpenVessel(access: Access, vesselId: string): boolean {
   return access.assignedVesselIds === null || access.assignedVesselIds.includes(vesselId);
-}
-
-/**
- * A vessel of the signed-in user's company that they may open. Another company's vessel, a vessel
- * they are not assigned to, and a malformed id all look the same from outside: not found.
- */
-export async function findAccessibleVessel(access: Access, vesselId: string): Promise<VesselRef | null> {
-  if (!isUuid(vesselId) || !mayOpenVessel(access, vesselId)) return null;
-  const [row] = await getDb()
-    .select({
-      id: vessel.id,
-      name: vessel.name,
-      code: vessel.code,
-      imoNumber: vessel.imoNumber,
-      timeZone: vessel.timeZone,
-      retiredAt: vessel.retiredAt,
-    })
-    .from(vessel)
-    .where(and(eq(vessel.companyId, access.company.id), eq(vessel.id, vesselId)))
-    .limit(1);
-  return row ?? null;
 }
 
 export function assertPermission(access: Access, permission: Permission): void {
@@ -104,10 +50,22 @@ export async function requirePageAccess(): Promise<Access> {
 
 /** For vessel pages: the vessel, or the not-found page for anything the user may not open. */
 export async function requirePageVessel(vesselId: string): Promise<{ access: Access; vessel: VesselRef }> {
-  const access = await requirePageAccess();
-  const found = await findAccessibleVessel(access, vesselId);
-  if (!found) notFound();
-  return { access, vessel: found };
+  if (!isUuid(vesselId)) {
+    await requirePageAccess();
+    notFound();
+  }
+  const resolved = await getAccessWithVessel(vesselId);
+  if (!resolved) redirect("/sign-in");
+  if (!resolved.vessel) notFound();
+  return { access: resolved.access, vessel: resolved.vessel };
 }
 
-export { loadAccess };
+/**
+ * For pages with ids in their path beyond the vessel: the parsed ids (`server/http/params.ts`), or
+ * the not-found page for a malformed one, as the route handlers answer 404.
+ */
+export function requirePageParams<S extends z.ZodType>(schema: S, params: unknown): z.output<S> {
+  const result = schema.safeParse(params);
+  if (!result.success) notFound();
+  return result.data;
+}

@@ -6,7 +6,6 @@ import { getDb, type Tx } from "@/db/client";
 import { completion, component, counter, routine, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatShipTime, instantOfShipTime, shipDay } from "@/server/format/hours";
-import { isUuid } from "@/server/http/ids";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
 import { isInFuture, readingProblem } from "@/server/readings/rules";
@@ -52,7 +51,6 @@ async function writeCompletion(
   mode: Mode,
   now: Date,
 ): Promise<CompletionResult> {
-  if (!isUuid(workOrderId)) throw new AppError("not-found", "There is no such work order on this vessel.");
   const companyId = access.company.id;
   const doneAt = instantOfShipTime(input.doneOn, input.time, vessel.timeZone);
   if (isInFuture(doneAt, now)) {

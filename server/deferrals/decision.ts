@@ -8,7 +8,6 @@ import { deferral, workOrder, workOrderStateChange } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { lockVesselWorkOrders } from "@/server/work-orders/lock";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
-import { isUuid } from "@/server/http/ids";
 import { AppError } from "@/server/http/problem";
 import { endOfShipDate, shipDateFromKey } from "@/server/scheduling/ship-date";
 import { COMPANY_OFFICE_MESSAGE, type DeferralDecision, type DeferralResult, OFFICE_ONLY_MESSAGE } from "./contract";
@@ -21,7 +20,6 @@ export async function decideDeferral(
   decision: DeferralDecision,
   now = new Date(),
 ): Promise<DeferralResult> {
-  if (!isUuid(deferralId)) throw new AppError("not-found", "There is no such deferral request on this vessel.");
   const companyId = access.company.id;
   const chiefDecides = await chiefDecidesDeferrals(companyId);
   return getDb().transaction(async (tx) => {

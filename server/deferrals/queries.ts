@@ -7,7 +7,6 @@ import { company, deferral, routine, user, vessel as vesselTable, workOrder } fr
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { shipDay } from "@/server/format/hours";
-import { isUuid } from "@/server/http/ids";
 import { AppError } from "@/server/http/problem";
 import type { DeferralEntry, DeferralListItem, WorkOrderDeferrals } from "./contract";
 import { highestDeferralHours, latestDeferralDay } from "./rules";
@@ -69,14 +68,10 @@ export async function loadWorkOrderDeferralHistory(
   workOrderId: string,
 ): Promise<DeferralEntry[]> {
   const companyId = access.company.id;
-  const [w] = isUuid(workOrderId)
-    ? await getDb()
-        .select({ id: workOrder.id })
-        .from(workOrder)
-        .where(
-          and(eq(workOrder.companyId, companyId), eq(workOrder.vesselId, vessel.id), eq(workOrder.id, workOrderId)),
-        )
-    : [];
+  const [w] = await getDb()
+    .select({ id: workOrder.id })
+    .from(workOrder)
+    .where(and(eq(workOrder.companyId, companyId), eq(workOrder.vesselId, vessel.id), eq(workOrder.id, workOrderId)));
   if (!w) throw new AppError("not-found", "There is no such work order on this vessel.");
   return loadDeferralHistory(companyId, vessel.id, w.id);
 }

@@ -6,7 +6,6 @@ import { getDb } from "@/db/client";
 import { deferral, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatShipDate, shipDay } from "@/server/format/hours";
-import { isUuid } from "@/server/http/ids";
 import { AppError, invalidInput } from "@/server/http/problem";
 import type { DeferralRequest, DeferralRequestResult, DeferralResult } from "./contract";
 import { chiefDecidesDeferrals, limitInForce, needsOfficeDecision, routineIntervalHours } from "./queries";
@@ -22,7 +21,6 @@ export async function requestDeferral(
   input: DeferralRequest,
   now = new Date(),
 ): Promise<DeferralRequestResult> {
-  if (!isUuid(workOrderId)) throw new AppError("not-found", NO_WORK_ORDER);
   const companyId = access.company.id;
   return getDb().transaction(async (tx) => {
     // The row lock makes two requests for the same work order wait for each other.
@@ -81,7 +79,6 @@ export async function withdrawDeferral(
   deferralId: string,
   now = new Date(),
 ): Promise<DeferralResult> {
-  if (!isUuid(deferralId)) throw new AppError("not-found", NO_DEFERRAL);
   const companyId = access.company.id;
   return getDb().transaction(async (tx) => {
     const [row] = await tx

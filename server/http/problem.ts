@@ -81,13 +81,46 @@ export type Problem = {
   errors?: FieldError[];
 };
 
+/**
+ * PostgreSQL's unique constraints are the last word when two people save the same key at the same
+ * moment (the domain checks first, under a lock where it can; the loser of a race gets here). Each
+ * becomes a 422 on its field, or a 409 where there is no field to correct.
+ */
+const UNIQUE_CONSTRAINTS: Record<string, FieldError | string> = {
+  user_email_unique: { field: "email", message: "That e-mail address already has a Keelson account; use another." },
+  vessel_companyId_code_unique: { field: "code", message: "Another vessel of the company already has this code." },
+  vessel_companyId_imoNumber_unique: { field: "imoNumber", message: "This IMO number is already registered in the company." },
+  component_companyId_vesselId_code_unique: { field: "code", message: "That code is already used on this vessel." },
+  counter_companyId_vesselId_name_unique: { field: "name", message: "There is already a counter of that name on this vessel." },
+  tolerance_rule_companyId_name_unique: { field: "name", message: "The company already has a rule of that name." },
+  reading_counterId_readAt_unique: "A reading of that counter at that time was saved meanwhile; reload the Hour log.",
+  completion_workOrderId_unique: "The job was recorded meanwhile by someone else; reload the work order.",
+  deferral_one_pending: "A deferral of this work order is already waiting for a decision.",
+};
+
+/** The PostgreSQL error behind a failed query (Drizzle wraps it in `cause`), if any. */
+function pgErrorOf(error: unknown): { code?: unknown; constraint?: unknown } | null {
+  for (let e = error, depth = 0; e && typeof e === "object" && depth < 3; e = (e as { cause?: unknown }).cause, depth++) {
+    if ("code" in e && typeof e.code === "string" && /^[0-9A-Z]{5}$/.test(e.code)) return e;
+  }
+  return null;
+}
+
+export function uniqueViolationProblem(error: unknown): AppError | null {
+  const pg = pgErrorOf(error);
+  if (pg?.code !== "23505") return null;
+  const known = typeof pg.constraint === "string" ? UNIQUE_CONSTRAINTS[pg.constraint] : undefined;
+  if (typeof known === "object") return invalidInput([known]);
+  return new AppError("conflict", known ?? "Someone saved the same thing at the same moment; reload and try again.");
+}
+
 export function problemResponse(error: unknown): Response {
   const appError =
     error instanceof AppError
       ? error
       : error instanceof ZodError
         ? invalidInput(fieldErrorsFromZod(error))
-        : null;
+        : uniqueViolationProblem(error);
   if (!appError) {
     console.error(error);
   }

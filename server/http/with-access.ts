@@ -1,58 +1,60 @@
 import "server-only";
 import type { z } from "zod";
-import { type Access, findAccessibleVessel, loadAccess, type VesselRef } from "@/server/auth/access";
+import type { Access, VesselRef } from "@/server/auth/access";
+import { resolveAccess } from "@/server/auth/resolve-access";
 import { can, type Permission } from "@/server/auth/roles";
 import { formatShipDate } from "@/server/format/hours";
+import { isUuid } from "./ids";
 import { AppError, fieldErrorsFromZod, invalidInput, problemResponse } from "./problem";
 
 type Schema = z.ZodType;
 type Parsed<S> = S extends z.ZodType ? z.output<S> : undefined;
 
-type Options<B, Q> = {
+type Options<V extends boolean, P, B, Q> = {
   /** What the signed-in user's role must allow. */
   permission: Permission;
   /** Whether the route has a `[vesselId]` segment the user must be allowed to open. */
-  vessel?: boolean;
+  vessel?: V;
+  /** The route's other path ids (`server/http/params.ts`); a malformed one is 404. */
+  params?: P;
   body?: B;
   query?: Q;
 };
 
-export type HandlerContext<B, Q> = {
+export type HandlerContext<V extends boolean, P, B, Q> = {
   request: Request;
   access: Access;
-  vessel: VesselRef;
-  params: Record<string, string>;
+  params: P extends z.ZodType ? z.output<P> : Record<string, never>;
   body: Parsed<B>;
   query: Parsed<Q>;
-};
+} & (V extends true ? { vessel: VesselRef } : unknown);
 
 type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
 
 /**
- * The one access door for route handlers: resolves the signed-in user, their company and role,
- * the vessel of the route (another company's or an unassigned vessel is 404), checks the role's
- * permission, and parses query and body with the zod contract before the handler runs.
+ * The one access door for route handlers: resolves the signed-in user, their company and role and
+ * the vessel of the route in one query (another company's or an unassigned vessel is 404), parses
+ * the path's ids (a malformed one is 404), checks the role's permission, and parses query and
+ * body with the zod contract before the handler runs.
  */
-export function withAccess<B extends Schema | undefined = undefined, Q extends Schema | undefined = undefined>(
-  options: Options<B, Q>,
-  handler: (ctx: HandlerContext<B, Q>) => Promise<unknown>,
-) {
+export function withAccess<
+  V extends boolean = false,
+  P extends Schema | undefined = undefined,
+  B extends Schema | undefined = undefined,
+  Q extends Schema | undefined = undefined,
+>(options: Options<V, P, B, Q>, handler: (ctx: HandlerContext<V, P, B, Q>) => Promise<unknown>) {
   return async (request: Request, context: RouteContext): Promise<Response> => {
     try {
-      const access = await loadAccess(request.headers);
-      if (!access) throw new AppError("unauthenticated", "Sign in to continue.");
-
-      const params = Object.fromEntries(
-        Object.entries((await context.params) ?? {}).map(([k, v]) => [k, String(v)]),
-      );
-      let vessel: VesselRef | null = null;
-      if (options.vessel) {
-        vessel = await findAccessibleVessel(access, params.vesselId ?? "");
-        if (!vessel) throw new AppError("not-found", "No such vessel.");
-      }
+      const path = await pathParams(context);
+      const vesselId = options.vessel && isUuid(path.vesselId ?? "") ? path.vesselId! : null;
+      const resolved = await resolveAccess(request.headers, vesselId);
+      if (!resolved) throw new AppError("unauthenticated", "Sign in to continue.");
+      const { access, vessel } = resolved;
+      if (options.vessel && !vessel) throw new AppError("not-found", "No such vessel.");
       if (!can(access.role, options.permission)) {
         throw new AppError("forbidden", "Your role does not allow this action.");
       }
+      const params = options.params ? parsePath(options.params, path) : {};
       if (vessel?.retiredAt && changesVessel(request, options.permission)) {
         throw new AppError(
           "conflict",
@@ -65,19 +67,24 @@ export function withAccess<B extends Schema | undefined = undefined, Q extends S
         : undefined;
       const body = options.body ? parseWith(options.body, await readJson(request), "") : undefined;
 
-      const result = await handler({
-        request,
-        access,
-        vessel: vessel as VesselRef,
-        params,
-        body: body as Parsed<B>,
-        query: query as Parsed<Q>,
-      });
+      const ctx = { request, access, vessel, params, body, query } as HandlerContext<V, P, B, Q>;
+      const result = await handler(ctx);
       return result instanceof Response ? result : Response.json(result);
     } catch (error) {
       return problemResponse(error);
     }
   };
+}
+
+async function pathParams(context: RouteContext): Promise<Record<string, string>> {
+  return Object.fromEntries(Object.entries((await context.params) ?? {}).map(([k, v]) => [k, String(v)]));
+}
+
+/** Path ids that do not parse are "not found", never a 422: an id is not something to correct. */
+function parsePath(schema: Schema, path: Record<string, string>): unknown {
+  const result = schema.safeParse(path);
+  if (!result.success) throw new AppError("not-found", result.error.issues[0]?.message ?? "Not found.");
+  return result.data;
 }
 
 /**
@@ -127,9 +134,7 @@ export function withToken<B extends Schema | undefined = undefined, Q extends Sc
 ) {
   return async (request: Request, context: RouteContext): Promise<Response> => {
     try {
-      const params = Object.fromEntries(
-        Object.entries((await context.params) ?? {}).map(([k, v]) => [k, String(v)]),
-      );
+      const params = await pathParams(context);
       const query = options.query
         ? parseWith(options.query, Object.fromEntries(new URL(request.url).searchParams), "query")
         : undefined;

@@ -7,7 +7,6 @@ import { component, portStay, user, workOrder, workPackageItem } from "@/db/sche
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { lockVesselWorkOrders } from "@/server/work-orders/lock";
-import { isUuid } from "@/server/http/ids";
 import { AppError, fieldErrorsFromZod, invalidInput } from "@/server/http/problem";
 import {
   type PackageItemView,
@@ -30,7 +29,6 @@ const noSuchStay = () => new AppError("not-found", "There is no such port stay o
 
 /** The stay row of this vessel, or 404 (another vessel's or company's stay looks the same). */
 export async function findStay(db: Db | Tx, access: Access, vessel: VesselRef, stayId: string): Promise<StayRow> {
-  if (!isUuid(stayId)) throw noSuchStay();
   const [row] = await db
     .select()
     .from(portStay)

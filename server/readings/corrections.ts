@@ -8,7 +8,6 @@ import { getDb, type Tx } from "@/db/client";
 import { counter, reading, readingCorrection, user } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatHours, formatShipDate, formatShipTime } from "@/server/format/hours";
-import { isUuid } from "@/server/http/ids";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { AppError, invalidInput } from "@/server/http/problem";
 import type { ReadingCorrection, ReadingCorrectionEntry, ReadingCorrectionResult } from "./contract";
@@ -102,7 +101,6 @@ export async function removeReading(
  * only, so the id-order rule for several counters holds trivially.
  */
 async function lockReading(tx: Tx, { access, vessel }: Scope, readingId: string): Promise<Locked> {
-  if (!isUuid(readingId)) throw noSuchReading();
   const scope = and(
     eq(reading.companyId, access.company.id),
     eq(reading.vesselId, vessel.id),

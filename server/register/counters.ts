@@ -5,12 +5,11 @@ import { getDb, type Tx } from "@/db/client";
 import { component, counter, counterSegment, reading } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatHours, formatShipDate, formatShipTime, instantOfShipTime, shipDay } from "@/server/format/hours";
-import { isUuid } from "@/server/http/ids";
 import { AppError, invalidInput } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { isInFuture, readingProblem, round1 } from "@/server/readings/rules";
 import type { CounterChange, MeterReplacement, MeterReplacementResult, NewCounter, RegisterCounter } from "./contract";
-import { counterScope, lockRegister, noSuch, type RegisterScope, rethrowConstraint } from "./register-scope";
+import { counterScope, lockRegister, noSuch, type RegisterScope } from "./register-scope";
 
 export type CounterSummary = Pick<RegisterCounter, "id" | "name" | "plannedHoursPerDay" | "segment" | "retiredAt">;
 
@@ -43,7 +42,6 @@ async function checkNameFree(tx: Tx, scope: RegisterScope, name: string, exceptI
 
 /** The counter, locked until the transaction ends so that readings and a replacement queue up. */
 async function lockCounter(tx: Tx, scope: RegisterScope, counterId: string, purpose: string) {
-  if (!isUuid(counterId)) throw noSuch("counter", scope.vessel);
   const [row] = await tx
     .select()
     .from(counter)
@@ -80,8 +78,7 @@ export async function createCounter(
         plannedHoursPerDay: input.plannedHoursPerDay,
         sortOrder: (last?.sortOrder ?? -1) + 1,
       })
-      .returning()
-      .catch(rethrowConstraint);
+      .returning();
     // The first meter is a segment like any other, so a later replacement has its start to show.
     await tx.insert(counterSegment).values({
       companyId: access.company.id,
@@ -112,8 +109,7 @@ export async function updateCounter(
       .update(counter)
       .set({ name: change.name, plannedHoursPerDay: change.plannedHoursPerDay })
       .where(and(counterScope(scope), eq(counter.id, current.id)))
-      .returning()
-      .catch(rethrowConstraint);
+      .returning();
     // A planned rate stands in for a short history: the due dates it projects change with it.
     if (change.plannedHoursPerDay !== undefined) await requestRecompute(tx, access.company.id, vessel.id);
     return toSummary(row!);

@@ -4,7 +4,6 @@ import { getDb, type Tx } from "@/db/client";
 import { component, counter, counterSegment, reading } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
-import { isUuid } from "@/server/http/ids";
 import { type FieldError, invalidInput } from "@/server/http/problem";
 import type { ComponentChange, NewComponent, RegisterComponent, RegisterView } from "./contract";
 import {
@@ -15,7 +14,6 @@ import {
   lockRegister,
   noSuch,
   type RegisterScope,
-  rethrowConstraint,
 } from "./register-scope";
 import { resolveCounters, wouldCreateCycle } from "./tree";
 
@@ -142,8 +140,7 @@ export async function createComponent(
         model: input.model ?? null,
         sortOrder: await nextSortOrder(tx, scope),
       })
-      .returning()
-      .catch(rethrowConstraint);
+      .returning();
     return toView(row!);
   });
 }
@@ -159,7 +156,6 @@ export async function updateComponent(
   change: ComponentChange,
   now = new Date(),
 ): Promise<Omit<RegisterComponent, "effectiveCounter">> {
-  if (!isUuid(componentId)) throw noSuch("component", vessel);
   const scope = { access, vessel };
   return getDb().transaction(async (tx) => {
     await lockRegister(tx, vessel);
@@ -214,8 +210,7 @@ export async function updateComponent(
         updatedAt: now,
       })
       .where(and(componentScope(scope), eq(component.id, current.id)))
-      .returning()
-      .catch(rethrowConstraint);
+      .returning();
     return toView(row!);
   });
 }

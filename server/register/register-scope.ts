@@ -7,10 +7,9 @@ import type { Tx } from "@/db/client";
 import { component, counter } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { formatShipDate } from "@/server/format/hours";
-import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
+import { AppError, type FieldError } from "@/server/http/problem";
 
 export type RegisterScope = { access: Access; vessel: VesselRef };
-
 
 /**
  * Register writes of one vessel wait for each other, so that two moves made at the same moment
@@ -74,31 +73,6 @@ export async function checkCodeFree(
   if (holder && holder.id !== exceptId) {
     errors.push({ field: "code", message: `${code} is already used on this vessel by ${holder.name}.` });
   }
-}
-
-type PgError = { code: string; constraint?: string };
-
-function pgErrorOf(error: unknown): PgError | null {
-  for (let e = error; e && typeof e === "object"; e = (e as { cause?: unknown }).cause) {
-    if ("code" in e && typeof e.code === "string" && /^[0-9A-Z]{5}$/.test(e.code)) return e as PgError;
-    if (!("cause" in e)) break;
-  }
-  return null;
-}
-
-/**
- * The register's unique keys, when a write slipped past the checks above (they run under the
- * lock, so only a write from outside the app gets here): still a 422 on the field, not a 500.
- */
-export function rethrowConstraint(error: unknown): never {
-  const pg = pgErrorOf(error);
-  if (pg?.code === "23505" && pg.constraint === "component_companyId_vesselId_code_unique") {
-    throw invalidInput([{ field: "code", message: "That code is already used on this vessel." }]);
-  }
-  if (pg?.code === "23505" && pg.constraint === "counter_companyId_vesselId_name_unique") {
-    throw invalidInput([{ field: "name", message: "There is already a counter of that name on this vessel." }]);
-  }
-  throw error;
 }
 
 export function noSuch(what: "component" | "counter", vessel: VesselRef): AppError {

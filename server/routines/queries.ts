@@ -5,7 +5,6 @@ import { completion, component, routine, routinePlanProblem, toleranceRule, work
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { instantOfShipTime, shipDay } from "@/server/format/hours";
-import { isUuid } from "@/server/http/ids";
 import { AppError, fieldErrorsFromZod, type FieldError, invalidInput } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { formFromCalendarRule } from "@/server/scheduling/calendar-rule-words";
@@ -151,7 +150,6 @@ export async function listRoutines(
 }
 
 async function findRoutine(tx: Db | Tx, scope: Scope, routineId: string) {
-  if (!isUuid(routineId)) return null;
   const [row] = await tx
     .select({
       r: routine,

@@ -2,9 +2,7 @@ import "server-only";
 import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import { type Db, getDb, type Tx } from "@/db/client";
 import { routine, toleranceRule, vessel } from "@/db/schema";
-import { explainUniqueViolation } from "@/server/admin/queries";
 import type { Access } from "@/server/auth/access";
-import { isUuid } from "@/server/http/ids";
 import { AppError, fieldErrorsFromZod, invalidInput } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { TOLERANCE_PRESETS } from "@/server/scheduling/presets";
@@ -50,8 +48,7 @@ export async function listToleranceRules(access: Access, onlyId?: string): Promi
 }
 
 async function loadRule(access: Access, ruleId: string): Promise<AdminToleranceRule> {
-  // A malformed id is no rule of theirs either; Postgres would refuse it as a uuid.
-  const [found] = isUuid(ruleId) ? await listToleranceRules(access, ruleId) : [];
+  const [found] = await listToleranceRules(access, ruleId);
   if (!found) throw new AppError("not-found", "No such tolerance rule.");
   return found;
 }
@@ -97,24 +94,20 @@ async function savePresetsIfNone(tx: Tx, companyId: string): Promise<void> {
 export async function createToleranceRule(access: Access, values: ToleranceRuleValues): Promise<AdminToleranceRule> {
   const db = getDb();
   const companyId = access.company.id;
-  const id = await explainUniqueViolation(
-    () =>
-      db.transaction(async (tx) => {
-        await savePresetsIfNone(tx, companyId);
-        await assertUniqueName(tx, companyId, values.name);
-        const [last] = await tx
-          .select({ max: sql<number>`coalesce(max(${toleranceRule.sortOrder}), -1)::int` })
-          .from(toleranceRule)
-          .where(eq(toleranceRule.companyId, companyId));
-        const [row] = await tx
-          .insert(toleranceRule)
-          .values({ companyId, ...toleranceRuleColumns(values), sortOrder: (last?.max ?? -1) + 1 })
-          .returning({ id: toleranceRule.id });
-        await recomputeCompany(tx, companyId);
-        return row!.id;
-      }),
-    () => assertUniqueName(db, companyId, values.name),
-  );
+  const id = await db.transaction(async (tx) => {
+    await savePresetsIfNone(tx, companyId);
+    await assertUniqueName(tx, companyId, values.name);
+    const [last] = await tx
+      .select({ max: sql<number>`coalesce(max(${toleranceRule.sortOrder}), -1)::int` })
+      .from(toleranceRule)
+      .where(eq(toleranceRule.companyId, companyId));
+    const [row] = await tx
+      .insert(toleranceRule)
+      .values({ companyId, ...toleranceRuleColumns(values), sortOrder: (last?.max ?? -1) + 1 })
+      .returning({ id: toleranceRule.id });
+    await recomputeCompany(tx, companyId);
+    return row!.id;
+  });
   return loadRule(access, id);
 }
 
@@ -131,18 +124,14 @@ export async function updateToleranceRule(
   const merged = ToleranceRuleInput.safeParse({ ...stored, ...changes });
   if (!merged.success) throw invalidInput(fieldErrorsFromZod(merged.error));
   const values = merged.data;
-  await explainUniqueViolation(
-    () =>
-      db.transaction(async (tx) => {
-        await assertUniqueName(tx, companyId, values.name, ruleId);
-        await tx
-          .update(toleranceRule)
-          .set({ ...toleranceRuleColumns(values), updatedAt: new Date() })
-          .where(and(eq(toleranceRule.companyId, companyId), eq(toleranceRule.id, ruleId)));
-        await recomputeCompany(tx, companyId);
-      }),
-    () => assertUniqueName(db, companyId, values.name, ruleId),
-  );
+  await db.transaction(async (tx) => {
+    await assertUniqueName(tx, companyId, values.name, ruleId);
+    await tx
+      .update(toleranceRule)
+      .set({ ...toleranceRuleColumns(values), updatedAt: new Date() })
+      .where(and(eq(toleranceRule.companyId, companyId), eq(toleranceRule.id, ruleId)));
+    await recomputeCompany(tx, companyId);
+  });
   return loadRule(access, ruleId);
 }
 

@@ -5,7 +5,6 @@ import { and, eq, sql } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
-import { isUuid } from "@/server/http/ids";
 import { AppError } from "@/server/http/problem";
 
 /** One writer of a vessel's work orders at a time, until the transaction ends. */
@@ -22,7 +21,6 @@ export function noSuchWorkOrder(): AppError {
  * only; anything else — another vessel's id, a malformed id — is not found.
  */
 export async function lockWorkOrder(tx: Tx, access: Access, vessel: VesselRef, workOrderId: string) {
-  if (!isUuid(workOrderId)) throw noSuchWorkOrder();
   await lockVesselWorkOrders(tx, vessel.id);
   const [row] = await tx
     .select()

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
-import { requirePageVessel } from "@/server/auth/access";
+import { requirePageParams, requirePageVessel } from "@/server/auth/access";
+import { WorkOrderParams } from "@/server/http/params";
 import { WorkOrderView } from "./_components/work-order-view";
 
 export const metadata: Metadata = { title: "Work order" };
@@ -9,8 +10,9 @@ export default async function WorkOrderPage({
 }: {
   params: Promise<{ vesselId: string; workOrderId: string }>;
 }) {
-  const { vesselId, workOrderId } = await params;
+  const { vesselId, ...ids } = await params;
   const { vessel } = await requirePageVessel(vesselId);
+  const { workOrderId } = requirePageParams(WorkOrderParams, ids);
   return (
     <main>
       <WorkOrderView vesselId={vessel.id} workOrderId={workOrderId} />

@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { requirePageVessel } from "@/server/auth/access";
+import { requirePageParams, requirePageVessel } from "@/server/auth/access";
+import { PortStayParams } from "@/server/http/params";
 import { formatHours } from "@/server/format/hours";
 import { AppError } from "@/server/http/problem";
 import { loadPackageSheet, type SheetJob } from "@/server/port-stays/sheet";
@@ -13,8 +14,9 @@ export const metadata: Metadata = { title: "Work package sheet" };
 
 /** The package as paper for the engine room: per day, each job with its checklist, parts and cautions. */
 export default async function PackageSheetPage({ params }: { params: Promise<{ vesselId: string; stayId: string }> }) {
-  const { vesselId, stayId } = await params;
+  const { vesselId, ...ids } = await params;
   const { access, vessel } = await requirePageVessel(vesselId);
+  const { stayId } = requirePageParams(PortStayParams, ids);
   const sheet = await loadPackageSheet(access, vessel, stayId).catch((error: unknown) => {
     if (error instanceof AppError && error.code === "not-found") notFound();
     throw error;

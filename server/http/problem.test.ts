@@ -1,0 +1,43 @@
+// Errors leave as application/problem+json (RFC 9457); a unique violation that won a race past
+// the domain's own checks is a 422 on its field or a 409, decided here and nowhere else.
+import { describe, expect, it, vi } from "vitest";
+import { type Problem, problemResponse } from "./problem";
+
+/** What Drizzle throws for a failed statement: its own error, the driver's error as `cause`. */
+function drizzleError(cause: object): Error {
+  return Object.assign(new Error("Failed query: insert into …"), { cause });
+}
+
+async function answer(error: unknown): Promise<{ status: number; body: Problem; type: string | null }> {
+  const response = problemResponse(error);
+  return { status: response.status, body: (await response.json()) as Problem, type: response.headers.get("content-type") };
+}
+
+describe("problemResponse and PostgreSQL unique violations", () => {
+  it("a known constraint becomes a 422 naming its field", async () => {
+    const r = await answer(drizzleError({ code: "23505", constraint: "vessel_companyId_code_unique" }));
+    expect(r.status).toBe(422);
+    expect(r.type).toBe("application/problem+json");
+    expect(r.body.errors).toEqual([{ field: "code", message: "Another vessel of the company already has this code." }]);
+  });
+
+  it("a known constraint with nothing to correct becomes a 409 saying what happened", async () => {
+    const r = await answer(drizzleError({ code: "23505", constraint: "deferral_one_pending" }));
+    expect(r.status).toBe(409);
+    expect(r.body.detail).toMatch(/already waiting for a decision/);
+  });
+
+  it("an unknown unique constraint is still a 409, not a 500", async () => {
+    const r = await answer(drizzleError({ code: "23505", constraint: "something_new_unique" }));
+    expect(r.status).toBe(409);
+    expect(r.body.detail).toMatch(/same moment/);
+  });
+
+  it("another database error stays a 500 and is logged", async () => {
+    const log = vi.spyOn(console, "error").mockImplementation(() => undefined);
+    const r = await answer(drizzleError({ code: "57014", message: "canceling statement due to statement timeout" }));
+    expect(r.status).toBe(500);
+    expect(log).toHaveBeenCalledOnce();
+    log.mockRestore();
+  });
+});
