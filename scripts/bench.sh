@@ -15,6 +15,6 @@ trap 'exit 130' INT TERM
 stack_database
 stack_start_app bench-output
 # BENCH_ONLY="access" (or any of the parts, space-separated) runs only those parts.
-for part in ${BENCH_ONLY:-run fleet access}; do
+for part in ${BENCH_ONLY:-run fleet access weight}; do
   node_modules/.bin/tsx --conditions=react-server "scripts/bench/$part.ts"
 done
