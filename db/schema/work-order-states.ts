@@ -32,6 +32,10 @@ export const OVERDUE_STATES = ["out-of-tolerance", "late"] as const satisfies re
 /** The states that ask for attention: a digest reports a change into one of them. */
 export const ATTENTION_STATES = ["window-open", "late", "out-of-tolerance"] as const satisfies readonly OpenState[];
 
+export function asksAttention(state: WorkOrderState): boolean {
+  return (ATTENTION_STATES as readonly WorkOrderState[]).includes(state);
+}
+
 /** 0 for the most urgent state, done last. */
 export function urgencyRank(state: WorkOrderState): number {
   return STATES_BY_URGENCY.indexOf(state);

@@ -1,9 +1,11 @@
 // The Backlog's query and answer, shared by the page and the route handler.
 import { z } from "zod";
+import { OPEN_STATES_BY_URGENCY, STATES_BY_URGENCY, type WorkOrderState } from "@/db/schema/work-order-states";
 
-export const OPEN_STATES = ["out-of-tolerance", "late", "window-open", "deferred", "scheduled"] as const;
-export const ALL_STATES = [...OPEN_STATES, "done"] as const;
-export type BacklogState = (typeof ALL_STATES)[number];
+/** The Backlog's state tabs, most urgent first; open work unless the filter says otherwise. */
+export const OPEN_STATES = OPEN_STATES_BY_URGENCY;
+export const ALL_STATES = STATES_BY_URGENCY;
+export type BacklogState = WorkOrderState;
 
 export const BACKLOG_SORTS = ["urgency", "due", "-due", "number", "component", "remaining-hours"] as const;
 

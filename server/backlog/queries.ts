@@ -1,15 +1,11 @@
 import "server-only";
 import { and, asc, eq, ilike, inArray, lte, or, type SQL, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { component, deferral, workOrder } from "@/db/schema";
+import { component, deferral, urgencyOrder, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { instantOfShipTime } from "@/server/format/hours";
 import { AWAITING_APPROVAL, PENDING_DEFERRAL } from "@/server/work-orders/flags";
 import { ALL_STATES, type BacklogFilter, type BacklogPage, type BacklogState } from "./contract";
-
-
-// Most urgent first: out of tolerance, late, inside the window, deferred, scheduled, done.
-const URGENCY = sql`case ${workOrder.state} when 'out-of-tolerance' then 0 when 'late' then 1 when 'window-open' then 2 when 'deferred' then 3 when 'scheduled' then 4 else 5 end`;
 
 function filters(access: Access, vessel: VesselRef, f: BacklogFilter): SQL[] {
   const where: SQL[] = [eq(workOrder.companyId, access.company.id), eq(workOrder.vesselId, vessel.id)];
@@ -35,7 +31,7 @@ function filters(access: Access, vessel: VesselRef, f: BacklogFilter): SQL[] {
 }
 
 const ORDER: Record<BacklogFilter["sort"], SQL[]> = {
-  urgency: [URGENCY, sql`${workOrder.dueDate} asc nulls last`, asc(workOrder.number)],
+  urgency: [urgencyOrder(workOrder.state), sql`${workOrder.dueDate} asc nulls last`, asc(workOrder.number)],
   due: [sql`${workOrder.dueDate} asc nulls last`, asc(workOrder.number)],
   "-due": [sql`${workOrder.dueDate} desc nulls last`, asc(workOrder.number)],
   number: [asc(workOrder.number)],

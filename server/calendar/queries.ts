@@ -1,24 +1,14 @@
 import "server-only";
 import { type AnyColumn, and, eq, gt, gte, isNotNull, isNull, lt, ne, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { component, counter, deferral, portStay, workOrder } from "@/db/schema";
+import { component, counter, portStay, workOrder } from "@/db/schema";
+import { urgencyRank } from "@/db/schema/work-order-states";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { shipDayKey } from "@/server/format/ship-day";
 import { shipDateFromKey, startOfShipDate } from "@/server/scheduling/ship-date";
 import type { CalendarPortStay, CalendarQuery, CalendarRange, CalendarWorkOrder } from "./contract";
+import { PENDING_DEFERRAL } from "@/server/work-orders/flags";
 import { projectionBasis } from "./projection-basis";
-
-const PENDING_DEFERRAL = sql<boolean>`exists (select 1 from ${deferral} where ${deferral.companyId} = ${workOrder.companyId} and ${deferral.workOrderId} = ${workOrder.id} and ${deferral.status} = 'pending')`;
-
-// Same order as the Backlog's urgency, so a busy day lists its most pressing work first.
-const URGENCY: Record<CalendarWorkOrder["state"], number> = {
-  "out-of-tolerance": 0,
-  late: 1,
-  "window-open": 2,
-  deferred: 3,
-  scheduled: 4,
-  done: 5,
-};
 
 /**
  * The work orders and port stays of the ship's days [start, end). The range becomes two instants
@@ -125,7 +115,7 @@ export async function loadCalendar(access: Access, vessel: VesselRef, q: Calenda
   });
   workOrders.sort(
     (a, b) =>
-      a.day.localeCompare(b.day) || URGENCY[a.state] - URGENCY[b.state] || a.number.localeCompare(b.number),
+      a.day.localeCompare(b.day) || urgencyRank(a.state) - urgencyRank(b.state) || a.number.localeCompare(b.number),
   );
 
   const stays = await db

@@ -1,8 +1,9 @@
 // The fleet's overdue list (GET /api/fleet/overdue and its CSV): every late or out-of-tolerance
 // work order of the company's vessels in service, the worst first. Shared by the page and the route.
 import { z } from "zod";
+import { OVERDUE_STATES } from "@/db/schema/work-order-states";
 
-export const OVERDUE_STATES = ["out-of-tolerance", "late"] as const;
+export { OVERDUE_STATES };
 export type OverdueState = (typeof OVERDUE_STATES)[number];
 
 export const FleetOverdueQuery = z.object({

@@ -3,7 +3,7 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNull, or, sql, type SQL } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { component, vessel, workOrder } from "@/db/schema";
+import { component, overdueOrder, vessel, workOrder } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
 import { type CsvColumn, csvResponse, toCsv } from "@/server/export/csv";
 import { shipDay } from "@/server/format/hours";
@@ -53,7 +53,7 @@ export async function loadFleetOverdue(access: Access, f: FleetOverdueFilter, no
     .innerJoin(component, eq(component.id, workOrder.componentId))
     .where(and(...where))
     .orderBy(
-      sql`case ${workOrder.state} when 'out-of-tolerance' then 0 else 1 end`,
+      overdueOrder(workOrder.state),
       desc(sql`(${workOrder.critical} or ${workOrder.classRelated})`),
       sql`${limit} asc nulls last`,
       asc(workOrder.stateChangedAt),

@@ -34,10 +34,11 @@
 // of one rank add up. Items and left-out work come in the order they were considered (priority).
 // The immobilisation allowed is 0 when the engine may not stop. A stay without days, or with days
 // not in order, is refused as invalid input (stay.days).
+import { OPEN_STATES_BY_URGENCY, type OpenState } from "@/db/schema/work-order-states";
 import { invalidInput } from "@/server/http/problem";
 import { leftOutWords, placedWords, whyWords, type LeftOutFacts, type WordsContext } from "./proposal-words";
 
-export type PlanningState = "scheduled" | "window-open" | "late" | "out-of-tolerance" | "deferred";
+export type PlanningState = OpenState;
 export type Candidate = {
   id: string;
   number: string;
@@ -111,7 +112,6 @@ export type Proposal = {
 export const DEFAULT_LOOK_AHEAD_DAYS = 30;
 const DAY_MS = 86_400_000;
 const TIERS: readonly Tier[] = ["would-go-out-of-tolerance", "engine-stop", "urgency"];
-const STATE_ORDER: readonly PlanningState[] = ["out-of-tolerance", "late", "window-open", "deferred", "scheduled"];
 const SHIP_DAY = /^\d{4}-\d{2}-\d{2}$/;
 
 const capacityTenths = (hours: number) => (Number.isFinite(hours) && hours > 0 ? Math.floor(hours * 10 + 1e-6) : 0);
@@ -136,7 +136,7 @@ function byPriority(a: Ranked, b: Ranked): number {
   const text = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
   return (
     TIERS.indexOf(a.tier) - TIERS.indexOf(b.tier) ||
-    STATE_ORDER.indexOf(a.c.state) - STATE_ORDER.indexOf(b.c.state) ||
+    OPEN_STATES_BY_URGENCY.indexOf(a.c.state) - OPEN_STATES_BY_URGENCY.indexOf(b.c.state) ||
     Number(b.c.critical) - Number(a.c.critical) ||
     Number(b.c.classRelated) - Number(a.c.classRelated) ||
     (sortKey(a) === sortKey(b) ? 0 : sortKey(a) < sortKey(b) ? -1 : 1) ||

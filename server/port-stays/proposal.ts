@@ -5,19 +5,13 @@ import "server-only";
 import { and, asc, eq, gt, inArray, ne } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { component, portStay, workOrder } from "@/db/schema";
+import { OPEN_STATES_BY_URGENCY } from "@/db/schema/work-order-states";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { AppError } from "@/server/http/problem";
-import {
-  type Candidate,
-  DEFAULT_LOOK_AHEAD_DAYS,
-  type PlanningState,
-  proposeWorkPackage,
-} from "@/server/planning/proposal";
+import { type Candidate, DEFAULT_LOOK_AHEAD_DAYS, proposeWorkPackage } from "@/server/planning/proposal";
 import type { PackageJob, ProposalView } from "./contract";
 import { findStay, jobColumns, packagedElsewhere, toJob } from "./queries";
 import { stayDays } from "./stay-days";
-
-export const OPEN_STATES: readonly PlanningState[] = ["scheduled", "window-open", "late", "out-of-tolerance", "deferred"];
 
 export async function proposePackage(
   access: Access,
@@ -54,7 +48,7 @@ export async function proposePackage(
       and(
         eq(workOrder.companyId, companyId),
         eq(workOrder.vesselId, vessel.id),
-        inArray(workOrder.state, [...OPEN_STATES]),
+        inArray(workOrder.state, [...OPEN_STATES_BY_URGENCY]),
       ),
     );
   // Work already in the package of another stay still to come is planned there, not here.
@@ -101,7 +95,12 @@ export async function proposePackage(
     nextStay: next ? { port: next.port, arrivesAt: next.arrivesAt.toISOString() } : null,
     lookAheadDays: next ? null : DEFAULT_LOOK_AHEAD_DAYS,
     items: proposal.items.map((i) => ({ ...job(i.workOrderId), date: i.date, reason: i.reason, tier: i.tier })),
-    leftOut: proposal.leftOut.map((l) => ({ ...job(l.workOrderId), tier: l.tier, reason: l.reason, message: l.message })),
+    leftOut: proposal.leftOut.map((l) => ({
+      ...job(l.workOrderId),
+      tier: l.tier,
+      reason: l.reason,
+      message: l.message,
+    })),
     usage: proposal.usage,
     immobilisation: proposal.immobilisation,
   };

@@ -14,6 +14,7 @@ import {
   workOrder,
   workOrderStateChange,
 } from "@/db/schema";
+import { ATTENTION_STATES } from "@/db/schema/work-order-states";
 import { endOfShipDate, shipDateFromKey, startOfShipDate } from "@/server/scheduling/ship-date";
 import type { CounterReading, FleetVesselFigures } from "./content";
 import type { DigestOccasion } from "./schedule";
@@ -112,7 +113,7 @@ export async function loadDigestInputs(
         eq(workOrderStateChange.companyId, companyId),
         eq(workOrder.companyId, companyId),
         eq(workOrder.vesselId, v.id),
-        inArray(workOrderStateChange.toState, ["window-open", "late", "out-of-tolerance"]),
+        inArray(workOrderStateChange.toState, [...ATTENTION_STATES]),
         gt(workOrderStateChange.changedAt, occasion.previousCutOff),
         lte(workOrderStateChange.changedAt, occasion.cutOff),
       ),

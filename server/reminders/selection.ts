@@ -1,11 +1,11 @@
 // What goes into each reminder and who gets it. Pure: the run (run.ts) loads the rows, these
 // functions choose.
-import type { workOrderState } from "@/db/schema";
+import { asksAttention, type WorkOrderState } from "@/db/schema/work-order-states";
 import type { Role } from "@/server/auth/roles";
 import { shipDayKey } from "@/server/format/ship-day";
 import type { DigestOccasion, MissingReadingsStep } from "./schedule";
 
-export type WorkOrderState = (typeof workOrderState.enumValues)[number];
+export type { WorkOrderState };
 
 export type Member = {
   userId: string;
@@ -44,9 +44,6 @@ export type DigestSelection = {
   /** Open work due on the digest's day or the 6 after it, not already listed above. */
   dueSoon: DigestItem[];
 };
-
-/** The states a digest reports a change into: the ones that ask for attention. */
-const ATTENTION: readonly WorkOrderState[] = ["window-open", "late", "out-of-tolerance"];
 
 /**
  * The limit the work is due by: an approved deferral's date replaces the computed one; a deferral
@@ -89,7 +86,7 @@ export function selectDigest(input: {
   const latestChange = new Map<string, StateChangeRow>();
   for (const c of input.changes) {
     const at = c.changedAt.getTime();
-    if (at <= from || at > until || !ATTENTION.includes(c.toState)) continue;
+    if (at <= from || at > until || !asksAttention(c.toState)) continue;
     const seen = latestChange.get(c.workOrderId);
     if (!seen || seen.changedAt.getTime() < at) latestChange.set(c.workOrderId, c);
   }
@@ -98,7 +95,7 @@ export function selectDigest(input: {
   for (const w of input.workOrders) {
     const item = toDigestItem(w, timeZone);
     const change = latestChange.get(w.id);
-    if (change && ATTENTION.includes(w.state)) {
+    if (change && asksAttention(w.state)) {
       if (change.toState === "out-of-tolerance") selection.outOfTolerance.push(item);
       else if (change.toState === "late") selection.late.push(item);
       else selection.windowOpen.push(item);

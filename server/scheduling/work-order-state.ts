@@ -4,13 +4,10 @@
 // Boundaries are inclusive of the due point and of the grace's end: work due on 15 April is
 // window-open all of 15 April, and an hours limit of 14,100 h is still late at exactly 14,100 h
 // (out of tolerance past it).
+import { TOLERANCE_STATES, type ToleranceState, type WorkOrderState } from "@/db/schema/work-order-states";
 import type { CalendarWindow, HoursWindow } from "./tolerance";
 
-export type ToleranceState = "scheduled" | "window-open" | "late" | "out-of-tolerance";
-export type WorkOrderState = ToleranceState | "deferred" | "done";
-
-/** In the order a work order passes through them when nothing is done. */
-export const TOLERANCE_STATES: readonly ToleranceState[] = ["scheduled", "window-open", "late", "out-of-tolerance"];
+export { TOLERANCE_STATES, type ToleranceState, type WorkOrderState };
 
 export function toleranceRank(state: ToleranceState): number {
   return TOLERANCE_STATES.indexOf(state);
