@@ -21,7 +21,12 @@ const globalForDb = globalThis as unknown as { keelsonPool?: Pool; keelsonDb?: D
 
 export function getDb(): Db {
   if (!globalForDb.keelsonDb) {
-    globalForDb.keelsonPool = new Pool({ connectionString: databaseUrl(), max: 10 });
+    const timeout = env().KEELSON_STATEMENT_TIMEOUT_MS;
+    globalForDb.keelsonPool = new Pool({
+      connectionString: databaseUrl(),
+      max: 10,
+      ...(timeout ? { statement_timeout: timeout, idle_in_transaction_session_timeout: timeout } : {}),
+    });
     globalForDb.keelsonDb = createDb(globalForDb.keelsonPool);
   }
   return globalForDb.keelsonDb;

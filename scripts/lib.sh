@@ -243,11 +243,28 @@ local_fakes_start() {
   fi
 }
 
+# stop_pids GRACE PID…: SIGTERM to each, then SIGKILL to any still running after GRACE seconds
+# (a wedged web process must not keep Ctrl-C waiting for ever), then reaps them.
+stop_pids() {
+  local grace="$1"; shift
+  local pid waited=0
+  for pid in "$@"; do kill "$pid" 2>/dev/null || true; done
+  while [ "$waited" -lt "$((grace * 10))" ]; do
+    local alive=0
+    for pid in "$@"; do kill -0 "$pid" 2>/dev/null && alive=1; done
+    [ "$alive" = 0 ] && break
+    sleep 0.1; waited=$((waited + 1))
+  done
+  for pid in "$@"; do
+    if kill -0 "$pid" 2>/dev/null; then log "process $pid did not stop within ${grace}s: killing it"; kill -9 "$pid" 2>/dev/null || true; fi
+  done
+  for pid in "$@"; do wait "$pid" 2>/dev/null || true; done
+}
+
 local_stop() {
   trap - INT TERM EXIT
   log "stopping…"
-  for pid in "${local_pids[@]}"; do kill "$pid" 2>/dev/null || true; done
-  for pid in "${local_pids[@]}"; do wait "$pid" 2>/dev/null || true; done
+  stop_pids 15 "${local_pids[@]}"
   pg_down dev
   log "stopped; data kept in .data/ (npm run db:reset starts over)"
 }
@@ -304,13 +321,12 @@ stack_start_app() {
   stack_pids+=($!)
   # Idle connections stay open longer than any client keeps them (Node closes them after 5 s, and a
   # client reusing one at that moment gets ECONNRESET).
-  node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" --keepAliveTimeout 65000 >"$out/app.log" 2>&1 &
+  KEELSON_STATEMENT_TIMEOUT_MS="${KEELSON_STATEMENT_TIMEOUT_MS:-30000}" node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" --keepAliveTimeout 65000 >"$out/app.log" 2>&1 &
   stack_pids+=($!)
   wait_for_http "$KEELSON_TEST_URL/sign-in"
 }
 
 stack_stop() {
-  for pid in "${stack_pids[@]}"; do kill "$pid" 2>/dev/null || true; done
-  for pid in "${stack_pids[@]}"; do wait "$pid" 2>/dev/null || true; done
+  stop_pids 15 "${stack_pids[@]}"
   pg_destroy "$STACK_CLUSTER"
 }

@@ -15,7 +15,7 @@ node_modules/.bin/next build >.data/build.log 2>&1 || { cat .data/build.log; exi
 local_fakes_start
 node_modules/.bin/tsx --conditions=react-server workers/index.ts &
 local_pids+=($!)
-node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" --keepAliveTimeout 65000 &
+KEELSON_STATEMENT_TIMEOUT_MS="${KEELSON_STATEMENT_TIMEOUT_MS:-30000}" node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" --keepAliveTimeout 65000 &
 local_pids+=($!)
 wait_for_http "http://127.0.0.1:$PORT/sign-in"
 local_banner

@@ -84,6 +84,10 @@ export const EnvSchema = z.object({
   KEELSON_CRON_MONITOR_SECONDS: wholeNumber(1).default(30),
   KEELSON_NIGHTLY_CRON: cron().default("15 0 * * *"),
   KEELSON_SNAPSHOT_CRON: cron().default("30 0 * * *"),
+
+  // How long one SQL statement, or a transaction left idle, may take before PostgreSQL ends it: the
+  // web sets it (scripts/lib.sh), so a runaway request cannot hold locks for long; unset, no limit.
+  KEELSON_STATEMENT_TIMEOUT_MS: wholeNumber(100).optional(),
 });
 
 export type Env = z.output<typeof EnvSchema>;

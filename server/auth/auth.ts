@@ -10,10 +10,16 @@ import { env } from "@/server/env";
 
 const { BETTER_AUTH_URL: baseURL, BETTER_AUTH_SECRET, KEELSON_AUTH_RATE_LIMIT } = env();
 
+/** The origins of Keelson's own pages: a state-changing request from anywhere else is refused. */
+export const TRUSTED_ORIGINS: readonly string[] = [
+  new URL(baseURL).origin,
+  new URL(baseURL.replace("127.0.0.1", "localhost")).origin,
+];
+
 export const auth = betterAuth({
   baseURL,
   secret: BETTER_AUTH_SECRET,
-  trustedOrigins: [baseURL, baseURL.replace("127.0.0.1", "localhost")],
+  trustedOrigins: [...TRUSTED_ORIGINS],
   database: drizzleAdapter(getDb(), {
     provider: "pg",
     schema: {

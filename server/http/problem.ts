@@ -16,6 +16,9 @@ export type ErrorCode =
   | "not-found"
   | "invalid-input"
   | "conflict"
+  | "too-large"
+  | "unsupported-media-type"
+  | "unavailable"
   | "internal";
 
 const STATUS: Record<ErrorCode, number> = {
@@ -24,6 +27,9 @@ const STATUS: Record<ErrorCode, number> = {
   "not-found": 404,
   "invalid-input": 422,
   conflict: 409,
+  "too-large": 413,
+  "unsupported-media-type": 415,
+  unavailable: 503,
   internal: 500,
 };
 
@@ -33,6 +39,9 @@ const TITLE: Record<ErrorCode, string> = {
   "not-found": "Not found",
   "invalid-input": "Some values need correcting",
   conflict: "Conflict",
+  "too-large": "Request too large",
+  "unsupported-media-type": "Not JSON",
+  unavailable: "Not available right now",
   internal: "Something went wrong",
 };
 
@@ -60,15 +69,20 @@ export function invalidInput(errors: FieldError[], detail?: string): AppError {
   );
 }
 
+/** A name or message from the request is cut short before it is echoed back (an unknown 1 MB key). */
+function clipped(text: string, max: number): string {
+  return text.length > max ? `${text.slice(0, max)}…` : text;
+}
+
 export function fieldErrorsFromZod(error: ZodError, prefix = ""): FieldError[] {
-  return error.issues.map((issue) => {
-    const path = [prefix, ...issue.path.map(String)].filter(Boolean);
+  return error.issues.slice(0, 50).map((issue) => {
+    const path = [prefix, ...issue.path.map((p) => clipped(String(p), 60))].filter(Boolean);
     const rowIndex = issue.path.findIndex((p) => p === "entries");
     const row = rowIndex >= 0 ? Number(issue.path[rowIndex + 1]) : undefined;
     return {
       field: path.join(".") || "(body)",
       ...(Number.isInteger(row) ? { row } : {}),
-      message: issue.message,
+      message: clipped(issue.message, 300),
     };
   });
 }

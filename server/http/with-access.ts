@@ -1,6 +1,7 @@
 import "server-only";
 import type { z } from "zod";
 import type { Access, VesselRef } from "@/server/auth/access";
+import { TRUSTED_ORIGINS } from "@/server/auth/auth";
 import { resolveAccess } from "@/server/auth/resolve-access";
 import { can, type Permission } from "@/server/auth/roles";
 import { formatShipDate } from "@/server/format/hours";
@@ -45,6 +46,7 @@ export function withAccess<
 >(options: Options<V, P, B, Q>, handler: (ctx: HandlerContext<V, P, B, Q>) => Promise<unknown>) {
   return async (request: Request, context: RouteContext): Promise<Response> => {
     try {
+      refuseForeignOrigin(request);
       const path = await pathParams(context);
       const vesselId = options.vessel && isUuid(path.vesselId ?? "") ? path.vesselId! : null;
       const resolved = await resolveAccess(request.headers, vesselId);
@@ -95,14 +97,55 @@ function changesVessel(request: Request, permission: Permission): boolean {
   return !["GET", "HEAD", "OPTIONS"].includes(request.method) && permission !== "company:manage";
 }
 
+/**
+ * Fields holding a NUL character, which PostgreSQL cannot store in text (it would be a 500 at the
+ * first query): refused here for every contract at once. The walk is bounded like the body is.
+ */
+function fieldsWithNul(input: unknown, path: string[] = [], found: string[] = [], depth = 0): string[] {
+  if (found.length >= 10 || depth > 32) return found;
+  if (typeof input === "string") {
+    if (input.includes("\u0000")) found.push(path.join(".") || "(body)");
+  } else if (input && typeof input === "object") {
+    for (const [key, value] of Object.entries(input)) fieldsWithNul(value, [...path, key.slice(0, 60)], found, depth + 1);
+  }
+  return found;
+}
+
 function parseWith(schema: Schema, input: unknown, prefix: string): unknown {
+  const nul = fieldsWithNul(input, prefix ? [prefix] : []);
+  if (nul.length) {
+    throw invalidInput(nul.map((field) => ({ field, message: "Remove the invisible NUL character: it cannot be stored." })));
+  }
   const result = schema.safeParse(input);
   if (!result.success) throw invalidInput(fieldErrorsFromZod(result.error, prefix));
   return result.data;
 }
 
+const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+/**
+ * A state-changing request must come from Keelson's own pages: browsers send `Origin` on every
+ * such request, so a foreign, `null` or missing one is a cross-site attempt (or a script that
+ * should send it, as the tests do), refused before the session is even read.
+ */
+function refuseForeignOrigin(request: Request): void {
+  if (SAFE_METHODS.has(request.method)) return;
+  const origin = request.headers.get("origin");
+  if (origin && TRUSTED_ORIGINS.includes(origin) && request.headers.get("sec-fetch-site") !== "cross-site") return;
+  throw new AppError("forbidden", "This request did not come from Keelson’s own pages, so it was refused.");
+}
+
+/** JSON bodies are small (a day's readings for 100 counters is about 10 kB); anything far larger is refused unread. */
+export const MAX_JSON_BYTES = 256 * 1024;
+
 async function readJson(request: Request): Promise<unknown> {
-  const text = await request.text();
+  // Only a body declared as JSON is parsed as JSON: a form or text/plain post from another site
+  // cannot smuggle one in.
+  const type = request.headers.get("content-type") ?? "";
+  if (!/^application\/([\w.+-]+\+)?json\s*(;|$)/i.test(type)) {
+    throw new AppError("unsupported-media-type", "Send the body as JSON, with Content-Type: application/json.");
+  }
+  const text = await readBounded(request, MAX_JSON_BYTES);
   if (!text.trim()) throw invalidInput([{ field: "(body)", message: "The request has no body." }]);
   try {
     return JSON.parse(text);
@@ -150,6 +193,9 @@ export function withToken<B extends Schema | undefined = undefined, Q extends Sc
 async function readAnyBody(request: Request): Promise<unknown> {
   const type = request.headers.get("content-type") ?? "";
   if (type.startsWith("application/x-www-form-urlencoded") || type.startsWith("multipart/form-data")) {
+    if (Number(request.headers.get("content-length") ?? 0) > MAX_JSON_BYTES) {
+      throw new AppError("too-large", "The request body is too large.");
+    }
     try {
       const form = await request.formData();
       return Object.fromEntries([...form.entries()].map(([k, v]) => [k, typeof v === "string" ? v : v.name]));
@@ -157,11 +203,32 @@ async function readAnyBody(request: Request): Promise<unknown> {
       throw invalidInput([{ field: "(body)", message: "The request body is not a readable form." }]);
     }
   }
-  const text = await request.text();
+  const text = await readBounded(request, MAX_JSON_BYTES);
   if (!text.trim()) return {};
   try {
     return JSON.parse(text);
   } catch {
     throw invalidInput([{ field: "(body)", message: "The request body is not valid JSON." }]);
   }
+}
+
+/** The body as text, refused (413) as soon as it passes `limit` bytes: never read whole first. */
+async function readBounded(request: Request, limit: number): Promise<string> {
+  const tooLarge = () => new AppError("too-large", `The request body is larger than ${Math.round(limit / 1024)} kB.`);
+  if (Number(request.headers.get("content-length") ?? 0) > limit) throw tooLarge();
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limit) {
+      await reader.cancel();
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  return new TextDecoder().decode(Buffer.concat(chunks));
 }
