@@ -1,6 +1,8 @@
 // The Backlog's query and answer, shared by the page and the route handler.
 import { z } from "zod";
 import { OPEN_STATES_BY_URGENCY, STATES_BY_URGENCY, type WorkOrderState } from "@/db/schema/work-order-states";
+import { DUE_FIELDS, HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
+import type { WorkOrderView } from "@/server/work-orders/view";
 
 /** The Backlog's state tabs, most urgent first; open work unless the filter says otherwise. */
 export const OPEN_STATES = OPEN_STATES_BY_URGENCY;
@@ -52,32 +54,19 @@ export const BacklogQuery = z.object({
 export type BacklogQueryInput = z.input<typeof BacklogQuery>;
 export type BacklogFilter = z.output<typeof BacklogQuery>;
 
-export type BacklogItem = {
-  id: string;
-  number: string;
-  title: string;
-  kind: "planned" | "corrective";
-  state: BacklogState;
-  stateChangedAt: string;
-  dueDate: string | null;
-  dueHours: number | null;
-  projectedDate: string | null;
-  calendarDue: string | null;
-  governing: "hours" | "calendar" | null;
-  windowOpensAt: string | null;
-  graceEndsAt: string | null;
-  windowOpensHours: number | null;
-  graceEndsHours: number | null;
-  remainingHours: number | null;
-  remainingDays: number | null;
-  plannedDate: string | null;
-  rank: string;
-  estimatedManHours: number;
-  needsEngineStop: boolean;
-  critical: boolean;
-  classRelated: boolean;
+/** The work order's own columns a Backlog row carries. */
+export const BACKLOG_FIELDS = [
+  ...HEADING_FIELDS,
+  "kind",
+  "stateChangedAt",
+  ...DUE_FIELDS,
+  "plannedDate",
+  ...JOB_FIELDS,
+  "computedAt",
+] as const;
+
+export type BacklogItem = WorkOrderView<(typeof BACKLOG_FIELDS)[number]> & {
   component: { id: string; code: string; name: string };
-  computedAt: string;
   /** A completion is recorded and waits for the chief engineer's approval. */
   awaitingApproval: boolean;
   /** A deferral request waits for the chief's or the superintendent's decision. */

@@ -5,7 +5,8 @@ import { component, deferral, urgencyOrder, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { instantOfShipTime } from "@/server/format/hours";
 import { AWAITING_APPROVAL, PENDING_DEFERRAL } from "@/server/work-orders/flags";
-import { ALL_STATES, type BacklogFilter, type BacklogPage, type BacklogState } from "./contract";
+import { workOrderView } from "@/server/work-orders/view";
+import { ALL_STATES, BACKLOG_FIELDS, type BacklogFilter, type BacklogPage, type BacklogState } from "./contract";
 
 function filters(access: Access, vessel: VesselRef, f: BacklogFilter): SQL[] {
   const where: SQL[] = [eq(workOrder.companyId, access.company.id), eq(workOrder.vesselId, vessel.id)];
@@ -79,34 +80,10 @@ export async function loadBacklog(access: Access, vessel: VesselRef, f: BacklogF
     counts[c.state] = c.n;
     if (c.computedAt && (!computedAt || c.computedAt > computedAt)) computedAt = c.computedAt;
   }
-  const iso = (d: Date | null) => (d ? d.toISOString() : null);
   return {
     items: rows.map(({ w, componentCode, componentName, awaitingApproval, pendingDeferral }) => ({
-      id: w.id,
-      number: w.number,
-      title: w.title,
-      kind: w.kind,
-      state: w.state,
-      stateChangedAt: w.stateChangedAt.toISOString(),
-      dueDate: iso(w.dueDate),
-      dueHours: w.dueHours,
-      projectedDate: iso(w.projectedDate),
-      calendarDue: iso(w.calendarDue),
-      governing: w.governing,
-      windowOpensAt: iso(w.windowOpensAt),
-      graceEndsAt: iso(w.graceEndsAt),
-      windowOpensHours: w.windowOpensHours,
-      graceEndsHours: w.graceEndsHours,
-      remainingHours: w.remainingHours,
-      remainingDays: w.remainingDays,
-      plannedDate: w.plannedDate,
-      rank: w.rank,
-      estimatedManHours: w.estimatedManHours,
-      needsEngineStop: w.needsEngineStop,
-      critical: w.critical,
-      classRelated: w.classRelated,
+      ...workOrderView(w, BACKLOG_FIELDS),
       component: { id: w.componentId, code: componentCode, name: componentName },
-      computedAt: w.computedAt.toISOString(),
       awaitingApproval,
       pendingDeferral,
     })),

@@ -6,8 +6,15 @@ import { urgencyRank } from "@/db/schema/work-order-states";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { shipDayKey } from "@/server/format/ship-day";
 import { shipDateFromKey, startOfShipDate } from "@/server/scheduling/ship-date";
-import type { CalendarPortStay, CalendarQuery, CalendarRange, CalendarWorkOrder } from "./contract";
+import {
+  CALENDAR_FIELDS,
+  type CalendarPortStay,
+  type CalendarQuery,
+  type CalendarRange,
+  type CalendarWorkOrder,
+} from "./contract";
 import { PENDING_DEFERRAL } from "@/server/work-orders/flags";
+import { workOrderView } from "@/server/work-orders/view";
 import { projectionBasis } from "./projection-basis";
 
 /**
@@ -79,14 +86,10 @@ export async function loadCalendar(access: Access, vessel: VesselRef, q: Calenda
     const projected = w.governing === "hours" && w.deferredDueDate === null;
     const c = w.counterId ? counterById.get(w.counterId) : undefined;
     return {
-      id: w.id,
-      number: w.number,
-      title: w.title,
-      state: w.state,
+      ...workOrderView(w, CALENDAR_FIELDS),
       component: { code: componentCode, name: componentName },
       day: doneDay ?? w.plannedDate ?? dueDay ?? q.start,
       dueDay,
-      plannedDate: w.plannedDate,
       doneDay,
       projected,
       basis: projected
@@ -102,15 +105,7 @@ export async function loadCalendar(access: Access, vessel: VesselRef, q: Calenda
           )
         : null,
       dueHours: w.deferredDueHours ?? w.dueHours,
-      remainingHours: w.remainingHours,
-      planFrom: w.planFrom,
-      planUntil: w.planUntil,
       pendingDeferral,
-      critical: w.critical,
-      classRelated: w.classRelated,
-      needsEngineStop: w.needsEngineStop,
-      rank: w.rank,
-      estimatedManHours: w.estimatedManHours,
     };
   });
   workOrders.sort(

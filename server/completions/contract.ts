@@ -3,8 +3,9 @@
 // route handlers.
 import { z } from "zod";
 import type { RecordedMeasurement, RoutineCaution, RoutineMeasurement } from "@/db/schema";
-import type { BacklogState } from "@/server/backlog/contract";
 import { MeterValue, ShipClock, ShipDay } from "@/server/readings/contract";
+import { DUE_FIELDS, HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
+import type { WorkOrderView } from "@/server/work-orders/view";
 
 /** A number as typed on a tablet: "0.42", "0,42" or a number; a blank is not 0. */
 function typedNumber(message: string) {
@@ -161,32 +162,20 @@ export type ComponentHistoryEntry = {
   remarks: string;
 };
 
+/** The work order's own columns the work-order page shows. */
+export const DETAIL_FIELDS = [
+  ...HEADING_FIELDS,
+  "kind",
+  "occurrence",
+  ...DUE_FIELDS,
+  ...JOB_FIELDS,
+  "completedAt",
+] as const;
+
 export type WorkOrderDetail = {
   vessel: { id: string; name: string; code: string; timeZone: string };
   now: string;
-  workOrder: {
-    id: string;
-    number: string;
-    title: string;
-    kind: "planned" | "corrective";
-    occurrence: number;
-    state: BacklogState;
-    dueDate: string | null;
-    dueHours: number | null;
-    governing: "hours" | "calendar" | null;
-    windowOpensAt: string | null;
-    graceEndsAt: string | null;
-    windowOpensHours: number | null;
-    graceEndsHours: number | null;
-    remainingHours: number | null;
-    remainingDays: number | null;
-    rank: string;
-    estimatedManHours: number;
-    needsEngineStop: boolean;
-    critical: boolean;
-    classRelated: boolean;
-    completedAt: string | null;
-  };
+  workOrder: WorkOrderView<(typeof DETAIL_FIELDS)[number]>;
   component: { id: string; code: string; name: string };
   routine: {
     id: string;

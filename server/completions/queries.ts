@@ -9,15 +9,21 @@ import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import type { WorkOrderWithDeferrals } from "@/server/deferrals/contract";
 import { loadWorkOrderDeferrals } from "@/server/deferrals/queries";
+import { isoInstant } from "@/server/format/iso";
 import { AppError } from "@/server/http/problem";
-import { ChecklistTick, type CompletionRecord, type ComponentHistoryEntry, type WorkOrderDetail } from "./contract";
+import { workOrderView } from "@/server/work-orders/view";
+import {
+  ChecklistTick,
+  type CompletionRecord,
+  type ComponentHistoryEntry,
+  DETAIL_FIELDS,
+  type WorkOrderDetail,
+} from "./contract";
 
 const HISTORY_LIMIT = 25;
 
 /** The checklist column holds `{ step, done }` and, for an unticked step, its remark. */
 const StoredChecklist = z.array(ChecklistTick);
-
-const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
 export async function loadWorkOrderDetail(
   access: Access,
@@ -59,29 +65,7 @@ export async function loadWorkOrderDetail(
   return {
     vessel: { id: vessel.id, name: vessel.name, code: vessel.code, timeZone: vessel.timeZone },
     now: now.toISOString(),
-    workOrder: {
-      id: w.id,
-      number: w.number,
-      title: w.title,
-      kind: w.kind,
-      occurrence: w.occurrence,
-      state: w.state,
-      dueDate: iso(w.dueDate),
-      dueHours: w.dueHours,
-      governing: w.governing,
-      windowOpensAt: iso(w.windowOpensAt),
-      graceEndsAt: iso(w.graceEndsAt),
-      windowOpensHours: w.windowOpensHours,
-      graceEndsHours: w.graceEndsHours,
-      remainingHours: w.remainingHours,
-      remainingDays: w.remainingDays,
-      rank: w.rank,
-      estimatedManHours: w.estimatedManHours,
-      needsEngineStop: w.needsEngineStop,
-      critical: w.critical,
-      classRelated: w.classRelated,
-      completedAt: iso(w.completedAt),
-    },
+    workOrder: workOrderView(w, DETAIL_FIELDS),
     component: row.c,
     routine: r
       ? {
@@ -129,7 +113,7 @@ async function loadCompletionRecord(companyId: string, workOrderId: string): Pro
     remarks: c.remarks,
     doneBy: row.doneBy,
     decidedBy: row.decidedBy,
-    decidedAt: iso(c.decidedAt),
+    decidedAt: isoInstant(c.decidedAt),
     decisionNote: c.decisionNote,
   };
 }

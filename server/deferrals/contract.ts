@@ -1,9 +1,11 @@
 // Deferrals: the chief engineer's request to postpone a work order's limit, the decision on it,
 // and what the pages show. Shared by the forms and the route handlers.
 import { z } from "zod";
-import type { BacklogState } from "@/server/backlog/contract";
+import type { WorkOrderState } from "@/db/schema/work-order-states";
 import type { WorkOrderDetail } from "@/server/completions/contract";
 import { ShipDay } from "@/server/readings/contract";
+import { HEADING_FIELDS } from "@/server/work-orders/fields";
+import type { WorkOrderView } from "@/server/work-orders/view";
 
 export const REASON_MIN = 10;
 export const REASON_MAX = 2_000;
@@ -101,17 +103,13 @@ export type DeferralEntry = {
   decisionNote: string | null;
 };
 
+/** The work order's own columns a list of requests shows beside each. */
+export const DEFERRAL_LIST_FIELDS = [...HEADING_FIELDS, "critical", "classRelated"] as const;
+
 /** A request as a list of a vessel's (or the fleet's) requests shows it, with its work order. */
 export type DeferralListItem = DeferralEntry & {
   vessel: { id: string; name: string; code: string };
-  workOrder: {
-    id: string;
-    number: string;
-    title: string;
-    state: BacklogState;
-    critical: boolean;
-    classRelated: boolean;
-  };
+  workOrder: WorkOrderView<(typeof DEFERRAL_LIST_FIELDS)[number]>;
 };
 
 /** The work order page's Deferral section. */
@@ -137,7 +135,7 @@ export type WorkOrderDeferrals = {
 
 export type WorkOrderWithDeferrals = WorkOrderDetail & { deferrals: WorkOrderDeferrals };
 
-export type DeferralResult = { id: string; status: DeferralStatus; workOrderState: BacklogState };
+export type DeferralResult = { id: string; status: DeferralStatus; workOrderState: WorkOrderState };
 export type DeferralRequestResult = DeferralResult & { needsOffice: boolean };
 
 export const DEFERRAL_STATUS_WORDS: Record<DeferralStatus, { glyph: string; words: string }> = {

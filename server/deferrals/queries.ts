@@ -7,17 +7,15 @@ import { company, deferral, routine, user, vessel as vesselTable, workOrder } fr
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { shipDay } from "@/server/format/hours";
+import { isoInstant } from "@/server/format/iso";
 import { AppError } from "@/server/http/problem";
-import type { DeferralEntry, DeferralListItem, WorkOrderDeferrals } from "./contract";
+import type { WorkOrderRow } from "@/server/work-orders/fields";
+import { workOrderColumns, workOrderView } from "@/server/work-orders/view";
+import { DEFERRAL_LIST_FIELDS, type DeferralEntry, type DeferralListItem, type WorkOrderDeferrals } from "./contract";
 import { highestDeferralHours, latestDeferralDay } from "./rules";
 
 const requester = aliasedTable(user, "requester");
 const decider = aliasedTable(user, "decider");
-const iso = (d: Date | null) => (d ? d.toISOString() : null);
-
-type WorkOrderRow = typeof workOrder.$inferSelect;
-
-// The same check as server/completions/queries.ts, which imports this file.
 
 const entryColumns = {
   d: deferral,
@@ -38,7 +36,7 @@ function toEntry(row: { d: typeof deferral.$inferSelect; requestedBy: string | n
     requestedBy: row.requestedBy,
     requestedAt: d.requestedAt.toISOString(),
     decidedBy: row.decidedBy,
-    decidedAt: iso(d.decidedAt),
+    decidedAt: isoInstant(d.decidedAt),
     decisionNote: d.decisionNote,
   } satisfies DeferralEntry;
 }
@@ -80,14 +78,7 @@ async function listDeferrals(companyId: string, where: SQL[]): Promise<DeferralL
   const rows = await getDb()
     .select({
       ...entryColumns,
-      w: {
-        id: workOrder.id,
-        number: workOrder.number,
-        title: workOrder.title,
-        state: workOrder.state,
-        critical: workOrder.critical,
-        classRelated: workOrder.classRelated,
-      },
+      w: workOrderColumns(DEFERRAL_LIST_FIELDS),
       v: { id: vesselTable.id, name: vesselTable.name, code: vesselTable.code },
     })
     .from(deferral)
@@ -97,7 +88,11 @@ async function listDeferrals(companyId: string, where: SQL[]): Promise<DeferralL
     .leftJoin(decider, eq(decider.id, deferral.decidedBy))
     .where(and(eq(deferral.companyId, companyId), eq(workOrder.companyId, companyId), ...where))
     .orderBy(desc(deferral.requestedAt));
-  return rows.map((row) => ({ ...toEntry(row), workOrder: row.w, vessel: row.v }));
+  return rows.map((row) => ({
+    ...toEntry(row),
+    workOrder: workOrderView(row.w, DEFERRAL_LIST_FIELDS),
+    vessel: row.v,
+  }));
 }
 
 /** A vessel's requests: the pending ones (oldest waiting longest at the end), or all of them. */
@@ -182,7 +177,7 @@ export async function loadWorkOrderDeferrals(
   return {
     history,
     today,
-    current: { ...current, dueDate: iso(current.dueDate) },
+    current: { ...current, dueDate: isoInstant(current.dueDate) },
     hasHoursLimit: current.dueHours !== null,
     latestDay: latestDeferralDay(today),
     highestHours: highestDeferralHours({ currentDueHours: current.dueHours, intervalHours }),

@@ -2,6 +2,8 @@
 // Kept light for the office's link: figures per vessel, trends as bare number arrays aligned to
 // one list of days.
 
+import type { DeferralListItem } from "@/server/deferrals/contract";
+
 export type BoardTier = 0 | 1 | 2 | 3 | 4;
 
 export type FleetBoardVessel = {
@@ -37,7 +39,7 @@ export type FleetBoardVessel = {
 export type FleetBoardPending = {
   id: string;
   vessel: { id: string; name: string; code: string };
-  workOrder: { id: string; number: string; title: string; state: string; critical: boolean; classRelated: boolean };
+  workOrder: DeferralListItem["workOrder"];
   proposedDueDay: string | null;
   proposedDueHours: number | null;
   needsOffice: boolean;

@@ -2,6 +2,8 @@
 // work order of the company's vessels in service, the worst first. Shared by the page and the route.
 import { z } from "zod";
 import { OVERDUE_STATES } from "@/db/schema/work-order-states";
+import { HEADING_FIELDS } from "@/server/work-orders/fields";
+import type { WorkOrderView } from "@/server/work-orders/view";
 
 export { OVERDUE_STATES };
 export type OverdueState = (typeof OVERDUE_STATES)[number];
@@ -19,11 +21,11 @@ export const FleetOverdueQuery = z.object({
 });
 export type FleetOverdueFilter = z.output<typeof FleetOverdueQuery>;
 
-export type FleetOverdueItem = {
-  id: string;
+/** The work order's own columns the overdue list shows as they are stored. */
+export const OVERDUE_FIELDS = [...HEADING_FIELDS, "rank", "critical", "classRelated", "plannedDate"] as const;
+
+export type FleetOverdueItem = Omit<WorkOrderView<(typeof OVERDUE_FIELDS)[number]>, "state"> & {
   vessel: { id: string; name: string; code: string };
-  number: string;
-  title: string;
   component: { code: string; name: string };
   state: OverdueState;
   /** When it became late or out of tolerance. */
@@ -35,10 +37,6 @@ export type FleetOverdueItem = {
   daysOverdue: number | null;
   /** Hours past the due point (positive), when it is hours-based. */
   hoursOverdue: number | null;
-  rank: string;
-  critical: boolean;
-  classRelated: boolean;
-  plannedDate: string | null;
   pendingDeferral: boolean;
   awaitingApproval: boolean;
 };

@@ -8,7 +8,14 @@ import type { Access } from "@/server/auth/access";
 import { type CsvColumn, csvResponse, toCsv } from "@/server/export/csv";
 import { shipDay } from "@/server/format/hours";
 import { AWAITING_APPROVAL, PENDING_DEFERRAL } from "@/server/work-orders/flags";
-import { type FleetOverdue, type FleetOverdueFilter, type FleetOverdueItem, OVERDUE_STATES } from "./overdue-contract";
+import { workOrderView } from "@/server/work-orders/view";
+import {
+  type FleetOverdue,
+  type FleetOverdueFilter,
+  type FleetOverdueItem,
+  OVERDUE_FIELDS,
+  OVERDUE_STATES,
+} from "./overdue-contract";
 
 /** Enough for any fleet's overdue list; more says the fleet has a bigger problem than a list. */
 export const OVERDUE_LIMIT = 2000;
@@ -65,10 +72,8 @@ export async function loadFleetOverdue(access: Access, f: FleetOverdueFilter, no
     const { w } = r;
     const dueHours = w.deferredDueHours ?? w.dueHours;
     return {
-      id: w.id,
+      ...workOrderView(w, OVERDUE_FIELDS),
       vessel: { id: w.vesselId, name: r.vesselName, code: r.vesselCode },
-      number: w.number,
-      title: w.title,
       component: { code: r.componentCode, name: r.componentName },
       state: w.state as FleetOverdueItem["state"],
       since: w.stateChangedAt.toISOString(),
@@ -76,10 +81,6 @@ export async function loadFleetOverdue(access: Access, f: FleetOverdueFilter, no
       dueHours,
       daysOverdue: r.limitAt ? Math.max(0, Math.floor((now.getTime() - r.limitAt.getTime()) / DAY_MS)) : null,
       hoursOverdue: w.remainingHours !== null && w.remainingHours < 0 ? Math.round(-w.remainingHours * 10) / 10 : null,
-      rank: w.rank,
-      critical: w.critical,
-      classRelated: w.classRelated,
-      plannedDate: w.plannedDate,
       pendingDeferral: r.pendingDeferral,
       awaitingApproval: r.awaitingApproval,
     };
