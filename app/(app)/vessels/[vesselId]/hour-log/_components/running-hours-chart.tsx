@@ -1,9 +1,9 @@
 "use client";
 
-import { Bar, BarChart, CartesianGrid, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { useState } from "react";
 import { Notice } from "@/app/_components/notice";
 import { formatHours } from "@/server/format/hours";
+import { DailyHoursChart } from "./daily-hours-chart";
 import { RecentReadings } from "./recent-readings";
 import { useReadingHistory } from "./use-hour-log";
 
@@ -24,6 +24,7 @@ export function RunningHoursChart({ vesselId, counters, counterId, onCounterChan
   const [changed, setChanged] = useState<string | null>(null);
   const daily = data?.daily ?? [];
   const total = daily.reduce((sum, d) => sum + d.hours, 0);
+  const counterName = counters.find((c) => c.id === counterId)?.name ?? "the counter";
 
   return (
     <section className="panel p-4" aria-labelledby="chart-heading">
@@ -61,20 +62,8 @@ export function RunningHoursChart({ vesselId, counters, counterId, onCounterChan
       ) : (
         <div className="grid gap-4 lg:grid-cols-[1fr_23rem]">
           <figure>
-            <div className="h-56 text-ink-500" data-testid="running-hours-chart" data-points={daily.length} data-last-day={daily.at(-1)?.day} data-last-hours={daily.at(-1)?.hours}>
-              <ResponsiveContainer width="100%" height="100%">
-                <BarChart data={daily} margin={{ top: 4, right: 4, bottom: 0, left: -16 }}>
-                  <CartesianGrid strokeDasharray="3 3" vertical={false} stroke="currentColor" strokeOpacity={0.2} />
-                  <XAxis dataKey="day" tickFormatter={(d: string) => d.slice(5)} minTickGap={24} stroke="currentColor" fontSize={11} />
-                  <YAxis domain={[0, 24]} ticks={[0, 6, 12, 18, 24]} stroke="currentColor" fontSize={11} />
-                  <Tooltip
-                    formatter={(v) => [formatHours(Number(v)), "Ran"]}
-                    labelFormatter={(d) => `Ship's day ${String(d)}`}
-                    contentStyle={{ fontSize: 12 }}
-                  />
-                  <Bar dataKey="hours" fill="#23879a" isAnimationActive={false} />
-                </BarChart>
-              </ResponsiveContainer>
+            <div className="text-ink-500" data-testid="running-hours-chart" data-points={daily.length} data-last-day={daily.at(-1)?.day} data-last-hours={daily.at(-1)?.hours}>
+              <DailyHoursChart daily={daily} label={`Daily running hours of ${counterName}, last ${DAYS} days`} />
             </div>
             <figcaption className="mt-1 text-xs text-ink-500">
               {formatHours(Math.round(total * 10) / 10)} over {daily.length} days, {(total / daily.length).toFixed(1)} h/day on
