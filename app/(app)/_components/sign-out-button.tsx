@@ -2,7 +2,6 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { authClient } from "@/app/_components/auth-client";
 
 export function SignOutButton() {
   const router = useRouter();
@@ -14,6 +13,9 @@ export function SignOutButton() {
       disabled={busy}
       onClick={async () => {
         setBusy(true);
+        // better-auth's client (13 kB compressed) is needed only here: loaded on the press, not
+        // with every page of the signed-in shell.
+        const { authClient } = await import("@/app/_components/auth-client");
         await authClient.signOut();
         router.replace("/sign-in");
         router.refresh();

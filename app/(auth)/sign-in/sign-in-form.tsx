@@ -6,7 +6,6 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
-import { authClient } from "@/app/_components/auth-client";
 import { AuthAlert } from "../_components/auth-alert";
 
 const SignInInput = z.object({
@@ -25,6 +24,8 @@ export function SignInForm({ demo }: { demo: Demo }) {
 
   async function onSubmit(values: SignInInput) {
     setFailure(null);
+    // better-auth's client (13 kB compressed) loads on the first press, not with the page.
+    const { authClient } = await import("@/app/_components/auth-client");
     const { error } = await authClient.signIn.email(values);
     if (error) {
       setFailure(
