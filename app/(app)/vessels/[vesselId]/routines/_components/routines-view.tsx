@@ -1,5 +1,6 @@
 "use client";
 
+import dynamic from "next/dynamic";
 import { useDeferredValue, useState } from "react";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
@@ -7,10 +8,15 @@ import { SearchField } from "@/app/_components/search-field";
 import type { RoutineList, RoutineSummary } from "@/server/routines/contract";
 import { CopyRoutine } from "./copy-routine";
 import { RetireRoutine } from "./retire-routine";
-import { RoutineEditor } from "./routine-editor";
 import { PlanProblems } from "./plan-problems";
 import { RoutinesTable } from "./routines-table";
 import { useRoutines } from "./use-routines";
+
+// The editor's form libraries (react-hook-form, the zod contract) load when a routine is opened,
+// not with the list: most visits read the list only.
+const RoutineEditor = dynamic(() => import("./routine-editor").then((m) => m.RoutineEditor), {
+  loading: () => <div className="h-64 animate-pulse rounded bg-ink-100 dark:bg-ink-850" aria-busy="true" />,
+});
 
 /** Which panel is open beside the list, and on which routine. */
 export type Sheet = { kind: "add" } | { kind: "edit" | "copy" | "retire"; routine: RoutineSummary };
