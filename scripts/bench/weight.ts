@@ -19,8 +19,16 @@ const BUDGET = 250_000;
 
 const KINDS = ["script", "style", "font", "document", "data", "image", "other"] as const;
 type Kind = (typeof KINDS)[number];
-type Resource = { url: string; kind: Kind; bytes: number; encoding: string | null };
-type Weight = { page: string; path: string; budget: number; total: number; byKind: Record<Kind, number>; resources: Resource[] };
+/** `bytes` on the wire with headers; `body` without them, to judge compression (next start skips under 1 kB). */
+type Resource = { url: string; kind: Kind; bytes: number; body: number; encoding: string | null };
+type Weight = {
+  page: string;
+  path: string;
+  budget: number;
+  total: number;
+  byKind: Record<Kind, number>;
+  resources: Resource[];
+};
 
 function kindOf(cdpType: string | undefined): Kind {
   switch (cdpType) {
@@ -55,20 +63,25 @@ async function weigh(browser: Browser, page: string, path: string, cookie: strin
     }
     const tab = await context.newPage();
     const cdp = await context.newCDPSession(tab);
-    const seen = new Map<string, { url: string; type: string | undefined; encoding: string | null }>();
+    const seen = new Map<string, { url: string; type: string | undefined; encoding: string | null; headers: number }>();
     const resources: Resource[] = [];
     cdp.on("Network.responseReceived", (e) => {
-      const encoding = Object.entries(e.response.headers).find(([k]) => k.toLowerCase() === "content-encoding")?.[1] ?? null;
-      seen.set(e.requestId, { url: e.response.url, type: e.type, encoding });
+      const encoding =
+        Object.entries(e.response.headers).find(([k]) => k.toLowerCase() === "content-encoding")?.[1] ?? null;
+      seen.set(e.requestId, { url: e.response.url, type: e.type, encoding, headers: e.response.encodedDataLength });
     });
     cdp.on("Network.loadingFinished", (e) => {
       const r = seen.get(e.requestId);
-      if (r) resources.push({ url: r.url, kind: kindOf(r.type), bytes: e.encodedDataLength, encoding: r.encoding });
+      if (r) {
+        const body = e.encodedDataLength - r.headers;
+        resources.push({ url: r.url, kind: kindOf(r.type), bytes: e.encodedDataLength, body, encoding: r.encoding });
+      }
     });
     await cdp.send("Network.enable");
     const response = await tab.goto(`${BASE_URL}${path}`, { waitUntil: "networkidle", timeout: 60_000 });
     const landed = new URL(tab.url()).pathname;
-    if (response?.status() !== 200 || landed !== path) throw new Error(`${page}: ${path} answered ${response?.status()} at ${landed}`);
+    if (response?.status() !== 200 || landed !== path)
+      throw new Error(`${page}: ${path} answered ${response?.status()} at ${landed}`);
     const byKind = Object.fromEntries(KINDS.map((k) => [k, 0])) as Record<Kind, number>;
     for (const r of resources) byKind[r.kind] += r.bytes;
     const total = resources.reduce((sum, r) => sum + r.bytes, 0);
@@ -94,7 +107,9 @@ function markdown(weights: Weight[], at: Date): string {
     .map((r) => `| ${new URL(r.url).pathname} | ${r.kind} | ${kb(r.bytes)} |`);
   // Text sent without compression: next start gzips by default, so any hit here is a regression.
   const plain = weights.flatMap((w) =>
-    w.resources.filter((r) => !r.encoding && r.bytes > 1000 && r.kind !== "font" && r.kind !== "image").map((r) => `${w.page}: ${r.url} (${kb(r.bytes)} kB)`),
+    w.resources
+      .filter((r) => !r.encoding && r.body > 1024 && r.kind !== "font" && r.kind !== "image")
+      .map((r) => `${w.page}: ${new URL(r.url).pathname} (${kb(r.body)} kB)`),
   );
   const encodings = [...new Set(weights.flatMap((w) => w.resources.map((r) => r.encoding ?? "none")))].join(", ");
   return [
@@ -107,7 +122,7 @@ function markdown(weights: Weight[], at: Date): string {
     "| --- | --- | --- | --- | --- | --- | --- |",
     ...weights.map(row),
     "",
-    `Content-Encoding seen: ${encodings}. ${plain.length ? `Sent uncompressed: ${plain.join("; ")}.` : "No text resource over 1 kB was sent uncompressed."}`,
+    `Content-Encoding seen: ${encodings}. ${plain.length ? `Sent uncompressed: ${plain.join("; ")}.` : "Every text resource over 1 kB came compressed (next start leaves smaller ones plain)."}`,
     "",
     "Heaviest scripts and fonts of the Hour log:",
     "",
@@ -121,7 +136,11 @@ const now = new Date();
 console.log(`[bench] seeding the demo company for page weight: ${await seedDemo(now)}`);
 const db = getDb();
 const [company] = await db.select().from(s.company).where(eq(s.company.slug, demoCompany.slug));
-const [vessel] = await db.select().from(s.vessel).where(eq(s.vessel.companyId, company!.id)).orderBy(asc(s.vessel.code));
+const [vessel] = await db
+  .select()
+  .from(s.vessel)
+  .where(eq(s.vessel.companyId, company!.id))
+  .orderBy(asc(s.vessel.code));
 const vesselId = vessel!.id;
 const [workOrder] = await db
   .select()
@@ -179,4 +198,7 @@ try {
 const md = markdown(weights, now);
 console.log(`\n${md}\n`);
 writeFileSync("bench-output/weight.md", `${md}\n`);
-writeFileSync("bench-output/weight.json", JSON.stringify({ at: now.toISOString(), hourLogBudget: HOUR_LOG_BUDGET, budget: BUDGET, weights }, null, 2));
+writeFileSync(
+  "bench-output/weight.json",
+  JSON.stringify({ at: now.toISOString(), hourLogBudget: HOUR_LOG_BUDGET, budget: BUDGET, weights }, null, 2),
+);
