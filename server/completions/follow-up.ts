@@ -4,7 +4,7 @@ import "server-only";
 import { and, eq, isNull, ne, sql } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { vessel, workOrder, workOrderStateChange } from "@/db/schema";
-import { workOrderNumber } from "@/server/scheduling/work-order-writer";
+import { workOrderNumber } from "@/server/scheduling/work-order-diff";
 
 /** Days a follow-up has before it is due: a week, long enough to get parts, short enough to matter. */
 export const FOLLOW_UP_DAYS = 7;
