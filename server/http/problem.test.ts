@@ -41,3 +41,16 @@ describe("problemResponse and PostgreSQL unique violations", () => {
     log.mockRestore();
   });
 });
+
+describe("problemResponse when the database cannot be reached", () => {
+  it.each([
+    ["the server refuses connections", Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:5432"), { code: "ECONNREFUSED" })],
+    ["the server is shutting down (57P01)", drizzleError({ code: "57P01", message: "terminating connection due to administrator command" })],
+    ["a pooled connection ended", drizzleError(new Error("Connection terminated unexpectedly"))],
+  ])("is a 503 to retry, not a 500: %s", async (_label, error) => {
+    const response = problemResponse(error);
+    expect(response.status).toBe(503);
+    expect(response.headers.get("retry-after")).toBe("5");
+    expect(((await response.json()) as Problem).detail).toMatch(/cannot be reached/);
+  });
+});

@@ -128,13 +128,31 @@ export function uniqueViolationProblem(error: unknown): AppError | null {
   return new AppError("conflict", known ?? "Someone saved the same thing at the same moment; reload and try again.");
 }
 
+/** Node's socket errors and PostgreSQL's connection and shutdown classes (08, 57P, 53300). */
+const UNREACHABLE = /^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|EPIPE|08\w{3}|57P0[1-3]|53300)$/;
+
+/**
+ * The database cannot be reached (stopped, restarting, out of connections): a 503 the client may
+ * retry, not a 500 with a stack. pg also says so without a code when a pooled connection is gone.
+ */
+export function databaseUnavailableProblem(error: unknown): AppError | null {
+  for (let e = error, depth = 0; e && typeof e === "object" && depth < 4; e = (e as { cause?: unknown }).cause, depth++) {
+    const code = "code" in e ? String(e.code) : "";
+    const message = e instanceof Error ? e.message : "";
+    if (UNREACHABLE.test(code) || /Connection terminated|connect ECONNREFUSED|terminating connection/.test(message)) {
+      return new AppError("unavailable", "The database cannot be reached just now. Try again in a moment; if you were saving, check afterwards that it was saved.");
+    }
+  }
+  return null;
+}
+
 export function problemResponse(error: unknown): Response {
   const appError =
     error instanceof AppError
       ? error
       : error instanceof ZodError
         ? invalidInput(fieldErrorsFromZod(error))
-        : uniqueViolationProblem(error);
+        : (uniqueViolationProblem(error) ?? databaseUnavailableProblem(error));
   if (!appError) {
     console.error(error);
   }
@@ -148,6 +166,9 @@ export function problemResponse(error: unknown): Response {
   };
   return Response.json(body, {
     status: e.status,
-    headers: { "content-type": "application/problem+json" },
+    headers: {
+      "content-type": "application/problem+json",
+      ...(e.code === "unavailable" ? { "retry-after": "5" } : {}),
+    },
   });
 }

@@ -232,3 +232,18 @@ async function readBounded(request: Request, limit: number): Promise<string> {
   }
   return new TextDecoder().decode(Buffer.concat(chunks));
 }
+
+/**
+ * The third door, for the one route that answers anyone and reveals nothing: the health check a
+ * load balancer or a watchdog polls. No session, no body, no query; errors leave as problem+json.
+ */
+export function withoutSession(handler: () => Promise<unknown>) {
+  return async (): Promise<Response> => {
+    try {
+      const result = await handler();
+      return result instanceof Response ? result : Response.json(result);
+    } catch (error) {
+      return problemResponse(error);
+    }
+  };
+}
