@@ -48,6 +48,21 @@ export const EnvSchema = z.object({
   /** Links in e-mail; BETTER_AUTH_URL when unset. */
   KEELSON_APP_URL: httpUrl("the public address for links in e-mail").optional(),
   KEELSON_AUTH_RATE_LIMIT: z.enum(["on", "off"], { error: "expected on or off" }).default("on"),
+  /**
+   * The reverse proxies in front of Keelson (addresses or CIDR ranges, comma-separated): only then
+   * is X-Forwarded-For believed for the per-address sign-in limit (server/auth/sign-in-limit.ts).
+   */
+  KEELSON_TRUSTED_PROXY: z
+    .string()
+    .transform((list) => list.split(",").map((entry) => entry.trim()).filter(Boolean))
+    .pipe(
+      z.array(
+        z.union([z.ipv4(), z.ipv6(), z.cidrv4(), z.cidrv6()], {
+          error: "expected addresses or CIDR ranges separated by commas, e.g. '10.0.0.5' or '10.0.0.0/24, ::1'",
+        }),
+      ),
+    )
+    .default([]),
 
   // The demo: sign-in page lists the demo company's people with this password (scripts/lib.sh demo_env).
   KEELSON_DEMO: flag().default(false),

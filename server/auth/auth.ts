@@ -7,8 +7,18 @@ import { getDb } from "@/db/client";
 import * as schema from "@/db/schema";
 import { markPasswordSet, RESET_LINK_HOURS, sendAccountMail } from "@/server/accounts/account-mail";
 import { env } from "@/server/env";
+import { signInLimitOptions } from "./sign-in-limit";
 
-const { BETTER_AUTH_URL: baseURL, BETTER_AUTH_SECRET, KEELSON_AUTH_RATE_LIMIT } = env();
+const { BETTER_AUTH_URL: baseURL, BETTER_AUTH_SECRET, KEELSON_AUTH_RATE_LIMIT, KEELSON_TRUSTED_PROXY } = env();
+
+// Per address and per account (server/auth/sign-in-limit.ts); the test suite, which signs in dozens
+// of users from one address within seconds, switches both off.
+const signInLimits = signInLimitOptions({
+  enabled: KEELSON_AUTH_RATE_LIMIT === "on",
+  trustedProxies: KEELSON_TRUSTED_PROXY,
+  db: getDb(),
+  secret: BETTER_AUTH_SECRET,
+});
 
 /** The origins of Keelson's own pages: a state-changing request from anywhere else is refused. */
 export const TRUSTED_ORIGINS: readonly string[] = [
@@ -50,18 +60,10 @@ export const auth = betterAuth({
   },
   advanced: {
     useSecureCookies: baseURL.startsWith("https://"),
+    ipAddress: signInLimits.ipAddress,
   },
-  // Sign-in attempts are limited per address; the test suite, which signs in dozens of users
-  // from one address within seconds, switches the limit off.
-  rateLimit: {
-    enabled: KEELSON_AUTH_RATE_LIMIT === "on",
-    window: 60,
-    max: 100,
-    customRules: {
-      "/sign-in/email": { window: 60, max: 10 },
-      "/request-password-reset": { window: 300, max: 5 },
-    },
-  },
+  rateLimit: signInLimits.rateLimit,
+  hooks: signInLimits.hooks,
   telemetry: { enabled: false },
   plugins: [admin(), nextCookies()],
 });
