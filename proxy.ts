@@ -1,16 +1,49 @@
 import { getSessionCookie } from "better-auth/cookies";
 import { type NextRequest, NextResponse } from "next/server";
+import { env } from "@/server/env";
+import { newNonce, pageSecurityPolicy } from "@/server/http/content-security-policy";
 
-// Only the cheap redirect of anonymous visitors; authorisation happens in the access door.
+// Signed-out pages (sign-in, the password links of invitations and resets, one-click unsubscribe)
+// and the route handlers, which answer for themselves: no redirect for these.
+const OPEN_PATHS = /^\/(api|sign-in|forgot-password|set-password|unsubscribe)/;
+
+// Two jobs, both cheap: the redirect of anonymous visitors (authorisation happens in the access
+// door), and the headers that depend on the request or on the configuration — a page's
+// Content-Security-Policy with a fresh nonce, and HSTS over https. The fixed headers are in
+// next.config.mjs.
 export function proxy(request: NextRequest) {
-  if (!getSessionCookie(request)) {
-    const url = new URL("/sign-in", request.url);
-    return NextResponse.redirect(url);
+  const { pathname } = request.nextUrl;
+  if (!OPEN_PATHS.test(pathname) && !getSessionCookie(request)) {
+    return withTransportSecurity(NextResponse.redirect(new URL("/sign-in", request.url)));
   }
-  return NextResponse.next();
+  // Route handlers keep the fixed `default-src 'none'` policy of next.config.mjs.
+  if (pathname.startsWith("/api/")) return withTransportSecurity(NextResponse.next());
+
+  const policy = pageSecurityPolicy({
+    nonce: newNonce(),
+    development: process.env.NODE_ENV === "development",
+    https: isHttps(),
+  });
+  // Next finds the nonce in the request's policy and puts it on its scripts; the root layout
+  // reads the policy the same way for the theme script.
+  const requestHeaders = new Headers(request.headers);
+  requestHeaders.set("content-security-policy", policy);
+  const response = NextResponse.next({ request: { headers: requestHeaders } });
+  response.headers.set("content-security-policy", policy);
+  return withTransportSecurity(response);
+}
+
+function isHttps(): boolean {
+  return env().BETTER_AUTH_URL.startsWith("https://");
+}
+
+/** HSTS only when Keelson is served over https: over http a browser ignores it anyway. */
+function withTransportSecurity(response: NextResponse): NextResponse {
+  if (isHttps()) response.headers.set("strict-transport-security", "max-age=31536000; includeSubDomains");
+  return response;
 }
 
 export const config = {
-  // Signed-out pages: sign-in, the password links of invitations and resets, one-click unsubscribe.
-  matcher: ["/((?!api|_next|sign-in|forgot-password|set-password|unsubscribe|favicon.ico|icon.svg|fonts).*)"],
+  // Everything but the build's static files (hashed chunks, fonts, the icon).
+  matcher: ["/((?!_next/static|_next/image|favicon.ico|icon.svg|fonts/).*)"],
 };

@@ -1,5 +1,7 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
+import { headers } from "next/headers";
+import { nonceOf } from "@/server/http/content-security-policy";
 import "./globals.css";
 
 const inter = localFont({
@@ -26,11 +28,14 @@ export const viewport: Viewport = {
 // Sets the theme before first paint: the stored choice, else the device's preference.
 const themeScript = `try{var t=localStorage.getItem("keelson-theme");if(t==="dark"||(!t&&matchMedia("(prefers-color-scheme: dark)").matches))document.documentElement.classList.add("dark")}catch(e){}`;
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+// Reading the request makes every page render per request, as the nonce of the Content-Security-
+// Policy (proxy.ts) requires: a page prerendered at build would carry scripts without it.
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  const nonce = nonceOf((await headers()).get("content-security-policy"));
   return (
     <html lang="en" className={inter.variable} suppressHydrationWarning>
       <head>
-        <script dangerouslySetInnerHTML={{ __html: themeScript }} />
+        <script nonce={nonce} dangerouslySetInnerHTML={{ __html: themeScript }} />
       </head>
       <body className="min-h-screen font-sans text-sm antialiased">{children}</body>
     </html>

@@ -1,0 +1,9 @@
+// Runs in the browser before any other client code of Keelson's (Next's instrumentation-client).
+// zod 4, on building its first object schema, probes whether it may compile parsers with
+// `new Function("")`. Under the pages' Content-Security-Policy (no 'unsafe-eval', proxy.ts) the
+// probe fails quietly, yet the browser reports a CSP violation on every page with a form. jitless
+// skips the probe (allowsEval in node_modules/zod/v4/core/util.js); parsing is the same, only
+// without the compiled fast path, which the browser would refuse anyway.
+import { z } from "zod";
+
+z.config({ jitless: true });
