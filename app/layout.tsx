@@ -6,7 +6,7 @@ import "./globals.css";
 
 const inter = localFont({
   src: "./fonts/inter-latin-wght-normal.woff2",
-  weight: "100 900",
+  weight: "400 700",
   display: "swap",
   variable: "--font-inter",
 });
