@@ -170,11 +170,12 @@ describe("the access matrix", () => {
       // Last: they write on purpose (a retired vessel would turn later writes into 409s).
       const writersWrong = await mismatches(writers);
 
-      expect([...refusedWrong, ...throughWrong, ...writersWrong], "cells that answered otherwise").toEqual([]);
-      expect(changedByRefused, `tables changed by the ${refused.length} refused requests`).toEqual([]);
-      expect(changedByThrough, `tables changed by the ${through.length} allowed requests with an empty body`).toEqual(
-        [],
-      );
+      // Soft: one run names every wrong cell and every changed table, not only the first kind found.
+      expect.soft([...refusedWrong, ...throughWrong, ...writersWrong], "cells that answered otherwise").toEqual([]);
+      expect.soft(changedByRefused, `tables changed by the ${refused.length} refused requests`).toEqual([]);
+      expect
+        .soft(changedByThrough, `tables changed by the ${through.length} allowed requests with an empty body`)
+        .toEqual([]);
       expect(refused.length + through.length + writers.length + notSent.length).toBe(cells.length);
     },
   );
