@@ -16,9 +16,6 @@ export function proxy(request: NextRequest) {
   if (!OPEN_PATHS.test(pathname) && !getSessionCookie(request)) {
     return withTransportSecurity(NextResponse.redirect(new URL("/sign-in", request.url)));
   }
-  // Route handlers keep the fixed `default-src 'none'` policy of next.config.mjs.
-  if (pathname.startsWith("/api/")) return withTransportSecurity(NextResponse.next());
-
   const policy = pageSecurityPolicy({
     nonce: newNonce(),
     development: process.env.NODE_ENV === "development",
@@ -44,6 +41,9 @@ function withTransportSecurity(response: NextResponse): NextResponse {
 }
 
 export const config = {
-  // Everything but the build's static files (hashed chunks, fonts, the icon).
-  matcher: ["/((?!_next/static|_next/image|favicon.ico|icon.svg|fonts/).*)"],
+  // Pages only: not the build's static files (hashed chunks, fonts, the icon), and not the route
+  // handlers, which answer for themselves (their fixed headers, `default-src 'none'` included, are
+  // in next.config.mjs) — a request through the proxy has its body cut at 10 MB, and a photo may
+  // be up to 10 MB plus its form.
+  matcher: ["/((?!api/|_next/static|_next/image|favicon.ico|icon.svg|fonts/).*)"],
 };
