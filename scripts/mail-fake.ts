@@ -1,9 +1,14 @@
 // The local mail catcher that stands in for a hosted relay in `npm start`, the tests and the bench:
 // an SMTP server on loopback that keeps every message it accepts, and a small HTTP API to read
-// them (the admin's "Caught mail" page and the tests use it).
+// them (the admin's "Caught mail" page and the tests use it). Each message keeps the company the
+// sender named in its X-Keelson-Company header, so one company's administrator reads and clears
+// only that company's messages.
 //
-//   GET    /messages            newest first: id, messageId, from, to, subject, date, text, html, headers
-//   DELETE /messages            forget them all
+//   GET    /messages[?company=][&to=]  newest first: id, messageId, company, from, to, subject, date,
+//                               text, html, headers; `company` (an id) and `to` filter. The app
+//                               always passes its company; the unfiltered form is for the tests.
+//   DELETE /messages[?company=] forget that company's messages (all of them without `company`);
+//                               answers { deleted: <how many> }
 //   POST   /fail?count=N[&to=]  the next N SMTP transactions (to that recipient only, with `to`) get
 //                               451, a temporary failure, as a relay in trouble answers
 //   POST   /slow?ms=N[&to=]     wait N ms before accepting each message (to that recipient only,
@@ -18,9 +23,13 @@ import path from "node:path";
 import { simpleParser } from "mailparser";
 import { SMTPServer, type SMTPServerAddress } from "smtp-server";
 import { envOf } from "../server/env";
-import type { CaughtMessage } from "../server/mail/contract";
+import { COMPANY_HEADER, type CaughtMessage } from "../server/mail/contract";
 
-type Caught = CaughtMessage & { headers: Record<string, string> };
+/** `company`: the sender's X-Keelson-Company header, null on a message without one. */
+type Caught = CaughtMessage & { company: string | null; headers: Record<string, string> };
+
+// mailparser gives header keys in lower case.
+const companyHeaderKey = COMPANY_HEADER.toLowerCase();
 
 const config = envOf("KEELSON_SMTP_PORT", "KEELSON_MAIL_FAKE_PORT", "KEELSON_MAIL_FAKE_FILE");
 const smtpPort = config.KEELSON_SMTP_PORT ?? 2525;
@@ -28,13 +37,16 @@ const apiPort = config.KEELSON_MAIL_FAKE_PORT;
 const file = path.resolve(config.KEELSON_MAIL_FAKE_FILE);
 
 mkdirSync(path.dirname(file), { recursive: true });
-const messages: Caught[] = existsSync(file)
+let messages: Caught[] = existsSync(file)
   ? readFileSync(file, "utf8")
       .split("\n")
       .filter(Boolean)
       .map((line) => JSON.parse(line) as Caught)
+      // Lines kept before messages had their own `company` field still have the header.
+      .map((m) => ({ ...m, company: m.company ?? m.headers[companyHeaderKey] ?? null }))
   : [];
-let nextId = messages.length + 1;
+// After a company's messages were cleared, the count no longer tells the next free id.
+let nextId = messages.reduce((max, m) => Math.max(max, Number(m.id)), 0) + 1;
 const failures: { to: string | null; left: number }[] = [];
 /** Delay before the 250, by recipient ("*" for every message). */
 const slowMs = new Map<string, number>();
@@ -85,6 +97,7 @@ const smtp = new SMTPServer({
         const caught: Caught = {
           id: String(nextId++),
           messageId: parsed.messageId ?? null,
+          company: headers[companyHeaderKey] ?? null,
           from: parsed.from?.text ?? session.envelope.mailFrom?.toString() ?? "",
           to: session.envelope.rcptTo.map((r) => r.address),
           subject: parsed.subject ?? "",
@@ -116,15 +129,21 @@ function send(res: ServerResponse, status: number, body: unknown) {
 const api = createServer((req, res) => {
   const url = new URL(req.url ?? "/", "http://127.0.0.1");
   if (req.method === "GET" && url.pathname === "/health") return send(res, 200, { ok: true, smtpPort });
+  const company = url.searchParams.get("company");
+  const ofCompany = (m: Caught) => company === null || m.company === company;
   if (req.method === "GET" && url.pathname === "/messages") {
     const to = url.searchParams.get("to")?.toLowerCase();
-    const list = [...messages].reverse().filter((m) => !to || m.to.some((t) => t.toLowerCase() === to));
+    const list = [...messages]
+      .reverse()
+      .filter((m) => ofCompany(m) && (!to || m.to.some((t) => t.toLowerCase() === to)));
     return send(res, 200, list);
   }
   if (req.method === "DELETE" && url.pathname === "/messages") {
-    messages.length = 0;
-    writeFileSync(file, "");
-    return send(res, 200, { deleted: true });
+    const kept = messages.filter((m) => !ofCompany(m));
+    const deleted = messages.length - kept.length;
+    messages = kept;
+    writeFileSync(file, kept.map((m) => JSON.stringify(m) + "\n").join(""));
+    return send(res, 200, { deleted });
   }
   if (req.method === "POST" && url.pathname === "/fail") {
     const count = Number(url.searchParams.get("count") ?? 1);

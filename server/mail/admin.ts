@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, inArray, isNotNull, lt, or, sql } from "drizzle-orm";
+import { and, desc, eq, inArray, lt, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
@@ -30,9 +30,18 @@ function toOutboxRow(r: OutboxRecord): OutboxRow {
 }
 
 /**
- * The admin's view of the company's mail: the outbox, and in development the messages the local
- * fake caught. The fake holds every company's mail; only messages whose Message-ID belongs to one
- * of this company's outbox rows are shown.
+ * The local fake's messages of one company (the sender's X-Keelson-Company header): the fake holds
+ * every company's mail, and the app never asks it for another company's, nor for all.
+ */
+function companyMessagesUrl(fakeUrl: string, companyId: string): URL {
+  const url = new URL("/messages", fakeUrl);
+  url.searchParams.set("company", companyId);
+  return url;
+}
+
+/**
+ * The admin's view of the company's mail: the outbox, and in development the company's messages
+ * the local fake caught.
  */
 export async function loadAdminMail(access: Access): Promise<AdminMail> {
   const db = getDb();
@@ -51,33 +60,23 @@ export async function loadAdminMail(access: Access): Promise<AdminMail> {
     return { delivery: { kind: "relay", host, port }, caught: null, caughtProblem: null, outbox };
   }
 
-  const sent = await db
-    .select({ messageId: mailOutbox.messageId })
-    .from(mailOutbox)
-    .where(and(eq(mailOutbox.companyId, companyId), isNotNull(mailOutbox.messageId)))
-    .orderBy(desc(mailOutbox.sentAt))
-    .limit(1000);
-  const ours = new Set(sent.map((r) => r.messageId));
   try {
-    const response = await fetch(new URL("/messages", fakeUrl), {
+    const response = await fetch(companyMessagesUrl(fakeUrl, companyId), {
       cache: "no-store",
       signal: AbortSignal.timeout(5000),
     });
     if (!response.ok) throw new Error(`it answered ${response.status}`);
-    const all = (await response.json()) as CaughtMessage[];
-    const caught = all
-      .filter((m) => m.messageId !== null && ours.has(m.messageId))
-      .slice(0, CAUGHT_ROWS)
-      .map(({ id, messageId, from, to, subject, date, text, html }) => ({
-        id,
-        messageId,
-        from,
-        to,
-        subject,
-        date,
-        text,
-        html,
-      }));
+    const ours = (await response.json()) as CaughtMessage[];
+    const caught = ours.slice(0, CAUGHT_ROWS).map(({ id, messageId, from, to, subject, date, text, html }) => ({
+      id,
+      messageId,
+      from,
+      to,
+      subject,
+      date,
+      text,
+      html,
+    }));
     return { delivery: { kind: "fake", url: fakeUrl }, caught, caughtProblem: null, outbox };
   } catch (error) {
     const reason = error instanceof Error ? error.message : String(error);
@@ -183,24 +182,25 @@ export async function cancelMail(access: Access, messageId: string): Promise<Mai
 }
 
 /**
- * Empties the local mail catcher (development). The catcher is one for the whole set-up and
- * forgets by all or nothing, so this clears every company's caught messages; the outbox stays.
+ * Clears the company's messages from the local mail catcher (development); other companies'
+ * messages stay in it, and the outbox stays as it is.
  */
-export async function clearCaughtMail(): Promise<ClearCaughtResult> {
+export async function clearCaughtMail(access: Access): Promise<ClearCaughtResult> {
   const fakeUrl = env().KEELSON_MAIL_FAKE_URL;
   if (!fakeUrl) {
     throw new AppError("not-found", "There is no mail catcher here: mail goes to the configured relay.");
   }
   try {
-    const response = await fetch(new URL("/messages", fakeUrl), {
+    const response = await fetch(companyMessagesUrl(fakeUrl, access.company.id), {
       method: "DELETE",
       cache: "no-store",
       signal: AbortSignal.timeout(5000),
     });
     if (!response.ok) throw new Error(`it answered ${response.status}`);
+    const { deleted } = (await response.json()) as { deleted: number };
+    return { cleared: deleted };
   } catch (error) {
     const reason = error instanceof Error ? error.message : String(error);
     throw new AppError("internal", `The mail catcher at ${fakeUrl} did not answer (${reason}); nothing was cleared.`);
   }
-  return { cleared: true };
 }

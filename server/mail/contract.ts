@@ -1,6 +1,12 @@
 // What the admin's "Caught mail" page receives (GET /api/admin/mail) and its actions answer.
-// Types only: safe in the client.
+// Types and one header name only: safe in the client.
 import type { MailKind } from "./outbox";
+
+/**
+ * The header the sender puts on every message, naming its company's id (an id, never a name), so
+ * the local mail catcher can show and clear each company's messages apart from the others'.
+ */
+export const COMPANY_HEADER = "X-Keelson-Company";
 
 /** A message the local SMTP fake caught, as its HTTP API answers (scripts/mail-fake.ts). */
 export type CaughtMessage = {
@@ -31,8 +37,8 @@ export type OutboxRow = {
 /** The answer to an administrator's retry or cancel: the message as it now stands. */
 export type MailActionResult = { message: OutboxRow };
 
-/** The answer to clearing the local mail catcher (development only). */
-export type ClearCaughtResult = { cleared: true };
+/** The answer to clearing the company's messages from the local mail catcher (development only). */
+export type ClearCaughtResult = { cleared: number };
 
 export type AdminMail = {
   /** Where messages go: the local fake (its messages listed) or the configured relay. */

@@ -2,6 +2,7 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { env } from "@/server/env";
+import { COMPANY_HEADER } from "./contract";
 import { oneClickUnsubscribeUrl } from "./links";
 import { isAccountKind, type MailKind } from "./outbox";
 import { mailTransport, smtpConfig } from "./transport";
@@ -93,7 +94,8 @@ async function sendOne(
       html: row.html,
       text: row.text,
       messageId,
-      headers: unsubscribeHeaders(row),
+      // Every row has its company, account mail too: the local catcher keeps companies apart by it.
+      headers: { [COMPANY_HEADER]: row.company_id, ...unsubscribeHeaders(row) },
     });
   } catch (error) {
     const failed = row.attempts >= maxAttempts;

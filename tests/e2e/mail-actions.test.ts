@@ -80,7 +80,7 @@ describe("Company → Mail actions", () => {
     // Clearing the catcher asks first (and is left unconfirmed: other tests read the catcher).
     await page.getByRole("button", { name: "Clear caught mail" }).click();
     const clear = page.getByRole("dialog", { name: "Clear the caught mail?" });
-    await clear.getByText("those of other companies on this set-up too", { exact: false }).waitFor();
+    await clear.getByText("other companies’ messages on this set-up stay in it", { exact: false }).waitFor();
     await page.setViewportSize({ width: 820, height: 1100 });
     await screenshot(page, "mail-actions-clear-tablet");
     await page.keyboard.press("Escape");

@@ -170,8 +170,8 @@ describe("access", () => {
     }
     expect(await rowOf(id)).toEqual(before);
 
-    // Clearing the catcher: only the door is checked here. The catcher is shared by every test
-    // file running at the same time, so no test empties it.
+    // Clearing the catcher: only the door is checked here; caught-per-company.test.ts clears a
+    // company's own messages and checks another company's stay.
     expect((await api(null, "DELETE", "/api/admin/mail/caught")).status).toBe(401);
     expect((await api(engineer, "DELETE", "/api/admin/mail/caught")).status).toBe(403);
   });

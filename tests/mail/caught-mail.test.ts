@@ -12,7 +12,7 @@ import { enqueueMail } from "@/server/mail/outbox";
 import { BASE_URL, openPage, screenshot, signInThroughForm } from "../support/browser";
 import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
 import { api, signIn } from "../support/http";
-import { askTheWorkerToSend, failNext, freshAddress, testMail, waitFor } from "./mail-fake";
+import { askTheWorkerToSend, caughtOfCompany, failNext, freshAddress, testMail, waitFor } from "./mail-fake";
 
 const db = testDb();
 let f: Fixture;
@@ -150,5 +150,24 @@ describe("Company → Mail", () => {
     expect(await page.getByRole("status").textContent()).toContain("no longer gets the daily due digest");
     await page.evaluate(() => document.documentElement.classList.add("dark"));
     await screenshot(page, "unsubscribe-done-dark");
+    await page.evaluate(() => document.documentElement.classList.remove("dark"));
+  }, 60_000);
+
+  it("clears the company's caught mail only, and says how many", async () => {
+    await page.goto(`${BASE_URL}/admin/mail`);
+    await page
+      .getByRole("list", { name: "Caught messages" })
+      .getByRole("button", { name: new RegExp(SUBJECT) })
+      .waitFor();
+    await page.getByRole("button", { name: "Clear caught mail" }).click();
+    const dialog = page.getByRole("dialog", { name: "Clear the caught mail?" });
+    await dialog.getByText("other companies’ messages on this set-up stay in it", { exact: false }).waitFor();
+    await dialog.getByRole("button", { name: "Clear caught mail" }).click();
+    await page.getByText("Cleared 1 caught message of your company.", { exact: false }).waitFor();
+    await page.getByText("Nothing caught yet.", { exact: false }).waitFor();
+    await screenshot(page, "mail-admin-cleared");
+    expect(await caughtOfCompany(f.companyId)).toEqual([]);
+    // The other company's message is still in the catcher.
+    expect((await caughtOfCompany(other.companyId)).map((m) => m.subject)).toEqual([OTHER]);
   }, 60_000);
 });

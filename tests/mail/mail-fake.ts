@@ -11,7 +11,8 @@ import { testDb } from "../support/fixtures";
 
 const FAKE = process.env.KEELSON_MAIL_FAKE_URL;
 
-export type Caught = CaughtMessage & { headers: Record<string, string> };
+/** As the fake answers: `company` is the sender's X-Keelson-Company header (null without one). */
+export type Caught = CaughtMessage & { company: string | null; headers: Record<string, string> };
 
 function fake(path: string): string {
   if (!FAKE) throw new Error("KEELSON_MAIL_FAKE_URL is not set: run the tests through scripts/test.sh");
@@ -20,6 +21,12 @@ function fake(path: string): string {
 
 export async function caughtFor(address: string): Promise<Caught[]> {
   const response = await fetch(fake(`/messages?to=${encodeURIComponent(address)}`));
+  return (await response.json()) as Caught[];
+}
+
+/** What the fake holds of one company (`?company=`, as the app asks). */
+export async function caughtOfCompany(companyId: string): Promise<Caught[]> {
+  const response = await fetch(fake(`/messages?company=${encodeURIComponent(companyId)}`));
   return (await response.json()) as Caught[];
 }
 

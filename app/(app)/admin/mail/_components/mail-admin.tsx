@@ -33,7 +33,7 @@ function Delivery({ data, refreshing, onRefresh }: { data: AdminMail; refreshing
           {data.delivery.kind === "fake" ? (
             <>
               This is a development set-up: messages go to the local mail catcher, not to anyone’s inbox. The catcher
-              keeps them for you to read here.
+              keeps them for you to read here; you see your company’s messages only.
             </>
           ) : (
             <>
@@ -75,12 +75,12 @@ function CaughtMail({ messages, problem, now }: { messages: CaughtMessage[]; pro
       {confirming && (
         <ConfirmPanel
           title="Clear the caught mail?"
-          subtitle="The local mail catcher of this development set-up"
+          subtitle="Your company’s messages in the local mail catcher of this development set-up"
           confirmLabel="Clear caught mail"
           tone="alarm"
           onConfirm={async () => {
-            await clear.mutateAsync();
-            return "The mail catcher is empty. The outbox is as it was; nothing is sent again.";
+            const { cleared } = await clear.mutateAsync();
+            return `${clearedWords(cleared)} The outbox is as it was; nothing is sent again.`;
           }}
           onDone={(message) => {
             setConfirming(false);
@@ -88,10 +88,7 @@ function CaughtMail({ messages, problem, now }: { messages: CaughtMessage[]; pro
           }}
           onClose={() => setConfirming(false)}
         >
-          <p>
-            The catcher forgets every message it holds, those of other companies on this set-up too: it keeps no company
-            apart.
-          </p>
+          <p>The catcher forgets your company’s messages; other companies’ messages on this set-up stay in it.</p>
           <p>The outbox is not touched: sent messages stay marked sent and are not sent again.</p>
         </ConfirmPanel>
       )}
@@ -142,6 +139,11 @@ function CaughtMail({ messages, problem, now }: { messages: CaughtMessage[]; pro
       )}
     </section>
   );
+}
+
+function clearedWords(cleared: number): string {
+  if (cleared === 0) return "The catcher held none of your company’s messages.";
+  return `Cleared ${cleared} caught ${cleared === 1 ? "message" : "messages"} of your company.`;
 }
 
 function MessageViewer({ message }: { message: CaughtMessage }) {
