@@ -2,7 +2,6 @@
 // handlers. Days are the ship's days ("YYYY-MM-DD" in the vessel's zone); `end` is exclusive, as
 // FullCalendar gives its visible range.
 import { z } from "zod";
-import { enteredDay } from "@/server/http/dates";
 import { HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
 import type { WorkOrderView } from "@/server/work-orders/view";
 
@@ -34,11 +33,7 @@ export const CalendarQuery = z.object({ start: shipDay("start"), end: shipDay("e
 export type CalendarQuery = z.output<typeof CalendarQuery>;
 
 export const PlannedDateInput = z.object({
-  plannedDate: enteredDay(
-    "planned",
-    "The planned day",
-    "plannedDate is a ship’s day, YYYY-MM-DD, or null to clear it.",
-  ).nullable(),
+  plannedDate: z.iso.date({ message: "plannedDate is a ship’s day, YYYY-MM-DD, or null to clear it." }).nullable(),
 });
 export type PlannedDateInput = z.output<typeof PlannedDateInput>;
 

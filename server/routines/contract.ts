@@ -5,9 +5,7 @@ import { z } from "zod";
 import { optionalText, requiredText } from "@/server/http/text-fields";
 import type { RoutineCaution, RoutineMeasurement } from "@/db/schema/maintenance";
 import { AppError } from "@/server/http/problem";
-import { MAX_JOB_MAN_HOURS } from "@/server/completions/contract";
-import { enteredDay } from "@/server/http/dates";
-import { MAX_METER_HOURS, MeterValue, SHIP_DAY_FORMAT } from "@/server/readings/contract";
+import { MeterValue, ShipDay } from "@/server/readings/contract";
 import { calendarRuleProblem, parseCalendarRule } from "@/server/scheduling/calendar-rule";
 import { calendarRuleFromForm, type CalendarRuleForm } from "@/server/scheduling/calendar-rule-words";
 
@@ -33,10 +31,10 @@ export const CAUTIONS = [
 export const CALENDAR_UNITS = ["day", "week", "month", "year"] as const;
 export const WEEKDAYS = ["MO", "TU", "WE", "TH", "FR", "SA", "SU"] as const;
 
-/** A number typed with at most one decimal, up to `max`; an empty field is no value. */
-function tenths(what: string, { min, above, max }: { min?: number; above?: number; max: number }) {
+/** A number typed with at most one decimal; an empty field is no value. */
+function tenths(what: string, { min, above }: { min?: number; above?: number }) {
   const limit = above !== undefined ? `above ${above}` : `of ${min ?? 0} or more`;
-  const message = `${what}: enter a number ${limit} and at most ${max.toLocaleString("en-GB")}, with at most one decimal.`;
+  const message = `${what}: enter a number ${limit}, with at most one decimal.`;
   return z
     .union([z.number(), z.string(), z.null()], { message })
     .optional()
@@ -46,7 +44,7 @@ function tenths(what: string, { min, above, max }: { min?: number; above?: numbe
       const text = typeof raw === "number" ? String(raw) : raw.trim().replace(/[\s,_]/g, "");
       const value = Number(text);
       const fits = /^\d+(\.\d)?$/.test(text) && (above !== undefined ? value > above : value >= (min ?? 0));
-      if (!fits || value > max) {
+      if (!fits || value > 9_999_999.9) {
         ctx.addIssue({ code: "custom", message });
         return z.NEVER;
       }
@@ -78,13 +76,12 @@ const fields = {
     .array(requiredText("checklist step", 300), { message: "The checklist is a list of steps." })
     .max(100, { message: "Keep the checklist to 100 steps or fewer." })
     .optional(),
-  intervalHours: tenths("Interval in running hours", { above: 0, max: MAX_METER_HOURS }),
+  intervalHours: tenths("Interval in running hours", { above: 0 }),
   calendar: CalendarForm.nullish(),
   calendarRule: z.string({ message: "The calendar rule must be text." }).trim().nullish(),
   anchored: z.boolean({ message: "Anchored must be yes or no." }).optional(),
-  anchorDate: enteredDay("anniversary", "The anniversary date", SHIP_DAY_FORMAT).nullish(),
-  // The completion's limit for one job (numeric(6,1) would hold 99,999.9).
-  estimatedManHours: tenths("Estimated man-hours", { min: 0, max: MAX_JOB_MAN_HOURS }),
+  anchorDate: ShipDay.nullish(),
+  estimatedManHours: tenths("Estimated man-hours", { min: 0 }),
   rank: z.enum(RANKS, { message: "Choose the rank who does the job." }),
   needsEngineStop: z.boolean({ message: "Engine stop must be yes or no." }).optional(),
   critical: z.boolean({ message: "Critical must be yes or no." }).optional(),
@@ -93,7 +90,7 @@ const fields = {
   measurements: z.array(Measurement).max(50, { message: "Keep it to 50 measurements or fewer." }).optional(),
   spareParts: optionalText("spare parts", 2000),
   cautions: z.array(z.enum(CAUTIONS, { message: "Unknown caution." })).optional(),
-  baselineAt: enteredDay("history", "The day last done", SHIP_DAY_FORMAT).nullish(),
+  baselineAt: ShipDay.nullish(),
   baselineHours: z.union([MeterValue, z.null()]).optional(),
   toleranceRuleId: z.uuid({ message: "Choose one of the company’s tolerance rules." }).nullish(),
 };
