@@ -43,7 +43,13 @@ export const BacklogQuery = z.object({
   deferral: z.enum(["pending"], { message: "deferral is pending (or left out)." }).optional(),
   q: z.string().trim().max(80, { message: "Search at most 80 characters." }).optional(),
   sort: z.enum(BACKLOG_SORTS, { message: `sort is one of ${BACKLOG_SORTS.join(", ")}.` }).default("urgency"),
-  page: z.coerce.number({ message: "page is a number." }).int().min(1, { message: "page starts at 1." }).default(1),
+  // A vessel's backlog is thousands of rows, not millions: 10,000 pages keeps the offset small.
+  page: z.coerce
+    .number({ message: "page is a number." })
+    .int()
+    .min(1, { message: "page starts at 1." })
+    .max(10_000, { message: "page is at most 10,000." })
+    .default(1),
   pageSize: z.coerce
     .number({ message: "pageSize is a number." })
     .int()

@@ -2,6 +2,7 @@
 // handlers. Days are the ship's days ("YYYY-MM-DD" in the vessel's zone); `end` is exclusive, as
 // FullCalendar gives its visible range.
 import { z } from "zod";
+import { enteredDay } from "@/server/http/dates";
 import { HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
 import type { WorkOrderView } from "@/server/work-orders/view";
 
@@ -33,7 +34,11 @@ export const CalendarQuery = z.object({ start: shipDay("start"), end: shipDay("e
 export type CalendarQuery = z.output<typeof CalendarQuery>;
 
 export const PlannedDateInput = z.object({
-  plannedDate: z.iso.date({ message: "plannedDate is a ship’s day, YYYY-MM-DD, or null to clear it." }).nullable(),
+  plannedDate: enteredDay(
+    "planned",
+    "The planned day",
+    "plannedDate is a ship’s day, YYYY-MM-DD, or null to clear it.",
+  ).nullable(),
 });
 export type PlannedDateInput = z.output<typeof PlannedDateInput>;
 

@@ -3,15 +3,20 @@
 // route handlers.
 import { z } from "zod";
 import type { RecordedMeasurement, RoutineCaution, RoutineMeasurement } from "@/db/schema";
-import { MeterValue, ShipClock, ShipDay } from "@/server/readings/contract";
+import { enteredDay } from "@/server/http/dates";
+import { MeterValue, SHIP_DAY_FORMAT, ShipClock } from "@/server/readings/contract";
 import { DUE_FIELDS, HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
 import type { WorkOrderView } from "@/server/work-orders/view";
+
+/** The most man-hours one job may take, spent or estimated (a routine's estimate has the same limit). */
+export const MAX_JOB_MAN_HOURS = 9_999;
 
 /** A number as typed on a tablet: "0.42", "0,42" or a number; a blank is not 0. */
 function typedNumber(message: string) {
   return z.union([z.number(), z.string()], { message }).transform((raw, ctx) => {
     const text = typeof raw === "number" ? String(raw) : raw.trim().replace(",", ".");
-    const ok = typeof raw === "number" ? Number.isFinite(raw) : /^-?\d+(\.\d+)?$/.test(text);
+    // A string of 400 digits is Infinity, which JSON would store as null.
+    const ok = Number.isFinite(Number(text)) && (typeof raw === "number" || /^-?\d+(\.\d+)?$/.test(text));
     if (!ok) {
       ctx.addIssue({ code: "custom", message });
       return z.NEVER;
@@ -38,7 +43,7 @@ export type MeasurementValue = z.infer<typeof MeasurementValue>;
 
 export const CompletionInput = z
   .object({
-    doneOn: ShipDay,
+    doneOn: enteredDay("recorded", "The day the job was done", SHIP_DAY_FORMAT),
     time: ShipClock,
     /** The counter's total hours when the job was done; required for an hours routine (checked by the server). */
     counterHours: z.union([z.literal("").transform(() => null), MeterValue]).nullish(),
@@ -46,7 +51,7 @@ export const CompletionInput = z
       z
         .number()
         .positive({ message: "Man-hours must be more than 0." })
-        .max(9_999, { message: "That is more man-hours than one job takes (at most 9,999)." }),
+        .max(MAX_JOB_MAN_HOURS, { message: "That is more man-hours than one job takes (at most 9,999)." }),
     ),
     checklist: z.array(ChecklistTick).max(200, { message: "At most 200 checklist steps." }),
     measurements: z.array(MeasurementValue).max(100, { message: "At most 100 measurements." }),

@@ -3,7 +3,8 @@
 import { z } from "zod";
 import type { WorkOrderState } from "@/db/schema/work-order-states";
 import type { WorkOrderDetail } from "@/server/completions/contract";
-import { ShipDay } from "@/server/readings/contract";
+import { enteredDay } from "@/server/http/dates";
+import { MAX_METER_HOURS, SHIP_DAY_FORMAT } from "@/server/readings/contract";
 import { HEADING_FIELDS } from "@/server/work-orders/fields";
 import type { WorkOrderView } from "@/server/work-orders/view";
 
@@ -15,6 +16,11 @@ export const REJECT_NOTE_MIN = 3;
 const LimitHours = z.union([z.number(), z.string()]).transform((raw, ctx) => {
   const text = typeof raw === "number" ? String(raw) : raw.trim().replace(/[\s_]/g, "");
   const normalised = /^\d{1,3}(,\d{3})+(\.\d+)?$/.test(text) ? text.replace(/,/g, "") : text.replace(",", ".");
+  // No higher than a meter can show (the readings' limit, well inside the hours column).
+  if (Number(normalised) > MAX_METER_HOURS) {
+    ctx.addIssue({ code: "custom", message: "That is more running hours than a meter can show (9,999,999.9 h)." });
+    return z.NEVER;
+  }
   if (!/^\d+(\.\d)?$/.test(normalised) || Number(normalised) <= 0) {
     ctx.addIssue({
       code: "custom",
@@ -39,7 +45,7 @@ export const DeferralRequestInput = z
         message: `Give the reason in at least ${REASON_MIN} characters: what is missing, who is awaited, and why it is safe to wait.`,
       })
       .max(REASON_MAX, { message: `Keep the reason to ${REASON_MAX.toLocaleString("en-GB")} characters or fewer.` }),
-    proposedDueDay: orBlank(ShipDay),
+    proposedDueDay: orBlank(enteredDay("planned", "The proposed due day", SHIP_DAY_FORMAT)),
     proposedDueHours: orBlank(LimitHours),
   })
   .superRefine((input, ctx) => {

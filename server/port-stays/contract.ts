@@ -4,9 +4,10 @@
 // the server turns them into instants with the vessel's zone (queries.ts).
 import { z } from "zod";
 import type { CrewCapacity } from "@/db/schema/maintenance";
+import { dayRangeProblem, enteredDay } from "@/server/http/dates";
 import { optionalText, requiredText } from "@/server/http/text-fields";
 import type { DayUsage, LeftOutReason, PlanningState, Tier } from "@/server/planning/proposal";
-import { ShipDay } from "@/server/readings/contract";
+import { SHIP_DAY_FORMAT } from "@/server/readings/contract";
 import { RANKS } from "@/server/routines/contract";
 
 export const MAX_STAY_DAYS = 30;
@@ -23,15 +24,19 @@ function shipTime(what: string) {
     .string({ message: `Enter the ${what} as a date and ship’s time.` })
     .min(1, { message: `Enter the ${what}: date and ship’s time.`, abort: true })
     .refine(
-    (raw) => {
-      const m = SHIP_TIME.exec(raw);
-      if (!m) return false;
-      const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
-      const date = new Date(Date.UTC(y, mo - 1, d));
-      return date.getUTCFullYear() === y && date.getUTCMonth() === mo - 1 && date.getUTCDate() === d;
-    },
-    { message: `Enter the ${what} as a date and 24-hour ship’s time, e.g. 2026-12-04T07:00.` },
-  );
+      (raw) => {
+        const m = SHIP_TIME.exec(raw);
+        if (!m) return false;
+        const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
+        const date = new Date(Date.UTC(y, mo - 1, d));
+        return date.getUTCFullYear() === y && date.getUTCMonth() === mo - 1 && date.getUTCDate() === d;
+      },
+      { message: `Enter the ${what} as a date and 24-hour ship’s time, e.g. 2026-12-04T07:00.`, abort: true },
+    )
+    .superRefine((raw, ctx) => {
+      const problem = dayRangeProblem("planned", `The ${what}`, raw.slice(0, 10));
+      if (problem) ctx.addIssue({ code: "custom", message: problem });
+    });
 }
 
 /** A number of hours with at most one decimal, as Keelson stores hours (tenths). */
@@ -117,7 +122,7 @@ export const DeleteStayQuery = z.object({
 
 export const PackageItemInput = z.object({
   workOrderId: z.uuid({ message: "This is not a work-order id." }),
-  date: ShipDay,
+  date: enteredDay("planned", "The job’s day in the stay", SHIP_DAY_FORMAT),
   /** Why the work is in the package: the proposal's sentence, or the chief's own words. */
   reason: optionalText("reason", 500),
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { instantOfShipDateTime, shipDateTimeOf, stayDays } from "./stay-days";
+import { instantOfShipDateTime, MAX_STAY_SHIP_DAYS, shipDateTimeOf, stayDays } from "./stay-days";
 
 describe("a port stay's ship's days", () => {
   it("counts the arrival's and the departure's day, across the end of summer time", () => {
@@ -28,5 +28,20 @@ describe("a port stay's ship's days", () => {
     const instant = new Date("2026-12-03T20:00:00Z");
     expect(shipDateTimeOf(instant, "Pacific/Auckland")).toBe("2026-12-04T09:00");
     expect(stayDays(instant, new Date("2026-12-04T05:00:00Z"), "Pacific/Auckland")).toEqual(["2026-12-04"]);
+  });
+
+  it("walks a stored stay across the end of year 9999 by counting, not by comparing day texts", () => {
+    // The old loop compared "10000-01-01" < "9999-12-31" as text and ran about 97 million steps.
+    const days = stayDays(new Date("9999-12-31T06:00:00Z"), new Date("9999-12-31T20:00:00Z"), "Pacific/Kiritimati");
+    // UTC+14 aboard: the arrival is on 31 Dec 9999 at 20:00, the departure on 1 Jan 10000.
+    expect(days).toHaveLength(2);
+    expect(days[0]).toBe("9999-12-31");
+  });
+
+  it("never gives more than the longest stay's days, whatever is stored", () => {
+    const days = stayDays(new Date("2026-01-01T00:00:00Z"), new Date("9999-12-31T00:00:00Z"), "UTC");
+    expect(days).toHaveLength(MAX_STAY_SHIP_DAYS);
+    expect(days.at(-1)).toBe("2026-01-31");
+    expect(stayDays(new Date("2026-01-02T00:00:00Z"), new Date("2026-01-01T00:00:00Z"), "UTC")).toEqual([]);
   });
 });

@@ -1,15 +1,21 @@
 // The ship's days a port stay covers, and the ship's-clock strings its form edits. Pure.
 import { instantOfShipTime, shipClock, shipDay } from "@/server/format/hours";
-import { addShipDays, shipDateFromKey, shipDateKey } from "@/server/scheduling/ship-date";
+import { addShipDays, shipDateFromKey, shipDateKey, shipDaysBetween } from "@/server/scheduling/ship-date";
+import { MAX_STAY_DAYS } from "./contract";
 
-/** Every ship's day from the arrival's to the departure's, both included. */
+/**
+ * The most days a stay can cover: the contract's longest stay, plus the arrival's day when it
+ * starts mid-day. Bad data already stored (a stay into year 10000) is cut here, never walked.
+ */
+export const MAX_STAY_SHIP_DAYS = MAX_STAY_DAYS + 1;
+
+/** Every ship's day from the arrival's to the departure's, both included (at most MAX_STAY_SHIP_DAYS). */
 export function stayDays(arrivesAt: Date, departsAt: Date, timeZone: string): string[] {
-  const last = shipDay(departsAt, timeZone);
-  const days: string[] = [];
-  for (let d = shipDateFromKey(shipDay(arrivesAt, timeZone)); shipDateKey(d) <= last; d = addShipDays(d, 1)) {
-    days.push(shipDateKey(d));
-  }
-  return days;
+  const first = shipDateFromKey(shipDay(arrivesAt, timeZone));
+  // Counted, not compared as text: "10000-01-01" sorts before "9999-12-31".
+  const span = shipDaysBetween(first, shipDateFromKey(shipDay(departsAt, timeZone))) + 1;
+  const count = Number.isFinite(span) ? Math.min(Math.max(span, 0), MAX_STAY_SHIP_DAYS) : 0;
+  return Array.from({ length: count }, (_, i) => shipDateKey(addShipDays(first, i)));
 }
 
 /** "2026-12-04T07:00" in the vessel's zone → the instant. */

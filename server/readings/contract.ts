@@ -1,5 +1,6 @@
 // The Hour log's input and output, shared by the form (react-hook-form + zod) and the route handler.
 import { z } from "zod";
+import { enteredDay } from "@/server/http/dates";
 
 export const MAX_METER_HOURS = 9_999_999.9;
 
@@ -24,7 +25,9 @@ export const MeterValue = z
     return value;
   });
 
-export const ShipDay = z.iso.date({ message: "Pick the ship's day as a date (YYYY-MM-DD)." });
+export const SHIP_DAY_FORMAT = "Pick the ship's day as a date (YYYY-MM-DD).";
+/** The ship's day of a reading: something that happened (server/http/dates.ts says the range). */
+export const ShipDay = enteredDay("recorded", "The reading’s ship’s day", SHIP_DAY_FORMAT);
 export const ShipClock = z
   .string()
   .regex(/^([01]\d|2[0-3]):[0-5]\d$/, { message: "Enter the ship's time as HH:MM, 24-hour clock." });

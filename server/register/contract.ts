@@ -1,7 +1,8 @@
 // The machinery register's input and output, shared by the page's forms and the route handlers.
 import { z } from "zod";
 import { optionalText, requiredText } from "@/server/http/text-fields";
-import { MeterValue, ShipClock, ShipDay } from "@/server/readings/contract";
+import { enteredDay } from "@/server/http/dates";
+import { MeterValue, SHIP_DAY_FORMAT, ShipClock } from "@/server/readings/contract";
 import type { EffectiveCounter } from "./tree";
 
 /** The database's own check on component codes (db/schema/machinery.ts, component_code_format). */
@@ -119,7 +120,7 @@ function namedMeterValue<E extends number | null>(what: string, whenEmpty: E) {
 export const MeterReplacementInput = z.object({
   /** When the new meter was fitted, on the ship's clock. */
   replacedAt: z.object(
-    { shipDay: ShipDay, time: ShipClock },
+    { shipDay: enteredDay("recorded", "The day the meter was replaced", SHIP_DAY_FORMAT), time: ShipClock },
     { message: "Give the ship’s day and time when the meter was replaced." },
   ),
   /** What the old meter showed when it came off; null when it could not be read. */

@@ -5,7 +5,9 @@ import { z } from "zod";
 import { optionalText, requiredText } from "@/server/http/text-fields";
 import type { RoutineCaution, RoutineMeasurement } from "@/db/schema/maintenance";
 import { AppError } from "@/server/http/problem";
-import { MeterValue, ShipDay } from "@/server/readings/contract";
+import { MAX_JOB_MAN_HOURS } from "@/server/completions/contract";
+import { enteredDay } from "@/server/http/dates";
+import { MAX_METER_HOURS, MeterValue, SHIP_DAY_FORMAT } from "@/server/readings/contract";
 import { calendarRuleProblem, parseCalendarRule } from "@/server/scheduling/calendar-rule";
 import { calendarRuleFromForm, type CalendarRuleForm } from "@/server/scheduling/calendar-rule-words";
 
@@ -31,10 +33,10 @@ export const CAUTIONS = [
 export const CALENDAR_UNITS = ["day", "week", "month", "year"] as const;
 export const WEEKDAYS = ["MO", "TU", "WE", "TH", "FR", "SA", "SU"] as const;
 
-/** A number typed with at most one decimal; an empty field is no value. */
-function tenths(what: string, { min, above }: { min?: number; above?: number }) {
+/** A number typed with at most one decimal, up to `max`; an empty field is no value. */
+function tenths(what: string, { min, above, max }: { min?: number; above?: number; max: number }) {
   const limit = above !== undefined ? `above ${above}` : `of ${min ?? 0} or more`;
-  const message = `${what}: enter a number ${limit}, with at most one decimal.`;
+  const message = `${what}: enter a number ${limit} and at most ${max.toLocaleString("en-GB")}, with at most one decimal.`;
   return z
     .union([z.number(), z.string(), z.null()], { message })
     .optional()
@@ -44,7 +46,7 @@ function tenths(what: string, { min, above }: { min?: number; above?: number }) 
       const text = typeof raw === "number" ? String(raw) : raw.trim().replace(/[\s,_]/g, "");
       const value = Number(text);
       const fits = /^\d+(\.\d)?$/.test(text) && (above !== undefined ? value > above : value >= (min ?? 0));
-      if (!fits || value > 9_999_999.9) {
+      if (!fits || value > max) {
         ctx.addIssue({ code: "custom", message });
         return z.NEVER;
       }
@@ -76,12 +78,13 @@ const fields = {
     .array(requiredText("checklist step", 300), { message: "The checklist is a list of steps." })
     .max(100, { message: "Keep the checklist to 100 steps or fewer." })
     .optional(),
-  intervalHours: tenths("Interval in running hours", { above: 0 }),
+  intervalHours: tenths("Interval in running hours", { above: 0, max: MAX_METER_HOURS }),
   calendar: CalendarForm.nullish(),
   calendarRule: z.string({ message: "The calendar rule must be text." }).trim().nullish(),
   anchored: z.boolean({ message: "Anchored must be yes or no." }).optional(),
-  anchorDate: ShipDay.nullish(),
-  estimatedManHours: tenths("Estimated man-hours", { min: 0 }),
+  anchorDate: enteredDay("anniversary", "The anniversary date", SHIP_DAY_FORMAT).nullish(),
+  // The completion's limit for one job (numeric(6,1) would hold 99,999.9).
+  estimatedManHours: tenths("Estimated man-hours", { min: 0, max: MAX_JOB_MAN_HOURS }),
   rank: z.enum(RANKS, { message: "Choose the rank who does the job." }),
   needsEngineStop: z.boolean({ message: "Engine stop must be yes or no." }).optional(),
   critical: z.boolean({ message: "Critical must be yes or no." }).optional(),
@@ -90,7 +93,7 @@ const fields = {
   measurements: z.array(Measurement).max(50, { message: "Keep it to 50 measurements or fewer." }).optional(),
   spareParts: optionalText("spare parts", 2000),
   cautions: z.array(z.enum(CAUTIONS, { message: "Unknown caution." })).optional(),
-  baselineAt: ShipDay.nullish(),
+  baselineAt: enteredDay("history", "The day last done", SHIP_DAY_FORMAT).nullish(),
   baselineHours: z.union([MeterValue, z.null()]).optional(),
   toleranceRuleId: z.uuid({ message: "Choose one of the company’s tolerance rules." }).nullish(),
 };

@@ -54,6 +54,7 @@ const ruleFields = {
   graceAfter: Span("Grace after"),
   capHours: z
     .number({ message: "Cap: give a number of hours." })
+    .positive({ message: "Cap: give a number of hours above 0." })
     .max(MAX_INTERVAL, { message: `Cap: at most ${MAX_INTERVAL} hours.` })
     .nullable()
     .optional(),
