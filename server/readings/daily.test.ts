@@ -59,3 +59,23 @@ describe("dailyRunningHours (worked examples computed by hand)", () => {
     expect(dailyRunningHours([at("2026-03-01T00:00:00Z", 5)], "UTC")).toEqual([]);
   });
 });
+
+describe("dailyRunningHours with a window start", () => {
+  it("shares out only the days from the window's first ship's day", () => {
+    // 2000-01-01 to 2026-03-03: 9,558 days at an even rate; from 2 March only two days are wanted.
+    const from = at("2000-01-01T00:00:00Z", 0);
+    const to = at("2026-03-03T00:00:00Z", 9_558 * 12);
+    const days = dailyRunningHours([from, to], "UTC", new Date("2026-03-01T15:00:00Z"));
+    expect(days).toEqual([
+      { day: "2026-03-01", hours: 12 },
+      { day: "2026-03-02", hours: 12 },
+    ]);
+  });
+
+  it("gives the same figures inside the window as without it", () => {
+    const readings = [at("2026-03-01T12:00:00Z", 0), at("2026-03-02T12:00:00Z", 18), at("2026-03-04T00:00:00Z", 40)];
+    const whole = dailyRunningHours(readings, "Europe/Amsterdam");
+    const clipped = dailyRunningHours(readings, "Europe/Amsterdam", new Date("2026-03-02T05:00:00Z"));
+    expect(clipped).toEqual(whole.filter((d) => d.day >= "2026-03-02"));
+  });
+});

@@ -198,7 +198,7 @@ export async function readingHistory(
       corrections: audit.filter((a) => a.readingId === r.id).map(withoutReadingId),
     })),
     removals: audit.filter((a) => a.kind === "removed").map(withoutReadingId),
-    daily: dailyRunningHours(all, vessel.timeZone).filter((d) => d.day >= sinceDay),
+    daily: dailyRunningHours(all, vessel.timeZone, since).filter((d) => d.day >= sinceDay),
   };
 }
 
