@@ -101,6 +101,3 @@ export const routine = pgTable(
     check("routine_interval_positive", sql`${t.intervalHours} is null or ${t.intervalHours} > 0`),
   ],
 );
-
-// The port-stay form and contract name the crew's capacity from here, where it was first defined.
-export type { CrewCapacity } from "./port-stays";

@@ -34,6 +34,7 @@
 // of one rank add up. Items and left-out work come in the order they were considered (priority).
 // The immobilisation allowed is 0 when the engine may not stop. A stay without days, or with days
 // not in order, is refused as invalid input (stay.days).
+import type { CrewCapacity } from "@/db/schema/port-stays";
 import { OPEN_STATES_BY_URGENCY, type OpenState } from "@/db/schema/work-order-states";
 import { invalidInput } from "@/server/http/problem";
 import { leftOutWords, placedWords, whyWords, type LeftOutFacts, type WordsContext } from "./proposal-words";
@@ -59,7 +60,6 @@ export type Candidate = {
   /** Last ship's day it may be planned on; null = no upper bound. */
   planUntil: string | null;
 };
-export type CrewCapacity = { rank: string; manHoursPerDay: number };
 export type ProposalInput = {
   stay: {
     /** The stay's ship's days in order ("YYYY-MM-DD", vessel zone), at least one. */

@@ -3,7 +3,7 @@
 // Arrival and departure are typed as the ship's clock shows them ("2026-12-04T07:00", vessel zone);
 // the server turns them into instants with the vessel's zone (queries.ts).
 import { z } from "zod";
-import type { CrewCapacity } from "@/db/schema/maintenance";
+import type { CrewCapacity } from "@/db/schema/port-stays";
 import { dayRangeProblem, enteredDay } from "@/server/http/dates";
 import { optionalText, requiredText } from "@/server/http/text-fields";
 import type { DayUsage, LeftOutReason, PlanningState, Tier } from "@/server/planning/proposal";

@@ -5,7 +5,7 @@ import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
 import { rowFields, useSendForm } from "@/app/_components/forms/use-send-form";
-import type { CrewCapacity } from "@/db/schema/maintenance";
+import type { CrewCapacity } from "@/db/schema/port-stays";
 import { PortStayInput, type PortStayValues, type PortStayView } from "@/server/port-stays/contract";
 import { RANKS } from "@/server/routines/contract";
 import { rankLabel } from "./stay-words";
