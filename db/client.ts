@@ -16,24 +16,51 @@ export function createDb(pool: Pool) {
 export type Db = ReturnType<typeof createDb>;
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
-// One pool per process; kept on globalThis so that dev-mode reloads do not open new pools.
-const globalForDb = globalThis as unknown as { keelsonPool?: Pool; keelsonDb?: Db };
+// One pool per process (and one more for the read-only copy when it is configured); kept on
+// globalThis so that dev-mode reloads do not open new pools.
+const globalForDb = globalThis as unknown as {
+  keelsonPool?: Pool;
+  keelsonDb?: Db;
+  keelsonReadPool?: Pool;
+  keelsonReadDb?: Db;
+};
+
+function poolFor(connectionString: string): Pool {
+  const timeout = env().KEELSON_STATEMENT_TIMEOUT_MS;
+  return new Pool({
+    connectionString,
+    max: 10,
+    ...(timeout ? { statement_timeout: timeout, idle_in_transaction_session_timeout: timeout } : {}),
+  });
+}
 
 export function getDb(): Db {
   if (!globalForDb.keelsonDb) {
-    const timeout = env().KEELSON_STATEMENT_TIMEOUT_MS;
-    globalForDb.keelsonPool = new Pool({
-      connectionString: databaseUrl(),
-      max: 10,
-      ...(timeout ? { statement_timeout: timeout, idle_in_transaction_session_timeout: timeout } : {}),
-    });
+    globalForDb.keelsonPool = poolFor(databaseUrl());
     globalForDb.keelsonDb = createDb(globalForDb.keelsonPool);
   }
   return globalForDb.keelsonDb;
 }
 
+/**
+ * For reads that may lag the primary by the replica's delay: the views of the worker's own rows
+ * (Fleet board, overdue list). The replica of KEELSON_READ_DATABASE_URL, else the primary's pool.
+ * Never for the access door or anything a person just wrote: a session must see its own writes.
+ */
+export function getReadDb(): Db {
+  const url = env().KEELSON_READ_DATABASE_URL;
+  if (!url) return getDb();
+  if (!globalForDb.keelsonReadDb) {
+    globalForDb.keelsonReadPool = poolFor(url);
+    globalForDb.keelsonReadDb = createDb(globalForDb.keelsonReadPool);
+  }
+  return globalForDb.keelsonReadDb;
+}
+
 export async function closeDb(): Promise<void> {
-  await globalForDb.keelsonPool?.end();
+  await Promise.all([globalForDb.keelsonPool?.end(), globalForDb.keelsonReadPool?.end()]);
   globalForDb.keelsonPool = undefined;
   globalForDb.keelsonDb = undefined;
+  globalForDb.keelsonReadPool = undefined;
+  globalForDb.keelsonReadDb = undefined;
 }

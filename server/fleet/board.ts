@@ -3,7 +3,7 @@
 // whole fleet (no query per vessel) and the deferral list; it never reads work orders one by one.
 import "server-only";
 import { and, asc, eq, gte, sql } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getReadDb } from "@/db/client";
 import { vesselSnapshot } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
 import { listFleetPendingDeferrals } from "@/server/deferrals/queries";
@@ -47,7 +47,8 @@ export function latestSnapshotsQuery(companyId: string) {
 }
 
 export async function loadFleetBoard(access: Access, now = new Date()): Promise<FleetBoard> {
-  const db = getDb();
+  // The worker's snapshots: a replica a moment behind shows the same board (KEELSON_READ_DATABASE_URL).
+  const db = getReadDb();
   const companyId = access.company.id;
   const days = trendDays(now);
   const [latest, history, pending] = await Promise.all([

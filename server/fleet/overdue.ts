@@ -2,7 +2,7 @@
 // late, critical and class-related work first within each, the longest overdue first.
 import "server-only";
 import { and, asc, desc, eq, inArray, isNull, or, sql, type SQL } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getReadDb } from "@/db/client";
 import { component, overdueOrder, vessel, workOrder } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
 import { type CsvColumn, csvResponse, toCsv } from "@/server/export/csv";
@@ -23,7 +23,8 @@ export const OVERDUE_LIMIT = 2000;
 const DAY_MS = 86_400_000;
 
 export async function loadFleetOverdue(access: Access, f: FleetOverdueFilter, now = new Date()): Promise<FleetOverdue> {
-  const db = getDb();
+  // The worker's states: a replica a moment behind serves the list as well (KEELSON_READ_DATABASE_URL).
+  const db = getReadDb();
   const companyId = access.company.id;
   const vesselScope: SQL[] = [eq(vessel.companyId, companyId), isNull(vessel.retiredAt)];
   // fleet:read roles see the whole fleet; should one ever be assigned vessels, only those.
