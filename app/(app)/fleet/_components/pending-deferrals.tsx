@@ -1,7 +1,6 @@
 import Link from "next/link";
 import { ageOf } from "@/app/_components/relative-age";
 import { StateBadge } from "@/app/_components/state-badge";
-import type { BacklogState } from "@/server/backlog/contract";
 import type { FleetBoard } from "@/server/fleet/contract";
 
 /** The requests awaiting a decision, each linking to its work order page where it is decided. */
@@ -44,7 +43,7 @@ export function PendingDeferrals({ board, now }: { board: FleetBoard; now: Date 
                 {d.workOrder.critical && <Flag>critical</Flag>}
                 {d.workOrder.classRelated && <Flag>class</Flag>}
                 {d.needsOffice && <span className="text-ink-600 dark:text-ink-300">office decides</span>}
-                <StateBadge state={d.workOrder.state as BacklogState} />
+                <StateBadge state={d.workOrder.state} />
               </div>
             </li>
           ))}
