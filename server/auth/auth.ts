@@ -4,10 +4,10 @@ import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { nextCookies } from "better-auth/next-js";
 import { admin } from "better-auth/plugins";
 import { getDb } from "@/db/client";
-import * as schema from "@/db/schema";
 import { markPasswordSet, RESET_LINK_HOURS, sendAccountMail } from "@/server/accounts/account-mail";
 import { env } from "@/server/env";
 import { signInLimitOptions } from "./sign-in-limit";
+import { AUTH_TABLES } from "./tables";
 
 const { BETTER_AUTH_URL: baseURL, BETTER_AUTH_SECRET, KEELSON_AUTH_RATE_LIMIT, KEELSON_TRUSTED_PROXY } = env();
 
@@ -32,12 +32,7 @@ export const auth = betterAuth({
   trustedOrigins: [...TRUSTED_ORIGINS],
   database: drizzleAdapter(getDb(), {
     provider: "pg",
-    schema: {
-      user: schema.user,
-      session: schema.session,
-      account: schema.account,
-      verification: schema.verification,
-    },
+    schema: AUTH_TABLES,
   }),
   emailAndPassword: {
     enabled: true,
@@ -47,7 +42,11 @@ export const auth = betterAuth({
     // Invitations and password resets: a one-time link by e-mail (server/accounts/account-mail.ts).
     sendResetPassword: (data) => sendAccountMail(data),
     resetPasswordTokenExpiresIn: RESET_LINK_HOURS * 3600,
-    onPasswordReset: ({ user }) => markPasswordSet(user.id),
+    onPasswordReset: async ({ user }) => {
+      await markPasswordSet(user.id);
+      // The owner proved the account is theirs: a lock left by someone else's guesses ends here.
+      await signInLimits.onPasswordReset(user.email);
+    },
     // A new password ends every session of the account, as a disabled account's do.
     revokeSessionsOnPasswordReset: true,
   },

@@ -14,7 +14,12 @@
 // the password is not even checked) until the window that began with the first failure ends. An
 // unknown e-mail is counted the same way, so the answers never tell which e-mails exist. A success
 // clears the count. The price, as for any account lockout: anyone can keep one account locked by
-// typing wrong passwords for it; it frees itself at the end of the window.
+// typing wrong passwords for it; it frees itself at the end of the window, or when its owner sets a
+// new password through a reset link (only the mailbox's owner can).
+//
+// Reset links: asked for per e-mail typed, known or not, at most RESET_RULE.maxFailures times a
+// window, so nobody can fill a person's mailbox with reset mail from many addresses. The refusal is
+// the same for a known and an unknown e-mail.
 import "server-only";
 import { createHmac } from "node:crypto";
 import type { BetterAuthOptions } from "better-auth";
@@ -25,6 +30,8 @@ import type { Db } from "@/db/client";
 import { signInFailure } from "@/db/schema";
 
 export const ACCOUNT_RULE = { maxFailures: 10, windowSeconds: 15 * 60 } as const;
+/** Reset-link requests per e-mail typed (counted as "failures" in the same table, another key). */
+export const RESET_RULE = { maxFailures: 5, windowSeconds: 60 * 60 } as const;
 
 /** Per-address ceilings (better-auth's window in seconds); "shared" when no proxy is trusted. */
 export const ADDRESS_RULES = {
@@ -33,6 +40,7 @@ export const ADDRESS_RULES = {
 } as const;
 
 const SIGN_IN_PATH = "/sign-in/email";
+const RESET_PATH = "/request-password-reset";
 
 export type AccountState = { locked: false } | { locked: true; retryAfterSeconds: number };
 
@@ -40,8 +48,13 @@ export function accountLimiter(
   db: Db,
   secret: string,
   rule: { maxFailures: number; windowSeconds: number } = ACCOUNT_RULE,
+  /** Another count for the same e-mails (reset requests); none for sign-in failures. */
+  scope?: string,
 ) {
-  const keyOf = (email: string) => createHmac("sha256", secret).update(email.trim().toLowerCase()).digest("hex");
+  const keyOf = (email: string) =>
+    createHmac("sha256", secret)
+      .update(`${scope ? `${scope}\0` : ""}${email.trim().toLowerCase()}`)
+      .digest("hex");
   const windowMs = rule.windowSeconds * 1000;
 
   return {
@@ -98,10 +111,13 @@ export function signInLimitOptions(settings: SignInLimitSettings): {
   ipAddress: IpAddressOptions;
   rateLimit: NonNullable<BetterAuthOptions["rateLimit"]>;
   hooks: NonNullable<BetterAuthOptions["hooks"]>;
+  /** For emailAndPassword.onPasswordReset: the account's sign-in lock ends. */
+  onPasswordReset: (email: string) => Promise<void>;
 } {
   const { enabled, trustedProxies, db, secret } = settings;
   const trusted = trustedProxies.length > 0;
   const limiter = accountLimiter(db, secret);
+  const resetLimiter = accountLimiter(db, secret, RESET_RULE, "reset");
   const emailOf = (body: unknown) => SignInBody.safeParse(body).data?.email;
 
   return {
@@ -116,27 +132,24 @@ export function signInLimitOptions(settings: SignInLimitSettings): {
       max: 100,
       customRules: {
         [SIGN_IN_PATH]: trusted ? ADDRESS_RULES.signIn.perAddress : ADDRESS_RULES.signIn.shared,
-        "/request-password-reset": trusted
+        [RESET_PATH]: trusted
           ? ADDRESS_RULES.passwordReset.perAddress
           : ADDRESS_RULES.passwordReset.shared,
       },
     },
     hooks: {
       before: createAuthMiddleware(async (ctx) => {
-        if (!enabled || ctx.path !== SIGN_IN_PATH) return;
+        if (!enabled || (ctx.path !== SIGN_IN_PATH && ctx.path !== RESET_PATH)) return;
         const email = emailOf(ctx.body);
         if (!email) return;
+        if (ctx.path === RESET_PATH) {
+          const state = await resetLimiter.check(email);
+          if (state.locked) throw tooMany("TOO_MANY_RESET_REQUESTS", "Too many reset links asked for", state);
+          await resetLimiter.recordFailure(email);
+          return;
+        }
         const state = await limiter.check(email);
-        if (!state.locked) return;
-        const minutes = Math.ceil(state.retryAfterSeconds / 60);
-        throw new APIError(
-          "TOO_MANY_REQUESTS",
-          {
-            code: "TOO_MANY_FAILED_SIGN_INS",
-            message: `Too many wrong passwords for this e-mail address. Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.`,
-          },
-          { "Retry-After": String(state.retryAfterSeconds) },
-        );
+        if (state.locked) throw tooMany("TOO_MANY_FAILED_SIGN_INS", "Too many wrong passwords for", state);
       }),
       after: createAuthMiddleware(async (ctx) => {
         if (!enabled || ctx.path !== SIGN_IN_PATH) return;
@@ -147,5 +160,15 @@ export function signInLimitOptions(settings: SignInLimitSettings): {
         else if (returned.statusCode === 401) await limiter.recordFailure(email);
       }),
     },
+    onPasswordReset: (email) => limiter.clear(email),
   };
+}
+
+function tooMany(code: string, what: string, state: { retryAfterSeconds: number }): APIError {
+  const minutes = Math.ceil(state.retryAfterSeconds / 60);
+  return new APIError(
+    "TOO_MANY_REQUESTS",
+    { code, message: `${what} this e-mail address. Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.` },
+    { "Retry-After": String(state.retryAfterSeconds) },
+  );
 }

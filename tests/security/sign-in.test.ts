@@ -7,7 +7,14 @@ import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as schema from "@/db/schema";
-import { ACCOUNT_RULE, ADDRESS_RULES, accountLimiter, signInLimitOptions } from "@/server/auth/sign-in-limit";
+import {
+  ACCOUNT_RULE,
+  ADDRESS_RULES,
+  accountLimiter,
+  RESET_RULE,
+  signInLimitOptions,
+} from "@/server/auth/sign-in-limit";
+import { AUTH_TABLES } from "@/server/auth/tables";
 import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
 import { BASE_URL } from "../support/http";
 
@@ -92,6 +99,9 @@ describe("the per-account limit on the database", () => {
 
 const AUTH_URL = "http://127.0.0.1:39999";
 
+/** Reset links the limited instance would have mailed: e-mail → the link's token. */
+const resetTokens = new Map<string, string>();
+
 /** better-auth with the app's sign-in limits switched on, and the proxies given. */
 function limitedAuth(trustedProxies: string[]) {
   const limits = signInLimitOptions({ enabled: true, trustedProxies, db: testDb(), secret: SECRET });
@@ -100,14 +110,16 @@ function limitedAuth(trustedProxies: string[]) {
     secret: SECRET,
     database: drizzleAdapter(testDb(), {
       provider: "pg",
-      schema: {
-        user: schema.user,
-        session: schema.session,
-        account: schema.account,
-        verification: schema.verification,
-      },
+      schema: AUTH_TABLES,
     }),
-    emailAndPassword: { enabled: true, disableSignUp: true },
+    emailAndPassword: {
+      enabled: true,
+      disableSignUp: true,
+      sendResetPassword: async ({ user, token }) => {
+        resetTokens.set(user.email, token);
+      },
+      onPasswordReset: ({ user }) => limits.onPasswordReset(user.email),
+    },
     advanced: { ipAddress: limits.ipAddress },
     rateLimit: limits.rateLimit,
     hooks: limits.hooks,
@@ -117,20 +129,29 @@ function limitedAuth(trustedProxies: string[]) {
 
 type Auth = ReturnType<typeof limitedAuth>;
 
-async function signInVia(auth: Auth, email: string, password: string, forwardedFor?: string) {
+async function postVia(auth: Auth, path: string, body: object, forwardedFor?: string) {
   const response = await auth.handler(
-    new Request(`${AUTH_URL}/api/auth/sign-in/email`, {
+    new Request(`${AUTH_URL}/api/auth${path}`, {
       method: "POST",
       headers: {
         "content-type": "application/json",
         origin: AUTH_URL,
         ...(forwardedFor ? { "x-forwarded-for": forwardedFor } : {}),
       },
-      body: JSON.stringify({ email, password }),
+      body: JSON.stringify(body),
     }),
   );
-  const body = (await response.json()) as { code?: string; message?: string };
-  return { status: response.status, code: body.code, retryAfter: response.headers.get("retry-after") };
+  const answer = (await response.json()) as { code?: string; message?: string };
+  return {
+    status: response.status,
+    code: answer.code,
+    message: answer.message,
+    retryAfter: response.headers.get("retry-after"),
+  };
+}
+
+function signInVia(auth: Auth, email: string, password: string, forwardedFor?: string) {
+  return postVia(auth, "/sign-in/email", { email, password }, forwardedFor);
 }
 
 describe("the per-account limit in better-auth, whatever the address", () => {
@@ -206,4 +227,39 @@ describe("the per-address limit", () => {
     }
     expect(statuses).toEqual([...Array(shared.max).fill(401), 429]);
   }, 90_000);
+});
+
+describe("reset links", () => {
+  it(`are sent at most ${RESET_RULE.maxFailures} times an hour per e-mail, from any address, known or not alike`, async () => {
+    const auth = limitedAuth(["10.9.0.1"]);
+    const ask = (email: string, i: number) =>
+      postVia(auth, "/request-password-reset", { email, redirectTo: "/set-password" }, `192.0.5.${i}`);
+    const known = fixture.users["chief-engineer"].email;
+    const unknown = `nobody-${randomUUID()}@fixture.example`;
+    const knownStatuses = [];
+    const unknownStatuses = [];
+    for (let i = 1; i <= RESET_RULE.maxFailures + 1; i++) {
+      knownStatuses.push((await ask(known, i)).status);
+      unknownStatuses.push((await ask(unknown, 100 + i)).status);
+    }
+    expect(knownStatuses).toEqual([...Array(RESET_RULE.maxFailures).fill(200), 429]);
+    expect(unknownStatuses).toEqual(knownStatuses);
+    const refused = await ask(known, 99);
+    expect(refused.code).toBe("TOO_MANY_RESET_REQUESTS");
+    expect(refused.message).toMatch(/^Too many reset links asked for this e-mail address\. Try again in 60 minutes\.$/);
+  });
+
+  it("a new password set through a reset link ends the account's sign-in lock", async () => {
+    const auth = limitedAuth(["10.9.0.1"]);
+    const email = fixture.users.superintendent.email;
+    for (let i = 1; i <= ACCOUNT_RULE.maxFailures; i++) await signInVia(auth, email, "wrong-password-1", `192.0.6.${i}`);
+    expect((await signInVia(auth, email, PASSWORD, "192.0.6.50")).status).toBe(429);
+
+    expect((await postVia(auth, "/request-password-reset", { email, redirectTo: "/set-password" })).status).toBe(200);
+    const token = resetTokens.get(email);
+    expect(token).toBeTruthy();
+    // The same password again, so the fixture's other tests sign in as before.
+    expect((await postVia(auth, "/reset-password", { token, newPassword: PASSWORD })).status).toBe(200);
+    expect((await signInVia(auth, email, PASSWORD, "192.0.6.51")).status).toBe(200);
+  });
 });

@@ -22,10 +22,13 @@ export function ForgotPasswordForm() {
     setFailure(null);
     const { error } = await authClient.requestPasswordReset({ email, redirectTo: "/set-password" });
     if (error) {
+      // The server's own words when it limited this e-mail (they say for how long); ours otherwise.
       setFailure(
-        error.status === 429
-          ? "Too many requests from here; wait a few minutes and try again."
-          : "That did not work; try again.",
+        error.status !== 429
+          ? "That did not work; try again."
+          : error.code === "TOO_MANY_RESET_REQUESTS" && error.message
+            ? error.message
+            : "Too many requests from here; wait a few minutes and try again.",
       );
       return;
     }
