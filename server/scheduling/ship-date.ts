@@ -4,15 +4,33 @@
 // is a floating date turned into real instants in the vessel's time zone, which keeps the
 // arithmetic free of DST and of the process's own time zone (rrule's TZID support depends on
 // the latter: it gave other instants when the process ran in Asia/Tokyo).
-import { TZDate, tz } from "@date-fns/tz";
-import { addDays, addMonths, differenceInCalendarDays } from "date-fns";
+import { TZDate } from "@date-fns/tz";
 import { shipDayKey } from "@/server/format/ship-day";
 
-const UTC = tz("UTC");
+const DAY_MS = 86_400_000;
+
+// Each lookup in a vessel's zone asks Intl, a few microseconds each time, and a vessel's recompute
+// asks about the same few thousand days and instants (due days, now) over and over: up to 100,000
+// answers are kept (scripts/bench/fleet.ts, README "Speed").
+function remembered<T>(compute: (timeZone: string, ms: number) => T): (timeZone: string, ms: number) => T {
+  const known = new Map<string, T>();
+  return (timeZone, ms) => {
+    const key = `${timeZone} ${ms}`;
+    let answer = known.get(key);
+    if (answer === undefined) {
+      answer = compute(timeZone, ms);
+      if (known.size >= 100_000) known.clear();
+      known.set(key, answer);
+    }
+    return answer;
+  };
+}
+
+const dayKeyOf = remembered((timeZone, ms) => shipDayKey(ms, timeZone));
 
 /** The ship's day an instant falls on, as a floating date. */
 export function shipDateOf(instant: Date, timeZone: string): Date {
-  return shipDateFromKey(shipDayKey(instant.getTime(), timeZone));
+  return shipDateFromKey(dayKeyOf(timeZone, instant.getTime()));
 }
 
 /** "2026-04-15" → floating date. */
@@ -31,10 +49,13 @@ export function shipDateKey(shipDate: Date): string {
  * clock change skips midnight (America/Santiago goes from 23:59:59 to 01:00).
  */
 export function startOfShipDate(shipDate: Date, timeZone: string): Date {
-  return new Date(
-    new TZDate(shipDate.getUTCFullYear(), shipDate.getUTCMonth(), shipDate.getUTCDate(), timeZone).getTime(),
-  );
+  return new Date(startOf(timeZone, shipDate.getTime()));
 }
+
+const startOf = remembered((timeZone, ms) => {
+  const d = new Date(ms);
+  return new TZDate(d.getUTCFullYear(), d.getUTCMonth(), d.getUTCDate(), timeZone).getTime();
+});
 
 /**
  * Keelson's due instant of a ship's day: its last millisecond, 23:59:59.999 on the ship's clock
@@ -45,19 +66,30 @@ export function endOfShipDate(shipDate: Date, timeZone: string): Date {
   return new Date(startOfShipDate(addShipDays(shipDate, 1), timeZone).getTime() - 1);
 }
 
+// Floating dates live in UTC, which has no clock changes, so their arithmetic is plain UTC
+// arithmetic. (date-fns with `in: tz("UTC")` asked Intl for UTC's offset on every call: a third
+// of a vessel's recompute, scripts/bench/fleet.ts.)
 export function addShipDays(shipDate: Date, days: number): Date {
-  return new Date(addDays(shipDate, days, { in: UTC }).getTime());
+  return new Date(shipDate.getTime() + days * DAY_MS);
 }
 
 /**
  * Adds calendar months; a day that the target month lacks becomes that month's last day
- * (date-fns clamps: 31 May − 3 months = 28 Feb, or 29 Feb in a leap year).
+ * (as date-fns clamps: 31 May − 3 months = 28 Feb, or 29 Feb in a leap year).
  */
 export function addShipMonths(shipDate: Date, months: number): Date {
-  return new Date(addMonths(shipDate, months, { in: UTC }).getTime());
+  const result = new Date(shipDate.getTime());
+  result.setUTCDate(1);
+  result.setUTCMonth(result.getUTCMonth() + months);
+  const lastDay = new Date(result.getTime());
+  lastDay.setUTCMonth(lastDay.getUTCMonth() + 1, 0);
+  result.setUTCDate(Math.min(shipDate.getUTCDate(), lastDay.getUTCDate()));
+  return result;
 }
 
 /** Whole ship's days from `from` to `to` (negative when `to` is earlier). */
 export function shipDaysBetween(from: Date, to: Date): number {
-  return differenceInCalendarDays(to, from, { in: UTC });
+  return Math.round((utcMidnight(to) - utcMidnight(from)) / DAY_MS);
 }
+
+const utcMidnight = (d: Date) => d.getTime() - (((d.getTime() % DAY_MS) + DAY_MS) % DAY_MS);
