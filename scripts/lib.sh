@@ -48,6 +48,15 @@ ensure_chromium_installed() {
   fi
 }
 
+# nginx for `npm run scale-demo` (the load balancer in front of two web processes).
+ensure_nginx_installed() {
+  if ! command -v nginx >/dev/null && [ ! -x /usr/sbin/nginx ]; then
+    log "installing nginx from Debian's packages…"
+    as_root apt-get update -qq
+    DEBIAN_FRONTEND=noninteractive as_root apt-get install -y -qq nginx >/dev/null
+  fi
+}
+
 # Run a command as the cluster's owner: initdb refuses root, so root hands over to `postgres`.
 as_pg_owner() {
   if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi
@@ -55,7 +64,9 @@ as_pg_owner() {
 
 # The cluster lives under .data/ when the postgres user can reach it, else under /var/tmp.
 pg_cluster_dir() {
-  local name="$1" dir="$ROOT/.data/$name"
+  # Two statements: `local a=… b="$a"` expands $a before a is set (it only worked inside pg_up).
+  local name="$1"
+  local dir="$ROOT/.data/$name"
   if [ "$(id -u)" = 0 ] && ! runuser -u postgres -- test -x "$ROOT" 2>/dev/null; then
     dir="/var/tmp/keelson-$(echo "$ROOT" | sha256sum | cut -c1-8)/$name"
   fi
