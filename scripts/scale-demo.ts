@@ -23,7 +23,8 @@ const demo = z
     SCALE_PROXY_URL: z.url(),
     SCALE_WEB_PIDS: pids,
     SCALE_WORKER_PIDS: pids,
-    SCALE_DEMO_SECONDS: z.coerce.number().int().min(20).default(45),
+    // At most 10 minutes: the Hour log batches go a minute apart from yesterday's 09:00 reading, never past now.
+    SCALE_DEMO_SECONDS: z.coerce.number().int().min(20).max(600).default(45),
     SCALE_READERS: z.coerce.number().int().min(1).default(8),
   })
   .parse(process.env);
