@@ -41,8 +41,8 @@ export function bossConnection(connection: JobConnection): PgBoss.Db {
 
 /**
  * Sends a job on `connection`. Inside a transaction, call it as the write's last statement: a
- * "stately" send waits for another uncommitted send of the same key, and holding no further locks
- * after it is what keeps two such writers from deadlocking.
+ * send coalesced per key ("short", "stately") waits for another uncommitted send of the same key,
+ * and holding no further locks after it is what keeps two such writers from deadlocking.
  */
 export async function sendJob<S extends z.ZodType>(
   connection: JobConnection,
