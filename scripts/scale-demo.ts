@@ -110,6 +110,8 @@ events.push(`${at()} recompute: ${recompute.recomputed} of ${recompute.vessels} 
 
 const duplicates = await duplicateWorkOrders(primary);
 const stored = await storedBatches(primary, ag.id, hourLog.acknowledged);
+// A batch answered 502 was in flight on the killed web process: written or not, as it happened.
+const storedUnanswered = await storedBatches(primary, ag.id, hourLog.unacknowledged);
 const standby = await replicaState(primary, replica, co.id, triggeredAt);
 const scansAfter = await snapshotScans(replica);
 const boardNow = await client.call("fleet board", office, "GET", "/api/fleet/board");
@@ -131,7 +133,10 @@ const checks: [string, boolean][] = [
 
 console.log("\n[scale-demo] what happened");
 for (const e of events) console.log(`  ${e}`);
-console.log(`  ${hourLog.posted} Hour log batches posted, ${hourLog.acknowledged.length} acknowledged (201)`);
+console.log(
+  `  ${hourLog.posted} Hour log batches posted, ${hourLog.acknowledged.length} acknowledged (201); ` +
+    `of the ${hourLog.unacknowledged.length} others, ${storedUnanswered} stored before the web process died`,
+);
 console.log("\n  route            requests   2xx  retried  502/503/504  failed   p50 ms   p95 ms   max ms");
 const cell = (v: number, width: number) => String(v).padStart(width);
 for (const r of routes)

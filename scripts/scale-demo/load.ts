@@ -138,13 +138,14 @@ export async function readingLoop(
   until: () => boolean,
   engineer: Session,
   vesselId: string,
-): Promise<{ posted: number; acknowledged: Date[] }> {
+): Promise<{ posted: number; acknowledged: Date[]; unacknowledged: Date[] }> {
   const log = (await client.call("hour log", engineer, "GET", `/api/vessels/${vesselId}/hour-log`)) as HourLog | undefined;
   if (!log) throw new Error("the Hour log did not answer before the load began");
   const counters = log.counters.filter((c) => c.last);
   let at = Math.max(...counters.map((c) => Date.parse(c.last!.readAt)));
   let posted = 0;
   const acknowledged: Date[] = [];
+  const unacknowledged: Date[] = [];
   while (!until()) {
     at += 60_000;
     const when = new Date(at);
@@ -158,8 +159,8 @@ export async function readingLoop(
       entries: counters.map((c) => ({ counterId: c.id, value: c.last!.meterValue })),
     });
     posted++;
-    if (saved !== undefined) acknowledged.push(when);
+    (saved === undefined ? unacknowledged : acknowledged).push(when);
     await new Promise((resolve) => setTimeout(resolve, 1_000));
   }
-  return { posted, acknowledged };
+  return { posted, acknowledged, unacknowledged };
 }
