@@ -79,10 +79,18 @@ export async function insertWorkOrders(
   return inserted;
 }
 
-/** Open work orders whose figures or state moved. The state-change time moves only with the state. */
-export async function updateWorkOrders(tx: Tx, rows: readonly WorkOrderUpdate[], now: Date): Promise<void> {
+/**
+ * Open work orders whose figures or state moved. The state-change time moves only with the state.
+ * The bench passes a chunk size of Infinity to write a whole fleet's rows in one statement.
+ */
+export async function updateWorkOrders(
+  tx: Tx,
+  rows: readonly WorkOrderUpdate[],
+  now: Date,
+  chunkSize = UPDATE_CHUNK,
+): Promise<void> {
   const written = columnNames(workOrder, WRITTEN_FIELDS);
-  for (const chunk of chunks(rows, UPDATE_CHUNK)) {
+  for (const chunk of chunks(rows, chunkSize)) {
     await tx.execute(sql`
       update ${workOrder} as w set
         (${written}) = (select ${columnNames(workOrder, WRITTEN_FIELDS, "v.")}),
@@ -103,8 +111,9 @@ export async function insertStateChanges(
   tx: Tx,
   rows: readonly StateChange[],
   at: { companyId: string; now: Date },
+  chunkSize = STATE_CHANGE_CHUNK,
 ): Promise<void> {
-  for (const chunk of chunks(rows, STATE_CHANGE_CHUNK)) {
+  for (const chunk of chunks(rows, chunkSize)) {
     await tx.execute(sql`
       insert into ${workOrderStateChange} (company_id, ${columnNames(workOrderStateChange, CHANGE_COLUMNS)}, changed_at)
       select ${at.companyId}::uuid, v.*, ${at.now}::timestamptz
