@@ -56,6 +56,9 @@ const hostileValue: fc.Arbitrary<unknown> = fc.oneof(
     "' OR 1=1 --",
     "<script>alert(1)</script>",
     "NaN",
+    "2147483648",
+    "12,431.5",
+    "24:00",
     "__proto__",
     LONG,
   ),
@@ -70,6 +73,10 @@ const hostileValue: fc.Arbitrary<unknown> = fc.oneof(
       "-1",
       "24.05",
       "99999.95",
+      // Past what an integer or numeric(12,1) column holds, where a contract forgot its bound.
+      "2147483648",
+      "-2147483649",
+      "1e15",
     )
     .map(raw),
   fc.constantFrom(1_000, 10_000).map((n) => raw(nested(n, "array"))),
