@@ -14,7 +14,10 @@ const config: Config = {
           200: "#d3dae2",
           300: "#b0bcc8",
           400: "#8796a7",
-          500: "#66778a",
+          // Secondary text's grey: one value per theme (app/globals.css, --ink-500), each 4.5:1 or more
+          // on that theme's page, panels and hover rows (WCAG 2.2 SC 1.4.3), so `text-ink-500` needs no
+          // dark partner.
+          500: "var(--ink-500)",
           600: "#4f5f71",
           700: "#3e4b5a",
           800: "#2a3440",
@@ -28,7 +31,8 @@ const config: Config = {
           200: "#a8dce5",
           300: "#6fc1cf",
           400: "#3ea3b5",
-          500: "#23879a",
+          // ink-950 text on it (the night theme's primary button) at 4.7:1, WCAG 2.2 SC 1.4.3.
+          500: "#258b9e",
           600: "#1a6c7d",
           700: "#175766",
           800: "#164854",

@@ -76,7 +76,7 @@ export function PeopleAdmin() {
       header: "Rank",
       className: "hidden lg:table-cell",
       cellClassName: "whitespace-nowrap",
-      cell: (p) => p.rank ?? <span className="text-ink-400">—</span>,
+      cell: (p) => p.rank ?? <span className="text-ink-500">—</span>,
     },
     {
       id: "vessels",

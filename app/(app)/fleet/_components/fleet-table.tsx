@@ -206,7 +206,7 @@ function Count({
   const cell = `${td} ${strong ? "bg-alarm-50/60 dark:bg-alarm-700/15" : ""}`;
   if (n === 0) {
     return (
-      <td className={`${cell} text-ink-400 dark:text-ink-600`}>
+      <td className={`${cell} text-ink-500`}>
         <span aria-label={`no ${what}`}>0</span>
       </td>
     );

@@ -95,7 +95,7 @@ export function Outbox({ rows }: { rows: OutboxRow[] }) {
       // The sender leaves the error of a refused attempt on a message sent later: say it is history.
       cell: (r) =>
         r.lastError === null ? (
-          <span className="text-ink-400">—</span>
+          <span className="text-ink-500">—</span>
         ) : r.status === "sent" ? (
           <span className="text-ink-500 dark:text-ink-400">before it was sent: {r.lastError}</span>
         ) : (

@@ -15,7 +15,7 @@ function WorkOrderLink({ id, number }: { id: string; number: string }) {
   return (
     <Link
       href={`/vessels/${vesselId}/work-orders/${id}`}
-      className="font-mono text-xs whitespace-nowrap text-tide-700 underline underline-offset-2 hover:text-tide-900 dark:text-tide-300 dark:hover:text-tide-100"
+      className="-my-1 inline-block py-1 font-mono text-xs whitespace-nowrap text-tide-700 underline underline-offset-2 hover:text-tide-900 dark:text-tide-300 dark:hover:text-tide-100"
     >
       {number}
     </Link>
@@ -60,7 +60,7 @@ export function backlogColumns(timeZone: string) {
       header: "Due",
       cell: ({ row }) => {
         const w = row.original;
-        if (!w.dueDate) return <span className="text-ink-400">no reading yet</span>;
+        if (!w.dueDate) return <span className="text-ink-500">no reading yet</span>;
         const projected = w.governing === "hours";
         return (
           <span

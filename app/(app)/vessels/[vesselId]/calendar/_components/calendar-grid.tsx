@@ -62,7 +62,9 @@ export function CalendarGrid({ data, today, canPlan, onRange, onOpen, onMove }: 
       firstDay={1}
       height="auto"
       headerToolbar={{ left: "prev,next today", center: "title", right: "dayGridMonth,listMonth" }}
-      buttonText={{ today: "Today", month: "Month grid", list: "List" }}
+      // Words, not FullCalendar's chevron icons: an icon is an unnamed role="img" inside the button,
+      // which axe reports, and a word is easier to hit and to read on a tablet.
+      buttonText={{ prev: "Previous", next: "Next", today: "Today", month: "Month grid", list: "List" }}
       buttonHints={{ prev: "Previous month", next: "Next month", today: "Go to today’s month" }}
       viewHint="Show as $0"
       dayMaxEvents={4}

@@ -75,7 +75,7 @@ export function CounterRow({
         <button
           type="button"
           onClick={onShowChart}
-          className="text-xs text-tide-700 underline-offset-2 hover:underline dark:text-tide-300"
+          className="-my-1 py-1 text-xs text-tide-700 underline-offset-2 hover:underline dark:text-tide-300"
         >
           Chart
         </button>
@@ -125,7 +125,7 @@ export function CounterRow({
             {live.perDay !== null && <span className="block text-xs text-ink-500">{live.perDay} h/day since last</span>}
           </>
         ) : (
-          <span className="text-ink-400">—</span>
+          <span className="text-ink-500">—</span>
         )}
       </td>
       <td className="px-3 py-2 whitespace-nowrap text-ink-600 tabular-nums dark:text-ink-300">

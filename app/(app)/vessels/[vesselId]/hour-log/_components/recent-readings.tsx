@@ -46,7 +46,7 @@ export function RecentReadings({ vesselId, history, timeZone, canWrite, onChange
               {correctable && (
                 <button
                   type="button"
-                  className="w-14 rounded px-1.5 py-0.5 text-right text-xs text-tide-700 underline-offset-2 hover:underline dark:text-tide-300"
+                  className="-my-0.5 w-14 rounded px-1.5 py-1 text-right text-xs text-tide-700 underline-offset-2 hover:underline dark:text-tide-300"
                   aria-label={`Correct the reading of ${formatShipTime(new Date(r.readAt), timeZone)}, ${formatHours(r.meterValue)}`}
                   onClick={() => setEditing(r.id)}
                 >

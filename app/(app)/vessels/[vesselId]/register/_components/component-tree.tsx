@@ -148,7 +148,7 @@ function ComponentNode({ node, lookup, canEdit, isOpen, shown, onToggle, onActio
         <p
           className={`pl-6.5 text-xs sm:pt-0.5 sm:pl-0 ${
             counter.none
-              ? "text-ink-400 italic dark:text-ink-500"
+              ? "text-ink-500 italic"
               : counter.inherited
                 ? "text-ink-500 dark:text-ink-400"
                 : "font-medium text-ink-700 dark:text-ink-200"
