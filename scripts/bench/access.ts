@@ -2,42 +2,27 @@
 // signed-in user (session, membership, assignments), driven by autocannon over loopback, beside
 // the same route without a cookie (answered 401 before any query: the HTTP and Next.js floor).
 import { writeFileSync } from "node:fs";
-import autocannon from "autocannon";
 import { closeTestDb, createCompany, PASSWORD } from "@/tests/support/fixtures";
-import { BASE_URL, signIn } from "@/tests/support/http";
+import { signIn } from "@/tests/support/http";
+import { drive, type LoadFigures } from "./drive";
 
 const SECONDS = 10;
 const CONNECTIONS = 10;
 
-type Load = { requestsPerSecond: number; p50: number; p99: number; non2xx: number; errors: number };
-
-async function load(headers: Record<string, string>, seconds: number): Promise<Load> {
-  const result = await autocannon({
-    url: `${BASE_URL}/api/account/me`,
-    connections: CONNECTIONS,
-    duration: seconds,
-    headers,
-  });
-  return {
-    requestsPerSecond: Math.round(result.requests.average),
-    p50: result.latency.p50,
-    p99: result.latency.p99,
-    non2xx: result.non2xx,
-    errors: result.errors,
-  };
-}
+const load = (headers: Record<string, string>, seconds: number, expect: number) =>
+  drive({ path: "/api/account/me", headers, connections: CONNECTIONS, seconds, expect });
 
 const f = await createCompany("bench-access");
 // The engineer is assigned to one vessel: every part of the access is read.
 const session = await signIn(f.users.engineer.email, PASSWORD);
 await closeTestDb();
 
-await load({ cookie: session.cookie }, 2); // warm-up: compiled routes, pool connections
-const floor = await load({}, SECONDS);
-const signedIn = await load({ cookie: session.cookie }, SECONDS);
-if (signedIn.non2xx > 0 || signedIn.errors > 0) throw new Error(`signed-in load failed: ${JSON.stringify(signedIn)}`);
+await load({ cookie: session.cookie }, 2, 200); // warm-up: compiled routes, pool connections
+const floor = await load({}, SECONDS, 401);
+const signedIn = await load({ cookie: session.cookie }, SECONDS, 200);
+if (signedIn.unexpected > 0 || signedIn.errors > 0) throw new Error(`signed-in load failed: ${JSON.stringify(signedIn)}`);
 
-const line = (what: string, l: Load) => `| ${what} | ${l.requestsPerSecond} | ${l.p50} / ${l.p99} |`;
+const line = (what: string, l: LoadFigures) => `| ${what} | ${l.requestsPerSecond} | ${l.p50} / ${l.p99} |`;
 const md = [
   `| what (${CONNECTIONS} connections, ${SECONDS} s each) | requests/s | latency p50 / p99 (ms) |`,
   "| --- | --- | --- |",
