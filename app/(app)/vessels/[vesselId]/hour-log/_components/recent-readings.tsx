@@ -118,9 +118,12 @@ function CorrectedMark({ reading, timeZone }: { reading: HistoryReading; timeZon
         onClick={() => setOpen((o) => !o)}
         onBlur={() => setOpen(false)}
         onKeyDown={(e) => e.key === "Escape" && setOpen(false)}
-        className="rounded border border-brass-400 bg-brass-100 px-1 text-[11px] leading-4 font-semibold text-brass-700 dark:border-brass-600 dark:bg-brass-700/20 dark:text-brass-300"
+        // The mark stays small; the button around it is 24 px tall (WCAG 2.2 SC 2.5.8), the row unmoved.
+        className="-my-1 inline-flex py-1"
       >
-        corrected
+        <span className="rounded border border-brass-400 bg-brass-100 px-1 text-[11px] leading-4 font-semibold text-brass-700 dark:border-brass-600 dark:bg-brass-700/20 dark:text-brass-300">
+          corrected
+        </span>
       </button>
       <span
         id={tipId}
