@@ -27,11 +27,16 @@ const globalForDb = globalThis as unknown as {
 
 function poolFor(connectionString: string): Pool {
   const timeout = env().KEELSON_STATEMENT_TIMEOUT_MS;
-  return new Pool({
+  const pool = new Pool({
     connectionString,
     max: 10,
     ...(timeout ? { statement_timeout: timeout, idle_in_transaction_session_timeout: timeout } : {}),
   });
+  // An idle connection the database ends (a restart, a stop) is dropped by the pool, which reports
+  // it here; unheard, that report ended the worker (tests/faults/database-outage.test.ts). The next
+  // query opens a new connection, or fails as any query does while the database is away.
+  pool.on("error", (error) => console.error(`[db] an idle connection ended: ${error.message}`));
+  return pool;
 }
 
 export function getDb(): Db {
