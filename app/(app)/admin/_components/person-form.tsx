@@ -129,7 +129,7 @@ export function PersonForm({ person, vessels, onDone }: Props) {
                   <label className="flex items-center gap-2 rounded px-1 py-0.5 hover:bg-ink-50 dark:hover:bg-ink-850">
                     <input
                       type="checkbox"
-                      className="h-4 w-4 accent-tide-600"
+                      className="accent-tide-600"
                       checked={field.value.includes(v.id)}
                       onChange={(e) =>
                         field.onChange(

@@ -126,7 +126,6 @@ export function OverdueView() {
         <label className="flex items-center gap-2 pb-2">
           <input
             type="checkbox"
-            className="size-4"
             checked={params.get("flagged") === "true"}
             onChange={(e) => setFilter("flagged", e.target.checked ? "true" : "")}
           />

@@ -152,7 +152,7 @@ export function CorrectionPanel({ vesselId, counterName, reading, neighbours, ti
         <label className="flex items-start gap-2">
           <input
             type="checkbox"
-            className="mt-1 size-4 accent-alarm-600"
+            className="mt-0.5 accent-alarm-600"
             {...register("remove", { onChange: () => setConfirming(false) })}
           />
           <span>

@@ -97,7 +97,6 @@ export function StayForm({ vesselId, timeZone, stay, crew, onDone }: Props) {
         <label className="flex items-center gap-2">
           <input
             type="checkbox"
-            className="size-4"
             aria-invalid={errors.engineMayStop ? true : undefined}
             aria-describedby={errors.engineMayStop ? "stay-engineMayStop-error" : undefined}
             {...register("engineMayStop")}

@@ -100,7 +100,7 @@ export function ComponentForm({ view, target, onDone, onCancel }: Props) {
         <input
           id="component-critical"
           type="checkbox"
-          className="mt-0.5 size-4 accent-brass-600"
+          className="accent-brass-600"
           aria-describedby="component-critical-hint"
           {...register("critical")}
         />

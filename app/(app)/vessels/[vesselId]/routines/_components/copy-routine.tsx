@@ -90,7 +90,7 @@ export function CopyRoutine({ vesselId, routine, onDone, onCancel }: Props) {
             <label key={t.id} className="flex items-center gap-2">
               <input
                 type="checkbox"
-                className="size-4 accent-brass-600"
+                className="accent-brass-600"
                 checked={chosen.has(t.id)}
                 onChange={() => toggle(t.id)}
               />

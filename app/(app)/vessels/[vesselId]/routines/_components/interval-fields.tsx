@@ -141,7 +141,7 @@ export function IntervalFields({ control, register, errors, toleranceRules }: Pr
       {hasCalendar && (
         <div className="grid gap-2">
           <label className="flex items-center gap-2">
-            <input type="checkbox" className="size-4 accent-brass-600" {...register("anchored")} />
+            <input type="checkbox" className="accent-brass-600" {...register("anchored")} />
             Anchored: keeps a fixed anniversary (class items), rather than counting from the last completion
           </label>
           {errors.anchored?.message && <p className="field-error">{errors.anchored.message}</p>}

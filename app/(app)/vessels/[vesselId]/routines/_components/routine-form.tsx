@@ -139,15 +139,15 @@ export function RoutineForm({ list, routine, onDone, onCancel }: Props) {
       <fieldset className="grid gap-1.5">
         <legend className="label">Marks</legend>
         <label className="flex items-center gap-2">
-          <input type="checkbox" className="size-4 accent-brass-600" {...register("needsEngineStop")} />
+          <input type="checkbox" className="accent-brass-600" {...register("needsEngineStop")} />
           Needs the engine stopped (planned into a port stay)
         </label>
         <label className="flex items-center gap-2">
-          <input type="checkbox" className="size-4 accent-brass-600" {...register("critical")} />
+          <input type="checkbox" className="accent-brass-600" {...register("critical")} />
           Critical equipment (ISM Code 10.3)
         </label>
         <label className="flex items-center gap-2">
-          <input type="checkbox" className="size-4 accent-brass-600" {...register("classRelated")} />
+          <input type="checkbox" className="accent-brass-600" {...register("classRelated")} />
           Class-related
         </label>
       </fieldset>
@@ -175,7 +175,7 @@ export function RoutineForm({ list, routine, onDone, onCancel }: Props) {
         <legend className="label">Cautions</legend>
         {CAUTIONS.map((c) => (
           <label key={c} className="flex items-start gap-2">
-            <input type="checkbox" value={c} className="mt-0.5 size-4 accent-brass-600" {...register("cautions")} />
+            <input type="checkbox" value={c} className="accent-brass-600" {...register("cautions")} />
             {CAUTION_WORDS[c]}
           </label>
         ))}

@@ -92,7 +92,7 @@ export function CompletionForm({ detail, onDone }: Props) {
             return (
               <div key={i} className="grid gap-1 rounded-md border border-ink-200 p-2 dark:border-ink-800">
                 <label className="flex items-start gap-2">
-                  <input type="checkbox" className="mt-1 size-4" {...register(`checklist.${i}.done`)} />
+                  <input type="checkbox" className="mt-0.5" {...register(`checklist.${i}.done`)} />
                   <span>
                     <span className="text-ink-500">{i + 1}.</span> {tick.step}
                   </span>
