@@ -9,6 +9,11 @@ export function formatHours(value: number): string {
   return `${hoursFormat.format(value)} h`;
 }
 
+/** 36 → "36 man-hours" */
+export function formatManHours(value: number): string {
+  return `${hoursFormat.format(value)} man-hours`;
+}
+
 /** An instant as the ship's clock shows it: "3 May 2026 12:00". */
 export function formatShipTime(instant: Date, timeZone: string): string {
   return format(new TZDate(instant, timeZone), "d MMM yyyy HH:mm");
