@@ -8,7 +8,8 @@
 // changes only at slot boundaries, so the windows that start on a slot boundary are the only ones
 // that need checking. The rules' other parts (rest in at most two periods, one of at least 6 hours;
 // no more than 14 hours between rest periods) are not checked: the chief's working day is one block.
-// Watches kept at sea before the arrival are not known to Keelson and not counted.
+// Only the stay's own hours count: watches kept at sea before the arrival or after the departure are
+// not known to Keelson, and a port watch is cut at the stay's ends.
 import type { StayGrid } from "./stay-grid";
 
 export type TeamNeed = { rank: string; count: number };

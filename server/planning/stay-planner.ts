@@ -10,7 +10,9 @@
 // start with the least-worked people of its ranks. It runs over a few orders — the fill
 // order (engine-stop, port-only, sea; most urgent first), then by weight, by value, and by weight
 // with short jobs first — and keeps the plan of the highest value (ties: the earliest order, so the
-// fill order wins when nothing is gained). Each order is one pass of at most jobs × starts × people
+// fill order wins when nothing is gained). Then a seeded local search moves jobs (mostly ones left
+// out) to earlier places in the order, keeping a move when the value grows (at most 200 passes, fewer
+// on big vessels: 20,000 / jobs). Each pass is at most jobs × starts × people
 // checks; tests compare the result with HiGHS's exact optimum (server/planning/optimum.test.ts).
 import { invalidInput } from "@/server/http/problem";
 import { buildCrewLedger, copyLedger, type CrewLedger, type PortWatch, type TeamNeed } from "./crew-ledger";
@@ -75,11 +77,27 @@ export type StayPlan = {
   /** Sea work falling due that the stay leaves for the voyage. */
   atSea: { workOrderId: string; number: string; title: string; message: string }[];
   people: { key: string; rank: string; number: number; jobHours: number; watchHours: number }[];
-  order: "fill" | "weight" | "value" | "weight-short-first";
+  /** Which order of the heuristic gave the plan (see the top of this file). */
+  order: "fill" | "weight" | "value" | "weight-short-first" | "searched";
 };
 
 export const DEFAULT_LOOK_AHEAD_DAYS = 30;
 const DAY_MS = 86_400_000;
+/** The local search: at most this many passes, and at most MOVE_BUDGET / jobs of them. */
+const MAX_MOVES = 2_000;
+const MOVE_BUDGET = 100_000;
+
+/** mulberry32: a small seeded generator, so the search is the same on every run. */
+function seededRandom(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4_294_967_296;
+  };
+}
 const ORDERS: { name: StayPlan["order"]; sort: ((a: Classified, b: Classified) => number) | null }[] = [
   { name: "fill", sort: null },
   { name: "weight", sort: (a, b) => b.weight - a.weight },
@@ -142,12 +160,36 @@ export function planPortStay(input: StayPlanInput): StayPlan {
   const horizon = horizonOf(input);
   const { considered, atSea } = classify(input.jobs, { departsAt: stay.departsAt, horizon });
   const base = buildCrewLedger(grid, stay.crew, stay.watches);
+  const possible = considered.reduce((sum, c) => sum + valueOf(c), 0);
 
-  let best: (Pass & { name: StayPlan["order"] }) | null = null;
+  let best: (Pass & { name: StayPlan["order"]; order: Classified[] }) | null = null;
   for (const { name, sort } of ORDERS) {
     const order = sort ? [...considered].sort((a, b) => sort(a, b) || considered.indexOf(a) - considered.indexOf(b)) : considered;
     const pass = runPass(order, grid, stay, base);
-    if (!best || pass.value > best.value + 1e-9) best = { ...pass, name };
+    if (!best || pass.value > best.value + 1e-9) best = { ...pass, name, order };
+  }
+  // Then a seeded local search over the order (a job moved to an earlier place can unlock a better
+  // plan: one placed before it took the only start it had). A step moves one job, mostly one left
+  // out, or two at once; it is kept when the value does not fall (so the search can cross plateaus)
+  // and the best plan seen is the answer. Seeded, so the same input gives the same plan; bounded so
+  // a big vessel stays within a second.
+  const random = seededRandom(considered.length);
+  const moves = Math.min(MAX_MOVES, Math.floor(MOVE_BUDGET / Math.max(1, considered.length)));
+  let current = best!;
+  for (let m = 0; m < moves && best!.value < possible - 1e-9; m++) {
+    let order = current.order;
+    for (let k = random() < 0.3 ? 2 : 1; k > 0; k--) {
+      const left = order.filter((c) => !current.placements.has(c));
+      const pool = left.length > 0 && random() < 0.7 ? left : order;
+      const c = pool[Math.floor(random() * pool.length)]!;
+      const from = order.indexOf(c);
+      const to = Math.floor(random() * from);
+      if (from > 0) order = [...order.slice(0, to), c, ...order.slice(to, from), ...order.slice(from + 1)];
+    }
+    const pass = runPass(order, grid, stay, base);
+    if (pass.value < current.value - 1e-9) continue;
+    current = { ...pass, name: "searched", order };
+    if (pass.value > best!.value + 1e-9) best = current;
   }
   const pass = best!;
   const ctx = { timeZone: stay.timeZone, year: Number(grid.slots[0]!.day.slice(0, 4)), horizon, stay, nextStay: input.nextStayArrivesAt };
@@ -182,7 +224,7 @@ export function planPortStay(input: StayPlanInput): StayPlan {
   return {
     horizon,
     value: pass.value,
-    possible: considered.reduce((sum, c) => sum + valueOf(c), 0),
+    possible,
     placed,
     leftOut,
     atSea: atSea.map((job) => ({ workOrderId: job.id, number: job.number, title: job.title, message: atSeaWords(job, ctx) })),
