@@ -17,7 +17,7 @@ export function pageSecurityPolicy({ nonce, development, https }: PolicyOptions)
     "default-src 'self'",
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${development ? " 'unsafe-eval'" : ""}`,
     // 'unsafe-inline' for styles: React renders `style=` attributes (tree indents, the crew-hours
-    // bars, recharts' charts), which a nonce cannot cover (nonces apply to elements, not attributes), and FullCalendar
+    // bars), which a nonce cannot cover (nonces apply to elements, not attributes), and FullCalendar
     // injects a <style> element from its script. A nonce here would also switch 'unsafe-inline'
     // off. Styles cannot run code; scripts stay locked to the nonce.
     "style-src 'self' 'unsafe-inline'",
