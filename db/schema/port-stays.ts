@@ -8,9 +8,9 @@ import {
   index,
   integer,
   jsonb,
-  numeric,
   pgEnum,
   pgTable,
+  smallint,
   text,
   unique,
   uniqueIndex,
@@ -56,9 +56,15 @@ export const deferral = pgTable(
   ],
 );
 
-export type CrewCapacity = { rank: string; manHoursPerDay: number };
+/** People of a rank on board for maintenance during a stay (also a routine's team: rank × head count). */
+export type CrewOnBoard = { rank: string; count: number };
+/** A port watch (cargo, bunkering) of the n-th person of a rank; instants as ISO strings. */
+export type PortWatchRow = { rank: string; person: number; from: string; to: string; label: string };
 
-/** A port call: when, whether the main engine may be immobilised and for how long, the crew's hours. */
+/**
+ * A port call: when, the working day on board, when the main engine may be immobilised (a slot in
+ * the stay, none when it may not stop), the crew on board per rank, and their port watches.
+ */
 export const portStay = pgTable(
   "port_stay",
   {
@@ -68,11 +74,13 @@ export const portStay = pgTable(
     port: text().notNull(),
     arrivesAt: instant().notNull(),
     departsAt: instant().notNull(),
-    engineMayStop: boolean().notNull().default(false),
-    /** Hours the main engine may be immobilised; 0 when it may not. */
-    immobilisationHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull().default(0),
-    /** The man-hours each rank has for maintenance on each day of the stay. */
-    crew: jsonb().$type<CrewCapacity[]>().notNull().default([]),
+    /** Maintenance hours of the ship's day, minutes after midnight: [from, to). */
+    workdayFrom: smallint().notNull().default(480),
+    workdayTo: smallint().notNull().default(1020),
+    engineStopFrom: instant(),
+    engineStopTo: instant(),
+    crew: jsonb().$type<CrewOnBoard[]>().notNull().default([]),
+    watches: jsonb().$type<PortWatchRow[]>().notNull().default([]),
     remarks: text().notNull().default(""),
     packageAcceptedAt: instant(),
     packageAcceptedBy: text().references(() => user.id, { onDelete: "set null" }),
@@ -82,11 +90,15 @@ export const portStay = pgTable(
   (t) => [
     index().on(t.companyId, t.vesselId, t.arrivesAt),
     check("port_stay_order", sql`${t.departsAt} > ${t.arrivesAt}`),
-    check("port_stay_immobilisation", sql`${t.immobilisationHours} >= 0`),
+    check("port_stay_workday", sql`${t.workdayFrom} >= 0 and ${t.workdayFrom} < ${t.workdayTo} and ${t.workdayTo} <= 1440`),
+    check(
+      "port_stay_engine_stop",
+      sql`(${t.engineStopFrom} is null and ${t.engineStopTo} is null) or ${t.engineStopTo} > ${t.engineStopFrom}`,
+    ),
   ],
 );
 
-/** A work order accepted into a port stay's work package, on one day of the stay. */
+/** A work order accepted into a port stay's work package, on the stay's clock. */
 export const workPackageItem = pgTable(
   "work_package_item",
   {
@@ -99,7 +111,14 @@ export const workPackageItem = pgTable(
     workOrderId: uuid()
       .notNull()
       .references(() => workOrder.id, { onDelete: "cascade" }),
+    /** The ship's day the job starts on (the work order's planned date). */
     plannedDate: date({ mode: "string" }).notNull(),
+    startsAt: instant(),
+    endsAt: instant(),
+    /** Its working periods, split where the working day ends (ISO instants). */
+    segments: jsonb().$type<{ from: string; to: string }[]>().notNull().default([]),
+    /** Who does it: "rank#n" of the stay's crew. */
+    people: jsonb().$type<string[]>().notNull().default([]),
     /** Why the work is in the package, in words. */
     reason: text().notNull(),
     position: integer().notNull().default(0),

@@ -1,5 +1,5 @@
-// Demo port stays: for each vessel, the next two invented port calls with the crew's maintenance
-// hours, so the chief engineer has a stay to plan. Ports, dates and figures are made up.
+// Demo port stays: for each vessel, the next two invented port calls with the crew on board, the
+// working day and the engine-stop slot, so the chief engineer has a stay to plan. Ports, dates and figures are made up.
 import { TZDate } from "@date-fns/tz";
 import { addDays, format } from "date-fns";
 import type { Tx } from "../client";
@@ -14,8 +14,10 @@ type DemoStay = {
   days: number;
   arrive: string;
   depart: string;
-  engineMayStop: boolean;
-  immobilisationHours: number;
+  /** Hours the main engine may be immobilised from arrival; null when it stays on standby. */
+  engineStopHours: number | null;
+  /** The working day on board during the call ("HH:mm"). */
+  workday: [string, string];
   remarks: string;
 };
 
@@ -27,8 +29,8 @@ const STAYS: Record<string, DemoStay[]> = {
       days: 2,
       arrive: "07:00",
       depart: "19:00",
-      engineMayStop: true,
-      immobilisationHours: 24,
+      engineStopHours: 24,
+      workday: ["07:00", "19:00"],
       remarks: "Discharge at the container terminal; main engine may be immobilised with the harbour master's consent.",
     },
     {
@@ -37,8 +39,8 @@ const STAYS: Record<string, DemoStay[]> = {
       days: 1,
       arrive: "06:00",
       depart: "22:00",
-      engineMayStop: false,
-      immobilisationHours: 0,
+      engineStopHours: null,
+      workday: ["07:00", "19:00"],
       remarks: "Short call; engine on standby throughout.",
     },
   ],
@@ -49,8 +51,8 @@ const STAYS: Record<string, DemoStay[]> = {
       days: 3,
       arrive: "08:00",
       depart: "17:00",
-      engineMayStop: true,
-      immobilisationHours: 36,
+      engineStopHours: 36,
+      workday: ["07:00", "19:00"],
       remarks: "Berth 4; immobilisation permit requested from the terminal.",
     },
     {
@@ -59,8 +61,8 @@ const STAYS: Record<string, DemoStay[]> = {
       days: 1,
       arrive: "07:00",
       depart: "20:00",
-      engineMayStop: false,
-      immobilisationHours: 0,
+      engineStopHours: null,
+      workday: ["07:00", "19:00"],
       remarks: "",
     },
   ],
@@ -71,8 +73,8 @@ const STAYS: Record<string, DemoStay[]> = {
       days: 2,
       arrive: "10:00",
       depart: "16:00",
-      engineMayStop: true,
-      immobilisationHours: 12,
+      engineStopHours: 12,
+      workday: ["07:00", "19:00"],
       remarks: "Waiting for the canal slot.",
     },
   ],
@@ -83,39 +85,43 @@ const STAYS: Record<string, DemoStay[]> = {
       days: 2,
       arrive: "06:30",
       depart: "18:00",
-      engineMayStop: true,
-      immobilisationHours: 20,
+      engineStopHours: 20,
+      workday: ["07:00", "19:00"],
       remarks: "",
     },
   ],
 };
 
-/** Man-hours each rank has for planned maintenance on a port day (invented crew, demo only). */
-const DEMO_CREW: s.CrewCapacity[] = [
-  { rank: "chief-engineer", manHoursPerDay: 2 },
-  { rank: "second-engineer", manHoursPerDay: 8 },
-  { rank: "third-engineer", manHoursPerDay: 8 },
-  { rank: "fourth-engineer", manHoursPerDay: 6 },
-  { rank: "motorman", manHoursPerDay: 12 },
-  { rank: "electrician", manHoursPerDay: 6 },
+/** The engine department on board for maintenance in port (invented crew, demo only). */
+const DEMO_CREW: s.CrewOnBoard[] = [
+  { rank: "chief-engineer", count: 1 },
+  { rank: "second-engineer", count: 1 },
+  { rank: "third-engineer", count: 1 },
+  { rank: "fourth-engineer", count: 1 },
+  { rank: "motorman", count: 2 },
+  { rank: "electrician", count: 1 },
 ];
 
 export async function seedPortStays(tx: Tx, companyId: string, vesselId: string, v: DemoVessel, now: Date) {
   const today = new TZDate(now, v.timeZone);
-  const rows = (STAYS[v.code] ?? []).map((stay) => ({
-    companyId,
-    vesselId,
-    port: stay.port,
-    arrivesAt: instantOfShipTime(format(addDays(today, stay.inDays), "yyyy-MM-dd"), stay.arrive, v.timeZone),
-    departsAt: instantOfShipTime(
-      format(addDays(today, stay.inDays + stay.days - 1), "yyyy-MM-dd"),
-      stay.depart,
-      v.timeZone,
-    ),
-    engineMayStop: stay.engineMayStop,
-    immobilisationHours: stay.immobilisationHours,
-    crew: DEMO_CREW,
-    remarks: stay.remarks,
-  }));
+  const minutes = (clock: string) => Number(clock.slice(0, 2)) * 60 + Number(clock.slice(3));
+  const rows = (STAYS[v.code] ?? []).map((stay) => {
+    const arrivesAt = instantOfShipTime(format(addDays(today, stay.inDays), "yyyy-MM-dd"), stay.arrive, v.timeZone);
+    const departsAt = instantOfShipTime(format(addDays(today, stay.inDays + stay.days - 1), "yyyy-MM-dd"), stay.depart, v.timeZone);
+    const stopTo = stay.engineStopHours === null ? null : new Date(arrivesAt.getTime() + stay.engineStopHours * 3_600_000);
+    return {
+      companyId,
+      vesselId,
+      port: stay.port,
+      arrivesAt,
+      departsAt,
+      workdayFrom: minutes(stay.workday[0]),
+      workdayTo: minutes(stay.workday[1]),
+      engineStopFrom: stopTo ? arrivesAt : null,
+      engineStopTo: stopTo && stopTo < departsAt ? stopTo : stopTo ? departsAt : null,
+      crew: DEMO_CREW,
+      remarks: stay.remarks,
+    };
+  });
   if (rows.length) await tx.insert(s.portStay).values(rows);
 }

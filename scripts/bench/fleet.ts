@@ -164,14 +164,16 @@ const [stay] = await db
     port: "Bench harbour",
     arrivesAt: stayStart,
     departsAt: new Date(stayStart.getTime() + 2.5 * DAY),
-    engineMayStop: true,
-    immobilisationHours: 24,
+    workdayFrom: 8 * 60,
+    workdayTo: 18 * 60,
+    engineStopFrom: stayStart,
+    engineStopTo: new Date(stayStart.getTime() + DAY),
     crew: [
-      { rank: "chief-engineer", manHoursPerDay: 2 },
-      { rank: "second-engineer", manHoursPerDay: 8 },
-      { rank: "third-engineer", manHoursPerDay: 8 },
-      { rank: "motorman", manHoursPerDay: 16 },
-      { rank: "electrician", manHoursPerDay: 6 },
+      { rank: "chief-engineer", count: 1 },
+      { rank: "second-engineer", count: 1 },
+      { rank: "third-engineer", count: 1 },
+      { rank: "motorman", count: 2 },
+      { rank: "electrician", count: 1 },
     ],
   })
   .returning();

@@ -77,8 +77,8 @@ export type CalendarPortStay = {
   /** First and last ship's day of the stay (inclusive). */
   firstDay: string;
   lastDay: string;
-  engineMayStop: boolean;
-  immobilisationHours: number;
+  /** Hours of the engine-stop slot; null when the engine may not stop. */
+  engineStopHours: number | null;
   packageAccepted: boolean;
 };
 

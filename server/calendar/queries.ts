@@ -132,8 +132,8 @@ export async function loadCalendar(access: Access, vessel: VesselRef, q: Calenda
     departsAt: s.departsAt.toISOString(),
     firstDay: shipDayKey(s.arrivesAt.getTime(), timeZone),
     lastDay: shipDayKey(s.departsAt.getTime(), timeZone),
-    engineMayStop: s.engineMayStop,
-    immobilisationHours: s.immobilisationHours,
+    engineStopHours:
+      s.engineStopFrom && s.engineStopTo ? (s.engineStopTo.getTime() - s.engineStopFrom.getTime()) / 3_600_000 : null,
     packageAccepted: s.packageAcceptedAt !== null,
   }));
 

@@ -13,7 +13,6 @@ import * as s from "@/db/schema";
 import { CompletionInput } from "@/server/completions/contract";
 import { DeferralRequestInput } from "@/server/deferrals/contract";
 import { fieldErrorsFromZod } from "@/server/http/problem";
-import { PortStayInput } from "@/server/port-stays/contract";
 import { ReadingBatchInput, ReadingCorrectionInput } from "@/server/readings/contract";
 import { CounterInput, MeterReplacementInput } from "@/server/register/contract";
 import { RoutineInput } from "@/server/routines/contract";
@@ -65,13 +64,6 @@ const PAIRS: Pair[] = [
     field: "proposedDueHours",
     max: 9_999_999.9,
     lowest: [0.1, 0],
-  },
-  {
-    column: s.portStay.immobilisationHours,
-    schema: PortStayInput,
-    field: "immobilisationHours",
-    max: 720,
-    lowest: [0, -0.1],
   },
   {
     column: s.reading.meterValue,

@@ -57,7 +57,7 @@ const DAY_MS = 86_400_000;
 export const heads = (team: TeamNeed[]) => team.reduce((sum, t) => sum + t.count, 0);
 export const manHoursOf = (job: PlanJob) => Math.max(0, job.elapsedHours) * heads(job.team);
 
-export function groupOf(job: PlanJob): Group {
+export function groupOf(job: Pick<PlanJob, "needsEngineStop" | "needsPort" | "tiedTo">): Group {
   if (job.needsEngineStop) return "engine-stop";
   return job.needsPort || job.tiedTo ? "port-only" : "sea";
 }

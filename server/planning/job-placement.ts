@@ -65,9 +65,34 @@ export function peopleByRank(ledger: CrewLedger): Map<string, number[]> {
 }
 
 /**
- * The earliest placement of the job, or null. People are taken least-worked first (then in crew
- * order), which spreads the hours and leaves rest in hand for later work.
+ * The job's people for these slots: for each rank of its team the least-worked people who are free
+ * and keep their rest (then in crew order), or null when a rank runs short. Taking the least worked
+ * spreads the hours and leaves rest in hand for later work.
  */
+export function teamFor(
+  job: PlanJob,
+  slots: number[],
+  ledger: CrewLedger,
+  byRank: Map<string, number[]>,
+  restRules = true,
+): number[] | null {
+  const people: number[] = [];
+  for (const { rank, count } of job.team) {
+    const able = (byRank.get(rank) ?? [])
+      .filter((i) => !people.includes(i) && isFree(ledger, i, slots) && (!restRules || keepsRest(ledger, i, slots)))
+      .sort((a, b) => ledger.total[a]! - ledger.total[b]! || a - b);
+    if (able.length < count) return null;
+    people.push(...able.slice(0, count));
+  }
+  return people;
+}
+
+/** The slots a job started on the p-th working slot takes, or null when it would run past the stay. */
+export function slotsFrom(grid: StayGrid, p: number, need: number): number[] | null {
+  return p + need <= grid.workable.length ? grid.workable.slice(p, p + need) : null;
+}
+
+/** The earliest placement of the job inside its bounds, or null. */
 export function earliestPlacement(
   job: PlanJob,
   bounds: JobBounds,
@@ -82,16 +107,8 @@ export function earliestPlacement(
   while (first < workable.length && workable[first]! < bounds.lo) first++;
   for (let p = first; p + need <= workable.length && workable[p + need - 1]! < bounds.hi; p++) {
     const slots = workable.slice(p, p + need);
-    const people: number[] = [];
-    const ok = job.team.every(({ rank, count }) => {
-      const able = (byRank.get(rank) ?? [])
-        .filter((i) => !people.includes(i) && isFree(ledger, i, slots) && (!restRules || keepsRest(ledger, i, slots)))
-        .sort((a, b) => ledger.total[a]! - ledger.total[b]! || a - b);
-      if (able.length < count) return false;
-      people.push(...able.slice(0, count));
-      return true;
-    });
-    if (ok) return { slots, people };
+    const people = teamFor(job, slots, ledger, byRank, restRules);
+    if (people) return { slots, people };
   }
   return null;
 }

@@ -1,21 +1,88 @@
-// Accepting a port stay's work package as the chief edited it: every item is checked against the
-// work order, the stay's days, the work order's plannable days, the crew's hours per rank and day
-// and the immobilisation time, all under the vessel's work-order lock; any problem refuses the whole
-// package (422, one entry per item) and nothing is written.
+// Accepting a port stay's work package as the chief moved it on the timeline: every item is checked
+// against its work order (this vessel's, open, in no other coming stay's package) and against the
+// stay's clock, engine stop, crew, watches and rest hours (server/planning/package-check.ts), all
+// under the vessel's work-order lock; any problem refuses the whole package (422, one entry per item)
+// and nothing is written. The same check answers the timeline after each move, without writing.
 import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
-import { getDb } from "@/db/client";
-import { portStay, workOrder, workPackageItem } from "@/db/schema";
+import { type Db, getDb, type Tx } from "@/db/client";
+import { component, portStay, workOrder, workPackageItem } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
-import { lockVesselWorkOrders } from "@/server/work-orders/lock";
 import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
-import type { PackageInput, PackageResult } from "./contract";
-import { capacityProblems, type PackageJob, packageDay as day } from "./capacity";
-import { clearPlannedDates, findStay, packagedElsewhere } from "./queries";
-import { stayDays } from "./stay-days";
+import { checkPackage, type PackageItem } from "@/server/planning/package-check";
+import { lockVesselWorkOrders } from "@/server/work-orders/lock";
+import type { PackageCheck, PackageInput, PackageProblem, PackageResult, PlacedView } from "./contract";
+import { planJobOf, planStayOf } from "./plan-input";
+import { clearPlannedDates, findStay, jobColumns, packagedElsewhere, placedView, type StayRow, toJob } from "./queries";
+import { instantOfShipDateTime, shipDateTimeOf } from "./stay-days";
 
 /** Said when the chief put a job in by hand, not from the proposal. */
 export const ADDED_BY_HAND = "Added to the package by the chief engineer.";
+
+type Evaluated = { placed: (PlacedView | null)[]; problems: PackageProblem[] };
+
+async function evaluate(
+  db: Db | Tx,
+  access: Access,
+  vessel: VesselRef,
+  stay: StayRow,
+  input: PackageInput,
+  now: Date,
+): Promise<Evaluated> {
+  const companyId = access.company.id;
+  const ids = input.items.map((i) => i.workOrderId);
+  const rows = ids.length
+    ? await db
+        .select(jobColumns)
+        .from(workOrder)
+        .innerJoin(component, eq(component.id, workOrder.componentId))
+        .where(and(eq(workOrder.companyId, companyId), eq(workOrder.vesselId, vessel.id), inArray(workOrder.id, ids)))
+    : [];
+  const byId = new Map(rows.map((r) => [r.workOrderId, r]));
+  const elsewhere = await packagedElsewhere(db, companyId, vessel.id, stay.id, now, ids);
+
+  const problems: PackageProblem[] = [];
+  // The items that pass the checks of their own, with their place in the input.
+  const checkable: { n: number; item: PackageItem }[] = [];
+  input.items.forEach((item, n) => {
+    const w = byId.get(item.workOrderId);
+    const refuse = (message: string) => problems.push({ item: n, field: "workOrderId", message });
+    if (!w) return refuse("There is no such work order on this vessel.");
+    if (w.state === "done") return refuse(`${w.number} is done already.`);
+    const other = elsewhere.get(w.workOrderId);
+    if (other) return refuse(`${w.number} is in the package of ${other.port} on ${other.date}; take it out there first.`);
+    checkable.push({
+      n,
+      item: { job: planJobOf(toJob(w), w.outOfToleranceAt), start: instantOfShipDateTime(item.start, vessel.timeZone), people: item.people },
+    });
+  });
+  const checked = checkPackage(planStayOf(stay, vessel.timeZone), checkable.map((c) => c.item));
+  for (const p of checked.problems) problems.push({ ...p, item: checkable[p.item]!.n });
+  problems.sort((a, b) => a.item - b.item);
+
+  const placed: (PlacedView | null)[] = input.items.map(() => null);
+  checked.placed.forEach((p, k) => {
+    if (!p) return;
+    const { n } = checkable[k]!;
+    const reason = input.items[n]!.reason || ADDED_BY_HAND;
+    placed[n] = placedView(toJob(byId.get(input.items[n]!.workOrderId)!), p, vessel.timeZone, { reason, urgency: null });
+  });
+  return { placed, problems };
+}
+
+/** The package checked as the server would store it, for the timeline after a move. Writes nothing. */
+export async function checkPackageDraft(
+  access: Access,
+  vessel: VesselRef,
+  stayId: string,
+  input: PackageInput,
+  now = new Date(),
+): Promise<PackageCheck> {
+  const db = getDb();
+  const stay = await findStay(db, access, vessel, stayId);
+  const { placed, problems } = await evaluate(db, access, vessel, stay, input, now);
+  return { items: placed.filter((p): p is PlacedView => p !== null), problems };
+}
 
 export async function acceptPackage(
   access: Access,
@@ -31,74 +98,43 @@ export async function acceptPackage(
     if (stay.departsAt <= now) {
       throw new AppError("conflict", `${stay.port} is over: its package can no longer be changed.`);
     }
-    const ids = input.items.map((i) => i.workOrderId);
-    const orders = ids.length
-      ? await tx
-          .select()
-          .from(workOrder)
-          .where(and(eq(workOrder.companyId, companyId), eq(workOrder.vesselId, vessel.id), inArray(workOrder.id, ids)))
-      : [];
-    const byId = new Map(orders.map((o) => [o.id, o]));
-    const elsewhere = await packagedElsewhere(tx, companyId, vessel.id, stay.id, now, ids);
-
-    const days = new Set(stayDays(stay.arrivesAt, stay.departsAt, vessel.timeZone));
-    const errors: FieldError[] = [];
-    const at = (n: number, field: string, message: string) => errors.push({ field: `items.${n}.${field}`, row: n, message });
-    // The items that pass the checks of their own, with their place in the input.
-    const fitting: { n: number; job: PackageJob }[] = [];
-
-    input.items.forEach((item, n) => {
-      const w = byId.get(item.workOrderId);
-      if (!w) return at(n, "workOrderId", "There is no such work order on this vessel.");
-      if (w.state === "done") return at(n, "workOrderId", `${w.number} is done already.`);
-      const other = elsewhere.get(w.id);
-      if (other) {
-        return at(n, "workOrderId", `${w.number} is in the package of ${other.port} on ${day(other.date)}; take it out there first.`);
-      }
-      if (!days.has(item.date)) return at(n, "date", `${day(item.date)} is not a day of this stay (${[...days].map(day).join(", ")}).`);
-      if ((w.planFrom && item.date < w.planFrom) || (w.planUntil && item.date > w.planUntil)) {
-        return at(
-          n,
-          "date",
-          `${w.number} may be planned only ${w.planFrom ? `from ${day(w.planFrom)} ` : ""}${w.planUntil ? `until ${day(w.planUntil)}` : ""}, inside its tolerance window.`,
-        );
-      }
-      fitting.push({
-        n,
-        job: { number: w.number, rank: w.rank, manHours: w.estimatedManHours, needsEngineStop: w.needsEngineStop, date: item.date },
-      });
-    });
-    for (const p of capacityProblems(stay, fitting.map((f) => f.job))) {
-      at(fitting[p.index]!.n, p.kind === "crew" ? "date" : "workOrderId", p.message);
+    const { placed, problems } = await evaluate(tx, access, vessel, stay, input, now);
+    if (problems.length) {
+      const errors: FieldError[] = problems.map((p) => ({ field: `items.${p.item}.${p.field}`, row: p.item, message: p.message }));
+      throw invalidInput(errors, errors.length === 1 ? undefined : `${errors.length} items of the package need correcting; nothing was saved.`);
     }
-    errors.sort((a, b) => (a.row ?? 0) - (b.row ?? 0));
-    if (errors.length) throw invalidInput(errors, errors.length === 1 ? undefined : `${errors.length} items of the package need correcting; nothing was saved.`);
+    const items = placed as PlacedView[];
+    const dayOf = (iso: string) => shipDateTimeOf(new Date(iso), vessel.timeZone).slice(0, 10);
 
     // Work taken out of the package loses the planned date this stay gave it.
     const previous = await tx
       .select({ workOrderId: workPackageItem.workOrderId, date: workPackageItem.plannedDate })
       .from(workPackageItem)
       .where(and(eq(workPackageItem.companyId, companyId), eq(workPackageItem.portStayId, stay.id)));
-    const keep = new Set(ids);
+    const keep = new Set(items.map((i) => i.workOrderId));
     const cleared = await clearPlannedDates(tx, companyId, previous.filter((p) => !keep.has(p.workOrderId)));
 
     await tx.delete(workPackageItem).where(and(eq(workPackageItem.companyId, companyId), eq(workPackageItem.portStayId, stay.id)));
-    if (input.items.length) {
+    if (items.length) {
       await tx.insert(workPackageItem).values(
-        input.items.map((item, position) => ({
+        items.map((item, position) => ({
           companyId,
           vesselId: vessel.id,
           portStayId: stay.id,
           workOrderId: item.workOrderId,
-          plannedDate: item.date,
-          reason: item.reason || ADDED_BY_HAND,
+          plannedDate: dayOf(item.start),
+          startsAt: new Date(item.start),
+          endsAt: new Date(item.end),
+          segments: item.segments,
+          people: item.people,
+          reason: item.reason,
           position,
         })),
       );
-      for (const item of input.items) {
+      for (const item of items) {
         await tx
           .update(workOrder)
-          .set({ plannedDate: item.date })
+          .set({ plannedDate: dayOf(item.start) })
           .where(and(eq(workOrder.companyId, companyId), eq(workOrder.id, item.workOrderId)));
       }
     }
@@ -107,6 +143,6 @@ export async function acceptPackage(
       .set({ packageAcceptedAt: now, packageAcceptedBy: access.user.id, updatedAt: now })
       .where(and(eq(portStay.companyId, companyId), eq(portStay.id, stay.id)))
       .returning({ at: portStay.packageAcceptedAt });
-    return { acceptedAt: stamped!.at!.toISOString(), items: input.items.length, cleared };
+    return { acceptedAt: stamped!.at!.toISOString(), items: items.length, cleared };
   });
 }

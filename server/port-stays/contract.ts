@@ -3,20 +3,24 @@
 // Arrival and departure are typed as the ship's clock shows them ("2026-12-04T07:00", vessel zone);
 // the server turns them into instants with the vessel's zone (queries.ts).
 import { z } from "zod";
-import type { CrewCapacity } from "@/db/schema/port-stays";
-import { dayRangeProblem, enteredDay } from "@/server/http/dates";
+import type { CrewOnBoard, PortWatchRow } from "@/db/schema/port-stays";
+import { dayRangeProblem } from "@/server/http/dates";
 import { optionalText, requiredText } from "@/server/http/text-fields";
-import type { DayUsage, LeftOutReason, PlanningState, Tier } from "@/server/planning/proposal";
-import { SHIP_DAY_FORMAT } from "@/server/readings/contract";
+import type { Group, Urgency } from "@/server/planning/job-classes";
+import type { StayPlan } from "@/server/planning/stay-planner";
+import type { LeftOutReason } from "@/server/planning/stay-plan-words";
+import type { OpenState } from "@/db/schema/work-order-states";
 import { RANKS } from "@/server/routines/contract";
 
 export const MAX_STAY_DAYS = 30;
-export const MAX_IMMOBILISATION_HOURS = 720;
-/** A rank's maintenance hours on one day: 24 h for each of up to about eight people of the rank. */
-export const MAX_RANK_HOURS_PER_DAY = 200;
+/** People of one rank on board for maintenance: more than any engine department has. */
+export const MAX_HEADS_PER_RANK = 20;
+export const MAX_WATCHES = 60;
 export const MAX_PACKAGE_ITEMS = 500;
+export const DEFAULT_WORKDAY = { from: "08:00", to: "17:00" } as const;
 
 const SHIP_TIME = /^(\d{4})-(\d{2})-(\d{2})T([01]\d|2[0-3]):([0-5]\d)$/;
+const CLOCK = /^([01]\d|2[0-3]):([0-5]\d)$|^24:00$/;
 
 /** A ship's clock date-time "YYYY-MM-DDTHH:mm" (the value of an <input type="datetime-local">). */
 function shipTime(what: string) {
@@ -39,70 +43,105 @@ function shipTime(what: string) {
     });
 }
 
-/** A number of hours with at most one decimal, as Keelson stores hours (tenths). */
-function tenthsOfHours(what: string, max: number) {
-  const message = `${what}: enter hours from 0 to ${max}, with at most one decimal.`;
+/** A time of the ship's day "HH:mm" ("24:00" for the end of the day). */
+function clock(what: string) {
   return z
-    .number({ message })
-    .min(0, { message })
-    .max(max, { message })
-    .refine((v) => Math.abs(v * 10 - Math.round(v * 10)) < 1e-6, { message });
+    .string({ message: `Enter the ${what} as a ship’s time, e.g. 08:00.` })
+    .regex(CLOCK, { message: `Enter the ${what} as a 24-hour ship’s time, e.g. 08:00.` });
+}
+
+/** "08:30" → 510 minutes after the ship's midnight. */
+export function clockMinutes(value: string): number {
+  const [h, m] = value.split(":").map(Number) as [number, number];
+  return h * 60 + m;
 }
 
 export const CrewRow = z.object({
   rank: z.enum(RANKS, { message: "Choose the rank." }),
-  manHoursPerDay: tenthsOfHours("Man-hours a day", MAX_RANK_HOURS_PER_DAY),
+  count: z
+    .number({ message: "People: enter a whole number." })
+    .int({ message: "People: enter a whole number." })
+    .min(0, { message: "People: enter 0 or more." })
+    .max(MAX_HEADS_PER_RANK, { message: `People: at most ${MAX_HEADS_PER_RANK} of one rank.` }),
 });
 
-/** Wall-clock minutes between two ship's times, ignoring clock changes (enough for "after" and "30 days"). */
+export const WatchRow = z.object({
+  rank: z.enum(RANKS, { message: "Choose the rank who keeps the watch." }),
+  person: z
+    .number({ message: "Person: enter which one of the rank (1, 2, …)." })
+    .int({ message: "Person: enter a whole number." })
+    .min(1, { message: "Person: the first of a rank is 1." })
+    .max(MAX_HEADS_PER_RANK, { message: `Person: at most ${MAX_HEADS_PER_RANK}.` }),
+  from: shipTime("watch's start"),
+  to: shipTime("watch's end"),
+  label: requiredText("watch (cargo, bunkering…)", 60),
+});
+
+/** Wall-clock minutes of a ship's time, ignoring clock changes (enough for "after" and "30 days"). */
 export function shipTimeMinutes(value: string): number {
   const m = SHIP_TIME.exec(value);
   if (!m) return Number.NaN;
   return Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]), Number(m[4]), Number(m[5])) / 60_000;
 }
 
+const EngineStop = z.object({ from: shipTime("engine stop's start"), to: shipTime("engine stop's end") });
+
 const PortStayFields = z.object({
   port: requiredText("port name", 80),
   arrivesAt: shipTime("arrival"),
   departsAt: shipTime("departure"),
-  engineMayStop: z.boolean({ message: "Say whether the main engine may be immobilised." }),
-  immobilisationHours: tenthsOfHours("Immobilisation", MAX_IMMOBILISATION_HOURS),
-  crew: z.array(CrewRow, { message: "List the crew’s man-hours per rank." }).max(RANKS.length, {
+  workdayFrom: clock("working day's start"),
+  workdayTo: clock("working day's end"),
+  /** When the main engine may be immobilised, in the stay; null when it may not. */
+  engineStop: EngineStop.nullable(),
+  crew: z.array(CrewRow, { message: "List the crew on board per rank." }).max(RANKS.length, {
     message: `At most one row per rank (${RANKS.length}).`,
   }),
+  watches: z
+    .array(WatchRow, { message: "List the port watches." })
+    .max(MAX_WATCHES, { message: `At most ${MAX_WATCHES} port watches in a stay.` }),
   remarks: optionalText("remarks", 2000).transform((v) => v ?? ""),
 });
 
+type Fields = z.output<typeof PortStayFields>;
+
+function within(stay: Fields, from: string, to: string): boolean {
+  return shipTimeMinutes(from) >= shipTimeMinutes(stay.arrivesAt) && shipTimeMinutes(to) <= shipTimeMinutes(stay.departsAt);
+}
+
 /** The rules between fields, each naming the field to correct. */
-function checkStay(stay: z.output<typeof PortStayFields>, ctx: z.RefinementCtx) {
+function checkStay(stay: Fields, ctx: z.RefinementCtx) {
+  const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
   const minutes = shipTimeMinutes(stay.departsAt) - shipTimeMinutes(stay.arrivesAt);
-  if (minutes <= 0) {
-    ctx.addIssue({ code: "custom", path: ["departsAt"], message: "The departure must be after the arrival." });
-  } else if (minutes > MAX_STAY_DAYS * 24 * 60) {
-    ctx.addIssue({
-      code: "custom",
-      path: ["departsAt"],
-      message: `A port stay lasts at most ${MAX_STAY_DAYS} days; enter a longer call as several stays.`,
-    });
+  if (minutes <= 0) issue(["departsAt"], "The departure must be after the arrival.");
+  else if (minutes > MAX_STAY_DAYS * 24 * 60) {
+    issue(["departsAt"], `A port stay lasts at most ${MAX_STAY_DAYS} days; enter a longer call as several stays.`);
   }
-  if (!stay.engineMayStop && stay.immobilisationHours > 0) {
-    ctx.addIssue({
-      code: "custom",
-      path: ["immobilisationHours"],
-      message: "The engine may not be immobilised in this stay: set the immobilisation to 0 h, or allow it.",
-    });
+  if (clockMinutes(stay.workdayTo) <= clockMinutes(stay.workdayFrom)) {
+    issue(["workdayTo"], "The working day ends after it starts, on the same day.");
+  }
+  if (stay.engineStop) {
+    const { from, to } = stay.engineStop;
+    if (shipTimeMinutes(to) <= shipTimeMinutes(from)) issue(["engineStop", "to"], "The engine stop ends after it starts.");
+    else if (minutes > 0 && !within(stay, from, to)) {
+      issue(["engineStop", "from"], "The engine stop lies within the stay, between arrival and departure.");
+    }
   }
   const seen = new Map<string, number>();
   stay.crew.forEach((row, i) => {
     const first = seen.get(row.rank);
-    if (first !== undefined) {
-      ctx.addIssue({
-        code: "custom",
-        path: ["crew", i, "rank"],
-        message: `This rank is already on row ${first + 1}: give each rank one row with its total hours.`,
-      });
-    } else {
-      seen.set(row.rank, i);
+    if (first !== undefined) issue(["crew", i, "rank"], `This rank is already on row ${first + 1}: give each rank one row.`);
+    else seen.set(row.rank, i);
+  });
+  const heads = new Map(stay.crew.map((row) => [row.rank, row.count]));
+  stay.watches.forEach((w, i) => {
+    const count = heads.get(w.rank) ?? 0;
+    if (w.person > count) {
+      issue(["watches", i, "person"], count === 0 ? "No one of this rank is in the crew list." : `The crew list has ${count} of this rank.`);
+    }
+    if (shipTimeMinutes(w.to) <= shipTimeMinutes(w.from)) issue(["watches", i, "to"], "The watch ends after it starts.");
+    else if (minutes > 0 && !within(stay, w.from, w.to)) {
+      issue(["watches", i, "from"], "A port watch lies within the stay, between arrival and departure.");
     }
   });
 }
@@ -120,9 +159,19 @@ export const DeleteStayQuery = z.object({
   releasePackage: z.enum(["true", "false"]).optional(),
 });
 
+const PERSON_KEY = /^[a-z-]{1,40}#([1-9]|1\d|20)$/;
+
 export const PackageItemInput = z.object({
   workOrderId: z.uuid({ message: "This is not a work-order id." }),
-  date: enteredDay("planned", "The job’s day in the stay", SHIP_DAY_FORMAT),
+  /** When the job starts, on the ship's clock; it runs on the next working hours until done. */
+  start: shipTime("job's start"),
+  /** Who does it ("motorman#2"); the server picks the least-worked free people when left out. */
+  people: z
+    .array(z.string().regex(PERSON_KEY, { message: "Name a person as rank#number, e.g. motorman#2." }), {
+      message: "List the people as rank#number.",
+    })
+    .max(MAX_HEADS_PER_RANK, { message: `At most ${MAX_HEADS_PER_RANK} people on one job.` })
+    .optional(),
   /** Why the work is in the package: the proposal's sentence, or the chief's own words. */
   reason: optionalText("reason", 500),
 });
@@ -141,7 +190,7 @@ export const PackageInput = z
         ctx.addIssue({
           code: "custom",
           path: ["items", i, "workOrderId"],
-          message: `This work order is already item ${first + 1} of the package; a job goes on one day.`,
+          message: `This work order is already item ${first + 1} of the package; a job goes in once.`,
         });
       } else {
         seen.set(item.workOrderId, i);
@@ -151,6 +200,8 @@ export const PackageInput = z
 export type PackageInput = z.input<typeof PackageInput>;
 
 /* ---- What the pages get back ---- */
+
+export type WatchView = PortWatchRow & { fromLocal: string; toLocal: string };
 
 export type PortStayView = {
   id: string;
@@ -162,9 +213,11 @@ export type PortStayView = {
   departsLocal: string;
   /** The stay's ship's days, first to last. */
   days: string[];
-  engineMayStop: boolean;
-  immobilisationHours: number;
-  crew: CrewCapacity[];
+  workdayFrom: string;
+  workdayTo: string;
+  engineStop: { from: string; to: string; fromLocal: string; toLocal: string } | null;
+  crew: CrewOnBoard[];
+  watches: WatchView[];
   remarks: string;
   packageAcceptedAt: string | null;
   packageAcceptedBy: string | null;
@@ -175,22 +228,24 @@ export type PortStayList = {
   timeZone: string;
   upcoming: PortStayView[];
   past: PortStayView[];
-  /** The crew table of the latest stay, to start a new one from. */
-  latestCrew: CrewCapacity[];
+  /** The crew table and working day of the latest stay, to start a new one from. */
+  latest: { crew: CrewOnBoard[]; workdayFrom: string; workdayTo: string } | null;
   may: { plan: boolean };
 };
 
-/** A work order as the package shows it, on a day, with the facts the page checks capacity with. */
+/** A work order as the package shows it, with the facts the planner and the page use. */
 export type PackageJob = {
   workOrderId: string;
   number: string;
   title: string;
   componentCode: string;
   componentName: string;
-  state: PlanningState | "done";
-  rank: string;
+  state: OpenState | "done";
+  team: CrewOnBoard[];
+  elapsedHours: number;
   manHours: number;
   needsEngineStop: boolean;
+  needsPort: boolean;
   critical: boolean;
   classRelated: boolean;
   dueAt: string | null;
@@ -198,28 +253,50 @@ export type PackageJob = {
   planUntil: string | null;
 };
 
-export type PackageItemView = PackageJob & { date: string; reason: string; tier: Tier | null };
+/** A job on the stay's clock: its working periods and its people. */
+export type PlacedView = PackageJob & {
+  start: string;
+  end: string;
+  /** The ship's clock value of the start, as the timeline moves it. */
+  startLocal: string;
+  segments: { from: string; to: string }[];
+  people: string[];
+  reason: string;
+  /** Why the proposal took it; null for a job added by hand. */
+  urgency: Urgency | null;
+  group: Group;
+};
 
 export type PortStayDetail = {
   vessel: { id: string; name: string; code: string; timeZone: string };
   stay: PortStayView;
-  /** The accepted package, in its order. */
-  items: PackageItemView[];
+  /** The accepted package, by start. */
+  items: PlacedView[];
   now: string;
   may: { plan: boolean };
 };
 
-export type LeftOutView = PackageJob & { tier: Tier; reason: LeftOutReason; message: string };
+export type LeftOutView = PackageJob & { urgency: Urgency; group: Group; reason: LeftOutReason; message: string };
 
 export type ProposalView = {
   horizon: string;
   /** The next stay that sets the horizon, or null when the look-ahead does. */
   nextStay: { port: string; arrivesAt: string } | null;
   lookAheadDays: number | null;
-  items: PackageItemView[];
+  items: PlacedView[];
   leftOut: LeftOutView[];
-  usage: DayUsage[];
-  immobilisation: { allowed: number; used: number };
+  atSea: StayPlan["atSea"];
+  people: StayPlan["people"];
+  /** The priority-weighted work placed, and what placing every considered job would be worth. */
+  value: number;
+  possible: number;
+  slotMinutes: number;
 };
+
+/** A problem with one item of a package (the timeline shows it on the job). */
+export type PackageProblem = { item: number; field: "start" | "people" | "workOrderId"; message: string };
+
+/** The package as the server would store it: each item placed, or the problems that refuse it. */
+export type PackageCheck = { items: PlacedView[]; problems: PackageProblem[] };
 
 export type PackageResult = { acceptedAt: string; items: number; cleared: number };

@@ -1,6 +1,6 @@
 // The proposed work package of a port stay: loads the vessel's open work orders and the next stay,
-// runs the planner (server/planning/proposal.ts, pure) and dresses its answer for the page. Nothing
-// is written: the chief edits the proposal and accepts it (accept.ts).
+// runs the planner (server/planning/stay-planner.ts, pure) and dresses its answer for the page.
+// Nothing is written: the chief moves jobs on the timeline and accepts (accept.ts).
 import "server-only";
 import { and, asc, eq, gt, inArray, ne } from "drizzle-orm";
 import { getDb } from "@/db/client";
@@ -8,10 +8,11 @@ import { component, portStay, workOrder } from "@/db/schema";
 import { OPEN_STATES_BY_URGENCY } from "@/db/schema/work-order-states";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { AppError } from "@/server/http/problem";
-import { type Candidate, DEFAULT_LOOK_AHEAD_DAYS, proposeWorkPackage } from "@/server/planning/proposal";
+import { DEFAULT_SLOT_MINUTES } from "@/server/planning/stay-grid";
+import { DEFAULT_LOOK_AHEAD_DAYS, planPortStay } from "@/server/planning/stay-planner";
 import type { PackageJob, ProposalView } from "./contract";
-import { findStay, jobColumns, packagedElsewhere, toJob } from "./queries";
-import { stayDays } from "./stay-days";
+import { planJobOf, planStayOf } from "./plan-input";
+import { findStay, jobColumns, packagedElsewhere, placedView, toJob } from "./queries";
 
 export async function proposePackage(
   access: Access,
@@ -41,7 +42,7 @@ export async function proposePackage(
     .limit(1);
 
   const rows = await db
-    .select({ ...jobColumns, outOfToleranceAt: workOrder.outOfToleranceAt })
+    .select(jobColumns)
     .from(workOrder)
     .innerJoin(component, eq(component.id, workOrder.componentId))
     .where(
@@ -54,54 +55,38 @@ export async function proposePackage(
   // Work already in the package of another stay still to come is planned there, not here.
   const elsewhere = await packagedElsewhere(db, companyId, vessel.id, stay.id, now);
   const jobs = new Map<string, PackageJob>();
-  const candidates: Candidate[] = [];
   for (const r of rows) {
     if (elsewhere.has(r.workOrderId) || r.state === "done") continue;
     jobs.set(r.workOrderId, toJob(r));
-    candidates.push({
-      id: r.workOrderId,
-      number: r.number,
-      title: r.title,
-      state: r.state,
-      rank: r.rank,
-      estimatedManHours: r.manHours,
-      needsEngineStop: r.needsEngineStop,
-      critical: r.critical,
-      classRelated: r.classRelated,
-      dueAt: r.deferredDueDate ?? r.dueDate,
-      outOfToleranceAt: r.outOfToleranceAt,
-      planFrom: r.planFrom,
-      planUntil: r.planUntil,
-    });
   }
+  const outOfTolerance = new Map(rows.map((r) => [r.workOrderId, r.outOfToleranceAt]));
 
-  const proposal = proposeWorkPackage({
-    stay: {
-      days: stayDays(stay.arrivesAt, stay.departsAt, vessel.timeZone),
-      departsAt: stay.departsAt,
-      engineMayStop: stay.engineMayStop,
-      immobilisationHours: stay.immobilisationHours,
-    },
+  const plan = planPortStay({
+    stay: planStayOf(stay, vessel.timeZone),
     nextStayArrivesAt: next?.arrivesAt ?? null,
     lookAheadDays: DEFAULT_LOOK_AHEAD_DAYS,
-    crew: stay.crew,
-    candidates,
-    timeZone: vessel.timeZone,
+    jobs: [...jobs.values()].map((j) => planJobOf(j, outOfTolerance.get(j.workOrderId) ?? null)),
   });
 
   const job = (id: string) => jobs.get(id)!;
   return {
-    horizon: proposal.horizon.toISOString(),
+    horizon: plan.horizon.toISOString(),
     nextStay: next ? { port: next.port, arrivesAt: next.arrivesAt.toISOString() } : null,
     lookAheadDays: next ? null : DEFAULT_LOOK_AHEAD_DAYS,
-    items: proposal.items.map((i) => ({ ...job(i.workOrderId), date: i.date, reason: i.reason, tier: i.tier })),
-    leftOut: proposal.leftOut.map((l) => ({
+    items: plan.placed.map((p) =>
+      placedView(job(p.workOrderId), p, vessel.timeZone, { reason: p.reason, urgency: p.urgency }),
+    ),
+    leftOut: plan.leftOut.map((l) => ({
       ...job(l.workOrderId),
-      tier: l.tier,
+      urgency: l.urgency,
+      group: l.group,
       reason: l.reason,
       message: l.message,
     })),
-    usage: proposal.usage,
-    immobilisation: proposal.immobilisation,
+    atSea: plan.atSea,
+    people: plan.people,
+    value: plan.value,
+    possible: plan.possible,
+    slotMinutes: DEFAULT_SLOT_MINUTES,
   };
 }

@@ -8,9 +8,12 @@ import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { lockVesselWorkOrders } from "@/server/work-orders/lock";
 import { AppError, fieldErrorsFromZod, invalidInput } from "@/server/http/problem";
+import { groupOf } from "@/server/planning/job-classes";
+import { checkPackage } from "@/server/planning/package-check";
 import {
-  type PackageItemView,
+  clockMinutes,
   type PackageJob,
+  type PlacedView,
   type PortStayDetail,
   PortStayInput,
   type PortStayList,
@@ -18,8 +21,8 @@ import {
   type PortStayValues,
   type PortStayView,
 } from "./contract";
-import { capacityProblems } from "./capacity";
-import { instantOfShipDateTime, shipDateTimeOf, stayDays } from "./stay-days";
+import { planJobOf, planStayOf } from "./plan-input";
+import { clockWords, instantOfShipDateTime, shipDateTimeOf, stayDays } from "./stay-days";
 
 const PAST_LIMIT = 20;
 
@@ -38,17 +41,28 @@ export async function findStay(db: Db | Tx, access: Access, vessel: VesselRef, s
 }
 
 function stayView(row: StayRow, timeZone: string, itemCount: number, acceptedBy: string | null): PortStayView {
+  const local = (instant: Date) => shipDateTimeOf(instant, timeZone);
   return {
     id: row.id,
     port: row.port,
     arrivesAt: row.arrivesAt.toISOString(),
     departsAt: row.departsAt.toISOString(),
-    arrivesLocal: shipDateTimeOf(row.arrivesAt, timeZone),
-    departsLocal: shipDateTimeOf(row.departsAt, timeZone),
+    arrivesLocal: local(row.arrivesAt),
+    departsLocal: local(row.departsAt),
     days: stayDays(row.arrivesAt, row.departsAt, timeZone),
-    engineMayStop: row.engineMayStop,
-    immobilisationHours: row.immobilisationHours,
+    workdayFrom: clockWords(row.workdayFrom),
+    workdayTo: clockWords(row.workdayTo),
+    engineStop:
+      row.engineStopFrom && row.engineStopTo
+        ? {
+            from: row.engineStopFrom.toISOString(),
+            to: row.engineStopTo.toISOString(),
+            fromLocal: local(row.engineStopFrom),
+            toLocal: local(row.engineStopTo),
+          }
+        : null,
     crew: row.crew,
+    watches: row.watches.map((w) => ({ ...w, fromLocal: local(new Date(w.from)), toLocal: local(new Date(w.to)) })),
     remarks: row.remarks,
     packageAcceptedAt: row.packageAcceptedAt?.toISOString() ?? null,
     packageAcceptedBy: acceptedBy,
@@ -77,13 +91,18 @@ export async function listPortStays(access: Access, vessel: VesselRef, now = new
       .limit(PAST_LIMIT),
   ]);
   const view = (r: (typeof upcoming)[number]) => stayView(r.s, vessel.timeZone, r.itemCount, r.acceptedBy);
-  // The crew of the stay entered last is the best guess for the next one.
-  const [latest] = await db.select({ crew: portStay.crew }).from(portStay).where(scope).orderBy(desc(portStay.createdAt)).limit(1);
+  // The crew and working day of the stay entered last are the best guess for the next one.
+  const [latest] = await db
+    .select({ crew: portStay.crew, from: portStay.workdayFrom, to: portStay.workdayTo })
+    .from(portStay)
+    .where(scope)
+    .orderBy(desc(portStay.createdAt))
+    .limit(1);
   return {
     timeZone: vessel.timeZone,
     upcoming: upcoming.map(view),
     past: past.map(view),
-    latestCrew: latest?.crew ?? [],
+    latest: latest ? { crew: latest.crew, workdayFrom: clockWords(latest.from), workdayTo: clockWords(latest.to) } : null,
     may: { plan: can(access.role, "work:plan") },
   };
 }
@@ -103,11 +122,29 @@ export const jobColumns = {
   classRelated: workOrder.classRelated,
   dueDate: workOrder.dueDate,
   deferredDueDate: workOrder.deferredDueDate,
+  outOfToleranceAt: workOrder.outOfToleranceAt,
   planFrom: workOrder.planFrom,
   planUntil: workOrder.planUntil,
 };
 
-type JobRow = Omit<PackageJob, "dueAt"> & { dueDate: Date | null; deferredDueDate: Date | null };
+export type JobRow = {
+  workOrderId: string;
+  number: string;
+  title: string;
+  componentCode: string;
+  componentName: string;
+  state: PackageJob["state"];
+  rank: string;
+  manHours: number;
+  needsEngineStop: boolean;
+  critical: boolean;
+  classRelated: boolean;
+  dueDate: Date | null;
+  deferredDueDate: Date | null;
+  outOfToleranceAt: Date | null;
+  planFrom: string | null;
+  planUntil: string | null;
+};
 
 export function toJob(r: JobRow): PackageJob {
   const dueAt = r.deferredDueDate ?? r.dueDate;
@@ -118,9 +155,11 @@ export function toJob(r: JobRow): PackageJob {
     componentCode: r.componentCode,
     componentName: r.componentName,
     state: r.state,
-    rank: r.rank,
+    team: [{ rank: r.rank, count: 1 }],
+    elapsedHours: r.manHours,
     manHours: r.manHours,
     needsEngineStop: r.needsEngineStop,
+    needsPort: false,
     critical: r.critical,
     classRelated: r.classRelated,
     dueAt: dueAt?.toISOString() ?? null,
@@ -129,15 +168,49 @@ export function toJob(r: JobRow): PackageJob {
   };
 }
 
-export async function loadPackageItems(db: Db | Tx, companyId: string, stayId: string): Promise<PackageItemView[]> {
+/** A job of the package on the stay's clock, for the page. */
+export function placedView(
+  job: PackageJob,
+  placed: { segments: { from: Date; to: Date }[]; people: string[] },
+  timeZone: string,
+  extra: Pick<PlacedView, "reason" | "urgency">,
+): PlacedView {
+  const start = placed.segments[0]!.from;
+  return {
+    ...job,
+    start: start.toISOString(),
+    end: placed.segments[placed.segments.length - 1]!.to.toISOString(),
+    startLocal: shipDateTimeOf(start, timeZone),
+    segments: placed.segments.map((s) => ({ from: s.from.toISOString(), to: s.to.toISOString() })),
+    people: placed.people,
+    group: groupOf({ needsEngineStop: job.needsEngineStop, needsPort: job.needsPort, tiedTo: null }),
+    ...extra,
+  };
+}
+
+export async function loadPackageItems(
+  db: Db | Tx,
+  companyId: string,
+  stayId: string,
+  timeZone: string,
+): Promise<PlacedView[]> {
   const rows = await db
-    .select({ ...jobColumns, date: workPackageItem.plannedDate, reason: workPackageItem.reason })
+    .select({
+      ...jobColumns,
+      date: workPackageItem.plannedDate,
+      reason: workPackageItem.reason,
+      segments: workPackageItem.segments,
+      people: workPackageItem.people,
+    })
     .from(workPackageItem)
     .innerJoin(workOrder, and(eq(workOrder.id, workPackageItem.workOrderId), eq(workOrder.companyId, companyId)))
     .innerJoin(component, eq(component.id, workOrder.componentId))
     .where(and(eq(workPackageItem.companyId, companyId), eq(workPackageItem.portStayId, stayId)))
-    .orderBy(asc(workPackageItem.plannedDate), asc(workPackageItem.position));
-  return rows.map((r) => ({ ...toJob(r), date: r.date, reason: r.reason, tier: null }));
+    .orderBy(asc(workPackageItem.startsAt), asc(workPackageItem.position));
+  return rows.map((r) => {
+    const segments = r.segments.map((s) => ({ from: new Date(s.from), to: new Date(s.to) }));
+    return placedView(toJob(r), { segments, people: r.people }, timeZone, { reason: r.reason, urgency: null });
+  });
 }
 
 export async function loadPortStay(
@@ -148,7 +221,7 @@ export async function loadPortStay(
 ): Promise<PortStayDetail> {
   const db = getDb();
   const row = await findStay(db, access, vessel, stayId);
-  const items = await loadPackageItems(db, access.company.id, row.id);
+  const items = await loadPackageItems(db, access.company.id, row.id, vessel.timeZone);
   const [accepter] = row.packageAcceptedBy
     ? await db.select({ name: user.name }).from(user).where(eq(user.id, row.packageAcceptedBy))
     : [];
@@ -163,8 +236,9 @@ export async function loadPortStay(
 
 /** The stay's columns from the form's ship's-clock values; refuses a clock change that undoes the order. */
 function stayColumns(values: PortStayValues, timeZone: string) {
-  const arrivesAt = instantOfShipDateTime(values.arrivesAt, timeZone);
-  const departsAt = instantOfShipDateTime(values.departsAt, timeZone);
+  const at = (value: string) => instantOfShipDateTime(value, timeZone);
+  const arrivesAt = at(values.arrivesAt);
+  const departsAt = at(values.departsAt);
   if (departsAt <= arrivesAt) {
     throw invalidInput([
       { field: "departsAt", message: "The departure must be after the arrival (mind the clock change that night)." },
@@ -174,10 +248,37 @@ function stayColumns(values: PortStayValues, timeZone: string) {
     port: values.port,
     arrivesAt,
     departsAt,
-    engineMayStop: values.engineMayStop,
-    immobilisationHours: values.engineMayStop ? values.immobilisationHours : 0,
-    crew: values.crew,
+    workdayFrom: clockMinutes(values.workdayFrom),
+    workdayTo: clockMinutes(values.workdayTo),
+    engineStopFrom: values.engineStop ? at(values.engineStop.from) : null,
+    engineStopTo: values.engineStop ? at(values.engineStop.to) : null,
+    // Only people on board keep a stay's hours: a rank of 0 is the same as no row.
+    crew: values.crew.filter((row) => row.count > 0),
+    watches: values.watches.map((w) => ({
+      rank: w.rank,
+      person: w.person,
+      from: at(w.from).toISOString(),
+      to: at(w.to).toISOString(),
+      label: w.label,
+    })),
     remarks: values.remarks,
+  };
+}
+
+/** The form's values of a stored stay: what a change is merged into. */
+function stayValues(row: StayRow, timeZone: string): PortStayInput {
+  const local = (instant: Date) => shipDateTimeOf(instant, timeZone);
+  return {
+    port: row.port,
+    arrivesAt: local(row.arrivesAt),
+    departsAt: local(row.departsAt),
+    workdayFrom: clockWords(row.workdayFrom),
+    workdayTo: clockWords(row.workdayTo),
+    engineStop:
+      row.engineStopFrom && row.engineStopTo ? { from: local(row.engineStopFrom), to: local(row.engineStopTo) } : null,
+    crew: row.crew as PortStayInput["crew"],
+    watches: row.watches.map((w) => ({ ...w, rank: w.rank as PortStayInput["crew"][number]["rank"], from: local(new Date(w.from)), to: local(new Date(w.to)) })),
+    remarks: row.remarks,
   };
 }
 
@@ -203,53 +304,37 @@ export async function updatePortStay(
     await lockVesselWorkOrders(tx, vessel.id);
     const row = await findStay(tx, access, vessel, stayId);
     const merged = PortStayInput.safeParse({
-      port: row.port,
-      arrivesAt: shipDateTimeOf(row.arrivesAt, vessel.timeZone),
-      departsAt: shipDateTimeOf(row.departsAt, vessel.timeZone),
-      engineMayStop: row.engineMayStop,
-      immobilisationHours: row.immobilisationHours,
-      crew: row.crew,
-      remarks: row.remarks,
+      ...stayValues(row, vessel.timeZone),
       ...Object.fromEntries(Object.entries(patch).filter(([, v]) => v !== undefined)),
     });
     if (!merged.success) throw invalidInput(fieldErrorsFromZod(merged.error));
     const columns = stayColumns(merged.data, vessel.timeZone);
 
+    // The accepted package must still hold on the changed stay: same times, same people.
     const items = await tx
       .select({
-        date: workPackageItem.plannedDate,
-        number: workOrder.number,
-        rank: workOrder.rank,
-        manHours: workOrder.estimatedManHours,
-        needsEngineStop: workOrder.needsEngineStop,
+        ...jobColumns,
+        startsAt: workPackageItem.startsAt,
+        people: workPackageItem.people,
       })
       .from(workPackageItem)
       .innerJoin(workOrder, eq(workOrder.id, workPackageItem.workOrderId))
+      .innerJoin(component, eq(component.id, workOrder.componentId))
       .where(and(eq(workPackageItem.companyId, access.company.id), eq(workPackageItem.portStayId, row.id)))
       .orderBy(asc(workPackageItem.position));
-    const days = new Set(stayDays(columns.arrivesAt, columns.departsAt, vessel.timeZone));
-    const outside = items.filter((i) => !days.has(i.date));
-    if (outside.length) {
-      const field = "arrivesAt" in patch && patch.arrivesAt !== undefined ? "arrivesAt" : "departsAt";
-      throw invalidInput([
-        {
-          field,
-          message: `The accepted package has work on days outside these dates (${outside
-            .map((i) => `${i.number} on ${i.date}`)
-            .join(", ")}): move or remove those jobs first.`,
-        },
-      ]);
-    }
-    // Fewer hours for a rank, or less (or no) immobilisation: the accepted package must still fit.
-    const overrun = capacityProblems(columns, items);
-    if (overrun.length) {
-      const field = overrun.some((p) => p.kind === "crew") ? "crew" : columns.engineMayStop ? "immobilisationHours" : "engineMayStop";
-      throw invalidInput([
-        {
-          field,
-          message: `The accepted package would no longer fit: ${overrun.map((p) => p.message).join(" ")} Move or remove those jobs first.`,
-        },
-      ]);
+    if (items.length) {
+      const { problems } = checkPackage(
+        planStayOf({ ...row, ...columns }, vessel.timeZone),
+        items.map((i) => ({ job: planJobOf(toJob(i), i.outOfToleranceAt), start: i.startsAt ?? columns.arrivesAt, people: i.people })),
+      );
+      if (problems.length) {
+        throw invalidInput([
+          {
+            field: changedField(patch),
+            message: `The accepted package would no longer fit: ${problems.map((p) => p.message).join(" ")} Move or remove those jobs first.`,
+          },
+        ]);
+      }
     }
     const [updated] = await tx
       .update(portStay)
@@ -258,6 +343,12 @@ export async function updatePortStay(
       .returning();
     return stayView(updated!, vessel.timeZone, items.length, null);
   });
+}
+
+/** The field a refused change is reported on: the first one the patch changed that shapes the plan. */
+function changedField(patch: PortStayPatch): string {
+  const order = ["arrivesAt", "departsAt", "engineStop", "workdayFrom", "workdayTo", "crew", "watches"] as const;
+  return order.find((f) => patch[f] !== undefined) ?? "departsAt";
 }
 
 /**

@@ -7,7 +7,7 @@ import { component, routine, type RoutineCaution, workOrder, workPackageItem } f
 import type { Access, VesselRef } from "@/server/auth/access";
 import type { PortStayView } from "./contract";
 import { findStay } from "./queries";
-import { shipDateTimeOf, stayDays } from "./stay-days";
+import { clockWords, shipDateTimeOf, stayDays } from "./stay-days";
 
 export type SheetJob = {
   workOrderId: string;
@@ -21,13 +21,16 @@ export type SheetJob = {
   critical: boolean;
   classRelated: boolean;
   reason: string;
+  /** The working periods on the ship's clock: "2026-12-10T08:00" to "2026-12-10T17:00". */
+  segments: { from: string; to: string }[];
+  people: string[];
   checklist: string[];
   spareParts: string;
   cautions: RoutineCaution[];
 };
 
 export type PackageSheet = {
-  stay: Pick<PortStayView, "id" | "port" | "arrivesAt" | "departsAt" | "arrivesLocal" | "departsLocal" | "engineMayStop" | "immobilisationHours" | "packageAcceptedAt" | "remarks">;
+  stay: Pick<PortStayView, "id" | "port" | "arrivesAt" | "departsAt" | "arrivesLocal" | "departsLocal" | "workdayFrom" | "workdayTo" | "engineStop" | "packageAcceptedAt" | "remarks">;
   days: { day: string; jobs: SheetJob[] }[];
 };
 
@@ -39,6 +42,8 @@ export async function loadPackageSheet(access: Access, vessel: VesselRef, stayId
     .select({
       date: workPackageItem.plannedDate,
       reason: workPackageItem.reason,
+      segments: workPackageItem.segments,
+      people: workPackageItem.people,
       workOrderId: workOrder.id,
       number: workOrder.number,
       title: workOrder.title,
@@ -58,13 +63,15 @@ export async function loadPackageSheet(access: Access, vessel: VesselRef, stayId
     .innerJoin(component, eq(component.id, workOrder.componentId))
     .leftJoin(routine, and(eq(routine.id, workOrder.routineId), eq(routine.companyId, companyId)))
     .where(and(eq(workPackageItem.companyId, companyId), eq(workPackageItem.portStayId, stay.id)))
-    .orderBy(asc(workPackageItem.plannedDate), asc(workPackageItem.position));
+    .orderBy(asc(workPackageItem.startsAt), asc(workPackageItem.position));
+  const local = (iso: string) => shipDateTimeOf(new Date(iso), vessel.timeZone);
   const days = stayDays(stay.arrivesAt, stay.departsAt, vessel.timeZone).map((day) => ({
     day,
     jobs: rows
       .filter((r) => r.date === day)
-      .map(({ date: _date, checklist, spareParts, cautions, ...r }) => ({
+      .map(({ date: _date, checklist, spareParts, cautions, segments, ...r }) => ({
         ...r,
+        segments: segments.map((x) => ({ from: local(x.from), to: local(x.to) })),
         checklist: checklist ?? [],
         spareParts: spareParts ?? "",
         cautions: cautions ?? [],
@@ -78,8 +85,17 @@ export async function loadPackageSheet(access: Access, vessel: VesselRef, stayId
       departsAt: stay.departsAt.toISOString(),
       arrivesLocal: shipDateTimeOf(stay.arrivesAt, vessel.timeZone),
       departsLocal: shipDateTimeOf(stay.departsAt, vessel.timeZone),
-      engineMayStop: stay.engineMayStop,
-      immobilisationHours: stay.immobilisationHours,
+      workdayFrom: clockWords(stay.workdayFrom),
+      workdayTo: clockWords(stay.workdayTo),
+      engineStop:
+        stay.engineStopFrom && stay.engineStopTo
+          ? {
+              from: stay.engineStopFrom.toISOString(),
+              to: stay.engineStopTo.toISOString(),
+              fromLocal: shipDateTimeOf(stay.engineStopFrom, vessel.timeZone),
+              toLocal: shipDateTimeOf(stay.engineStopTo, vessel.timeZone),
+            }
+          : null,
       packageAcceptedAt: stay.packageAcceptedAt?.toISOString() ?? null,
       remarks: stay.remarks,
     },

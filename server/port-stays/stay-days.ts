@@ -28,3 +28,8 @@ export function instantOfShipDateTime(value: string, timeZone: string): Date {
 export function shipDateTimeOf(instant: Date, timeZone: string): string {
   return `${shipDay(instant, timeZone)}T${shipClock(instant, timeZone)}`;
 }
+
+/** 510 minutes after the ship's midnight → "08:30" (1440 → "24:00"). */
+export function clockWords(minutes: number): string {
+  return `${String(Math.floor(minutes / 60)).padStart(2, "0")}:${String(minutes % 60).padStart(2, "0")}`;
+}

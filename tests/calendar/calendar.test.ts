@@ -140,8 +140,8 @@ beforeAll(async () => {
       port: "Test harbour",
       arrivesAt: instantOfShipTime(day(5), "07:00", TZ),
       departsAt: instantOfShipTime(day(6), "19:00", TZ),
-      engineMayStop: true,
-      immobilisationHours: 12,
+      engineStopFrom: instantOfShipTime(day(5), "07:00", TZ),
+      engineStopTo: instantOfShipTime(day(5), "19:00", TZ),
     },
     {
       companyId,
@@ -185,7 +185,7 @@ describe("GET /api/vessels/[vesselId]/calendar", () => {
         port: "Test harbour",
         firstDay: day(5),
         lastDay: day(6),
-        engineMayStop: true,
+        engineStopHours: 12,
         packageAccepted: false,
       }),
     ]);

@@ -1,5 +1,6 @@
 import Link from "next/link";
 import type { CalendarPortStay } from "@/server/calendar/contract";
+import { formatHours } from "@/server/format/hours";
 import { shortDay } from "./calendar-days";
 
 type PortStaysInViewProps = { vesselId: string; stays: CalendarPortStay[] | undefined; loading: boolean };
@@ -28,7 +29,7 @@ export function PortStaysInView({ vesselId, stays, loading }: PortStaysInViewPro
               <span className="block text-xs text-ink-600 dark:text-ink-300">
                 {s.firstDay === s.lastDay ? shortDay(s.firstDay) : `${shortDay(s.firstDay)} – ${shortDay(s.lastDay)}`}
                 {" · "}
-                {s.engineMayStop ? `engine may stop ${s.immobilisationHours} h` : "engine on standby"}
+                {s.engineStopHours !== null ? `engine may stop ${formatHours(s.engineStopHours)}` : "engine on standby"}
                 {" · "}
                 {s.packageAccepted ? "package accepted" : "no package accepted yet"}
               </span>
