@@ -46,13 +46,12 @@ export function buildStayGrid(
   }
   const slotMs = slotMinutes * 60_000;
   const first = Math.ceil(arrivesAt.getTime() / slotMs) * slotMs;
-  const count = Math.floor((departsAt.getTime() - first) / slotMs);
-  if (!Number.isFinite(count) || count < 1) {
-    throw invalidInput([{ field: "stay.departsAt", message: "The stay must last at least one slot of work." }]);
-  }
-  if (count > (MAX_GRID_DAYS * 1440) / slotMinutes) {
-    throw invalidInput([{ field: "stay.departsAt", message: `A stay is planned over at most ${MAX_GRID_DAYS} days.` }]);
-  }
+  const span = Math.floor((departsAt.getTime() - first) / slotMs);
+  if (Number.isNaN(span)) throw invalidInput([{ field: "stay.departsAt", message: "The stay needs an arrival and a departure." }]);
+  // A stay longer than the contract allows can only be old or bad data: it is planned over its
+  // first MAX_GRID_DAYS days, never walked to its end.
+  // A stay shorter than one slot has no working time: every job is left out, saying so.
+  const count = Math.max(0, Math.min(span, (MAX_GRID_DAYS * 1440) / slotMinutes));
   const slots: Slot[] = [];
   const workable: number[] = [];
   for (let i = 0; i < count; i++) {

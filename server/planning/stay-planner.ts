@@ -14,6 +14,7 @@
 // out) to earlier places in the order, keeping a move when the value grows (at most 200 passes, fewer
 // on big vessels: 20,000 / jobs). Each pass is at most jobs × starts × people
 // checks; tests compare the result with HiGHS's exact optimum (server/planning/optimum.test.ts).
+import { TZDate } from "@date-fns/tz";
 import { invalidInput } from "@/server/http/problem";
 import { buildCrewLedger, copyLedger, type CrewLedger, type PortWatch, type TeamNeed } from "./crew-ledger";
 import { classify, valueOf, type Classified, type Group, type PlanJob, type Urgency } from "./job-classes";
@@ -130,8 +131,10 @@ function whyLeftOut(c: Classified, grid: StayGrid, stay: PlanStay, pass: Pass): 
   const bounds = boundsOf(job, grid, stay);
   const need = slotsFor(job.elapsedHours, grid);
   if (job.needsEngineStop && !stay.immobilisation) return "engine-stop-not-allowed";
+  if (grid.workable.length === 0) return "longer-than-stay";
   if (bounds.days[0] >= bounds.days[1] || workableIn(grid, bounds.days) === 0) {
-    return job.planFrom !== null && job.planFrom > grid.slots[grid.slots.length - 1]!.day ? "window-not-open" : "past-grace";
+    const lastDay = grid.slots.at(-1)?.day ?? "";
+    return job.planFrom !== null && job.planFrom > lastDay ? "window-not-open" : "past-grace";
   }
   if (need > grid.workable.length) return "longer-than-stay";
   if (bounds.engineStop && need > workableIn(grid, bounds.engineStop)) return "longer-than-engine-stop";
@@ -192,7 +195,8 @@ export function planPortStay(input: StayPlanInput): StayPlan {
     if (pass.value > best!.value + 1e-9) best = current;
   }
   const pass = best!;
-  const ctx = { timeZone: stay.timeZone, year: Number(grid.slots[0]!.day.slice(0, 4)), horizon, stay, nextStay: input.nextStayArrivesAt };
+  const year = new TZDate(stay.arrivesAt, stay.timeZone).getFullYear();
+  const ctx = { timeZone: stay.timeZone, year, horizon, stay, nextStay: input.nextStayArrivesAt };
 
   const placed: PlacedJob[] = [];
   const leftOut: LeftOutJob[] = [];

@@ -133,7 +133,8 @@ function checkStay(stay: Fields, ctx: z.RefinementCtx) {
     if (first !== undefined) issue(["crew", i, "rank"], `This rank is already on row ${first + 1}: give each rank one row.`);
     else seen.set(row.rank, i);
   });
-  const heads = new Map(stay.crew.map((row) => [row.rank, row.count]));
+  // A repeated rank is reported above; its first row counts here.
+  const heads = new Map([...stay.crew].reverse().map((row) => [row.rank, row.count]));
   stay.watches.forEach((w, i) => {
     const count = heads.get(w.rank) ?? 0;
     if (w.person > count) {

@@ -144,6 +144,7 @@ export const EXAMPLES: Record<string, (c: ExampleContext) => Example> = {
   "PATCH /api/vessels/[vesselId]/port-stays/[stayId]": () => ({ body: { port: "Antwerp" } }),
   "DELETE /api/vessels/[vesselId]/port-stays/[stayId]": () => ({ query: { releasePackage: "false" } }),
   "PUT /api/vessels/[vesselId]/port-stays/[stayId]/package": () => ({ body: { items: [] } }),
+  "POST /api/vessels/[vesselId]/port-stays/[stayId]/package/check": () => ({ body: { items: [] } }),
 };
 
 export function toleranceRule(name: string) {
@@ -164,8 +165,13 @@ export function portStay(c: ExampleContext) {
     port: "Rotterdam",
     arrivesAt: `${c.plannedDay}T08:00`,
     departsAt: `${c.laterDay}T17:00`,
-    engineMayStop: true,
-    immobilisationHours: 12,
-    crew: [{ rank: "second-engineer", manHoursPerDay: 8 }],
+    workdayFrom: "08:00",
+    workdayTo: "17:00",
+    engineStop: { from: `${c.plannedDay}T08:00`, to: `${c.plannedDay}T20:00` },
+    crew: [
+      { rank: "second-engineer", count: 1 },
+      { rank: "motorman", count: 2 },
+    ],
+    watches: [{ rank: "motorman", person: 2, from: `${c.plannedDay}T18:00`, to: `${c.plannedDay}T22:00`, label: "bunkering" }],
   };
 }

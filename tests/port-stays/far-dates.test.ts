@@ -17,7 +17,7 @@ let chief: Session;
 
 const base = () => `/api/vessels/${f.vesselA.id}/port-stays`;
 
-const CREW = [{ rank: "second-engineer", manHoursPerDay: 8 }];
+const CREW = [{ rank: "second-engineer", count: 1 }];
 
 async function stayCount() {
   return (await testDb().select().from(s.portStay).where(eq(s.portStay.companyId, f.companyId))).length;
@@ -32,7 +32,6 @@ async function storeStay(port: string, arrivesAt: string, departsAt: string): Pr
       port,
       arrivesAt: new Date(arrivesAt),
       departsAt: new Date(departsAt),
-      engineMayStop: false,
       crew: CREW,
     })
     .returning({ id: s.portStay.id });
@@ -55,9 +54,11 @@ describe("a port stay in year 9999", () => {
       port: "Far future",
       arrivesAt: "9999-12-31T07:00",
       departsAt: "9999-12-31T19:00",
-      engineMayStop: false,
-      immobilisationHours: 0,
+      workdayFrom: "08:00",
+      workdayTo: "17:00",
+      engineStop: null,
       crew: CREW,
+      watches: [],
     });
     expect(res.status).toBe(422);
     const fields = Object.fromEntries((res.body.errors ?? []).map((e) => [e.field, e.message]));
@@ -95,9 +96,9 @@ describe("a stay already stored with absurd dates", () => {
     for (const stayId of [lastDayOf9999, tenThousandYears]) {
       const res = await api<ProposalView>(chief, "POST", `${base()}/${stayId}/proposal`);
       expect(res.status).toBe(200);
-      // The company has no work orders: an empty package, the engine not to be stopped.
+      // The company has no work orders: an empty package, nothing of value to place.
       expect(res.body.items).toEqual([]);
-      expect(res.body.immobilisation).toEqual({ allowed: 0, used: 0 });
+      expect([res.body.value, res.body.possible]).toEqual([0, 0]);
     }
   });
 });
