@@ -1,9 +1,14 @@
 ALTER TABLE "port_stay" DROP CONSTRAINT "port_stay_immobilisation";--> statement-breakpoint
+ALTER TABLE "routine" DROP CONSTRAINT "routine_has_interval";--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "workday_from" smallint DEFAULT 480 NOT NULL;--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "workday_to" smallint DEFAULT 1020 NOT NULL;--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "engine_stop_from" timestamp with time zone;--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "engine_stop_to" timestamp with time zone;--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "watches" jsonb DEFAULT '[]'::jsonb NOT NULL;--> statement-breakpoint
+ALTER TABLE "routine" ADD COLUMN "port_event" text;--> statement-breakpoint
+ALTER TABLE "routine" ADD COLUMN "port_event_hours" numeric(5, 1);--> statement-breakpoint
+ALTER TABLE "work_order" ADD COLUMN "port_event" text;--> statement-breakpoint
+ALTER TABLE "work_order" ADD COLUMN "port_event_hours" numeric(5, 1);--> statement-breakpoint
 ALTER TABLE "work_package_item" ADD COLUMN "starts_at" timestamp with time zone;--> statement-breakpoint
 ALTER TABLE "work_package_item" ADD COLUMN "ends_at" timestamp with time zone;--> statement-breakpoint
 ALTER TABLE "work_package_item" ADD COLUMN "segments" jsonb DEFAULT '[]'::jsonb NOT NULL;--> statement-breakpoint
@@ -19,4 +24,6 @@ UPDATE "work_package_item" SET "segments" = jsonb_build_array(jsonb_build_object
 ALTER TABLE "port_stay" DROP COLUMN "engine_may_stop";--> statement-breakpoint
 ALTER TABLE "port_stay" DROP COLUMN "immobilisation_hours";--> statement-breakpoint
 ALTER TABLE "port_stay" ADD CONSTRAINT "port_stay_workday" CHECK ("port_stay"."workday_from" >= 0 and "port_stay"."workday_from" < "port_stay"."workday_to" and "port_stay"."workday_to" <= 1440);--> statement-breakpoint
-ALTER TABLE "port_stay" ADD CONSTRAINT "port_stay_engine_stop" CHECK (("port_stay"."engine_stop_from" is null and "port_stay"."engine_stop_to" is null) or "port_stay"."engine_stop_to" > "port_stay"."engine_stop_from");
+ALTER TABLE "port_stay" ADD CONSTRAINT "port_stay_engine_stop" CHECK (("port_stay"."engine_stop_from" is null and "port_stay"."engine_stop_to" is null) or "port_stay"."engine_stop_to" > "port_stay"."engine_stop_from");--> statement-breakpoint
+ALTER TABLE "routine" ADD CONSTRAINT "routine_port_event" CHECK (("routine"."port_event" is null and "routine"."port_event_hours" is null) or ("routine"."port_event_hours" > 0 and "routine"."interval_hours" is null and "routine"."calendar_rule" is null));--> statement-breakpoint
+ALTER TABLE "routine" ADD CONSTRAINT "routine_has_interval" CHECK ("routine"."interval_hours" is not null or "routine"."calendar_rule" is not null or "routine"."port_event" is not null);

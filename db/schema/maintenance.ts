@@ -77,6 +77,10 @@ export const routine = pgTable(
     estimatedManHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull().default(1),
     rank: text().notNull().default("engineer"),
     needsEngineStop: boolean().notNull().default(false),
+    /** Falls due at an event of every port stay instead of (never beside) an interval. */
+    portEvent: text({ enum: ["departure", "arrival"] }),
+    /** Within how many hours before the departure / after the arrival. */
+    portEventHours: numeric({ precision: 5, scale: 1, mode: "number" }),
     critical: boolean().notNull().default(false),
     classRelated: boolean().notNull().default(false),
     classItemRef: text(),
@@ -97,7 +101,14 @@ export const routine = pgTable(
   (t) => [
     index().on(t.companyId, t.vesselId),
     index().on(t.companyId, t.componentId),
-    check("routine_has_interval", sql`${t.intervalHours} is not null or ${t.calendarRule} is not null`),
+    check(
+      "routine_has_interval",
+      sql`${t.intervalHours} is not null or ${t.calendarRule} is not null or ${t.portEvent} is not null`,
+    ),
+    check(
+      "routine_port_event",
+      sql`(${t.portEvent} is null and ${t.portEventHours} is null) or (${t.portEventHours} > 0 and ${t.intervalHours} is null and ${t.calendarRule} is null)`,
+    ),
     check("routine_interval_positive", sql`${t.intervalHours} is null or ${t.intervalHours} > 0`),
   ],
 );

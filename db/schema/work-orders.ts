@@ -86,6 +86,9 @@ export const workOrder = pgTable(
     rank: text().notNull().default("engineer"),
     estimatedManHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull().default(1),
     needsEngineStop: boolean().notNull().default(false),
+    /** Copied from a routine tied to a port stay's event: the planner keeps the job in its window. */
+    portEvent: text({ enum: ["departure", "arrival"] }),
+    portEventHours: numeric({ precision: 5, scale: 1, mode: "number" }),
     critical: boolean().notNull().default(false),
     classRelated: boolean().notNull().default(false),
     computedAt: nowStamp(),

@@ -247,6 +247,8 @@ export type PackageJob = {
   manHours: number;
   needsEngineStop: boolean;
   needsPort: boolean;
+  /** Falls due at this event of every stay (the steering-gear test before departure). */
+  tiedTo: { event: "departure" | "arrival"; withinHours: number } | null;
   critical: boolean;
   classRelated: boolean;
   dueAt: string | null;

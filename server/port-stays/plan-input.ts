@@ -44,6 +44,6 @@ export function planJobOf(job: PackageJob, outOfToleranceAt: Date | null): PlanJ
     outOfToleranceAt,
     planFrom: job.planFrom,
     planUntil: job.planUntil,
-    tiedTo: null,
+    tiedTo: job.tiedTo,
   };
 }

@@ -118,6 +118,8 @@ export const jobColumns = {
   rank: workOrder.rank,
   manHours: workOrder.estimatedManHours,
   needsEngineStop: workOrder.needsEngineStop,
+  portEvent: workOrder.portEvent,
+  portEventHours: workOrder.portEventHours,
   critical: workOrder.critical,
   classRelated: workOrder.classRelated,
   dueDate: workOrder.dueDate,
@@ -137,6 +139,8 @@ export type JobRow = {
   rank: string;
   manHours: number;
   needsEngineStop: boolean;
+  portEvent: "departure" | "arrival" | null;
+  portEventHours: number | null;
   critical: boolean;
   classRelated: boolean;
   dueDate: Date | null;
@@ -160,6 +164,7 @@ export function toJob(r: JobRow): PackageJob {
     manHours: r.manHours,
     needsEngineStop: r.needsEngineStop,
     needsPort: false,
+    tiedTo: r.portEvent && r.portEventHours ? { event: r.portEvent, withinHours: r.portEventHours } : null,
     critical: r.critical,
     classRelated: r.classRelated,
     dueAt: dueAt?.toISOString() ?? null,
@@ -183,7 +188,7 @@ export function placedView(
     startLocal: shipDateTimeOf(start, timeZone),
     segments: placed.segments.map((s) => ({ from: s.from.toISOString(), to: s.to.toISOString() })),
     people: placed.people,
-    group: groupOf({ needsEngineStop: job.needsEngineStop, needsPort: job.needsPort, tiedTo: null }),
+    group: groupOf(job),
     ...extra,
   };
 }

@@ -13,6 +13,8 @@ const job = {
   rank: "second-engineer",
   estimatedManHours: 6,
   needsEngineStop: true,
+  portEvent: null,
+  portEventHours: null,
   critical: false,
   classRelated: true,
 };

@@ -37,7 +37,15 @@ export function workOrderNumber(vesselCode: string, sequence: number): string {
 export function routineFields(
   r: Pick<
     WrittenFields,
-    "componentId" | "title" | "rank" | "estimatedManHours" | "needsEngineStop" | "critical" | "classRelated"
+    | "componentId"
+    | "title"
+    | "rank"
+    | "estimatedManHours"
+    | "needsEngineStop"
+    | "portEvent"
+    | "portEventHours"
+    | "critical"
+    | "classRelated"
   >,
   counterId: string | null,
   plan: WorkOrderPlan,
@@ -63,6 +71,8 @@ export function routineFields(
     rank: r.rank,
     estimatedManHours: r.estimatedManHours,
     needsEngineStop: r.needsEngineStop,
+    portEvent: r.portEvent,
+    portEventHours: r.portEventHours,
     critical: r.critical,
     classRelated: r.classRelated,
   };

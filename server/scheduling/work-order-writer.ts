@@ -4,7 +4,7 @@
 import "server-only";
 import { and, desc, eq, inArray, isNotNull, isNull, ne } from "drizzle-orm";
 import type { Tx } from "@/db/client";
-import { completion, component, routine, toleranceRule, vessel, workOrder } from "@/db/schema";
+import { completion, component, portStay, routine, toleranceRule, vessel, workOrder } from "@/db/schema";
 import { resolveCounters } from "@/server/register/tree";
 import { toleranceRuleFromRow } from "@/server/tolerance/rows";
 import type { WorkOrderRow } from "@/server/work-orders/fields";
@@ -15,6 +15,7 @@ import {
   planWorkOrder,
   type WorkOrderPlan,
 } from "./plan-work-order";
+import { planEventWorkOrder } from "./plan-event-work-order";
 import { presetToleranceRules } from "./presets";
 import type { CounterNow } from "./recompute";
 import type { ToleranceRule } from "./tolerance";
@@ -87,6 +88,13 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
     )
     .orderBy(workOrder.routineId, desc(workOrder.occurrence));
   const lastByRoutine = new Map(lastDone.map((l) => [l.routineId!, l]));
+  // Routines tied to a port stay's event fall due at the vessel's stays.
+  const stays = routines.some((r) => r.portEvent)
+    ? await tx
+        .select({ arrivesAt: portStay.arrivesAt, departsAt: portStay.departsAt })
+        .from(portStay)
+        .where(and(eq(portStay.companyId, companyId), eq(portStay.vesselId, vesselId)))
+    : [];
 
   const planned: PlannedWorkOrder[] = [];
   for (const r of routines) {
@@ -103,7 +111,19 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
       : null;
     const existing = openByRoutine.get(r.id) ?? null;
     let plan: WorkOrderPlan;
-    try {
+    if (r.portEvent && r.portEventHours) {
+      const tied = planEventWorkOrder({
+        tie: { event: r.portEvent, withinHours: r.portEventHours },
+        stays,
+        createdAt: r.createdAt,
+        lastDone: done?.doneAt ?? null,
+        now,
+        timeZone: ctx.vessel.timeZone,
+      });
+      // No stay planned: no work order yet; one already open stays as it was.
+      if (!tied) continue;
+      plan = tied;
+    } else try {
       plan = planWorkOrder({
         routine: {
           intervalHours: r.intervalHours,

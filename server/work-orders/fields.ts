@@ -36,6 +36,8 @@ export const JOB_FIELDS = [
   "rank",
   "estimatedManHours",
   "needsEngineStop",
+  "portEvent",
+  "portEventHours",
   "critical",
   "classRelated",
 ] as const satisfies readonly WorkOrderField[];
