@@ -6,6 +6,7 @@ import { type Db, getDb, type Tx } from "@/db/client";
 import { component, portStay, user, workOrder, workPackageItem } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { lockVesselWorkOrders } from "@/server/work-orders/lock";
 import { AppError, fieldErrorsFromZod, invalidInput } from "@/server/http/problem";
 import { groupOf } from "@/server/planning/job-classes";
@@ -287,12 +288,19 @@ function stayValues(row: StayRow, timeZone: string): PortStayInput {
   };
 }
 
+/**
+ * Creates a stay. Routines tied to a stay's departure or arrival fall due at it, so the worker
+ * recomputes the vessel (the job is sent in the same transaction: no stay without its recompute).
+ */
 export async function createPortStay(access: Access, vessel: VesselRef, values: PortStayValues): Promise<PortStayView> {
-  const [row] = await getDb()
-    .insert(portStay)
-    .values({ companyId: access.company.id, vesselId: vessel.id, ...stayColumns(values, vessel.timeZone) })
-    .returning();
-  return stayView(row!, vessel.timeZone, 0, null);
+  return getDb().transaction(async (tx) => {
+    const [row] = await tx
+      .insert(portStay)
+      .values({ companyId: access.company.id, vesselId: vessel.id, ...stayColumns(values, vessel.timeZone) })
+      .returning();
+    await requestRecompute(tx, access.company.id, vessel.id);
+    return stayView(row!, vessel.timeZone, 0, null);
+  });
 }
 
 /**
@@ -346,6 +354,8 @@ export async function updatePortStay(
       .set({ ...columns, updatedAt: new Date() })
       .where(and(eq(portStay.companyId, access.company.id), eq(portStay.id, row.id)))
       .returning();
+    // New times move the work tied to the stay's departure or arrival.
+    await requestRecompute(tx, access.company.id, vessel.id);
     return stayView(updated!, vessel.timeZone, items.length, null);
   });
 }
@@ -383,6 +393,7 @@ export async function deletePortStay(
     }
     const released = await clearPlannedDates(tx, access.company.id, items);
     await tx.delete(portStay).where(and(eq(portStay.companyId, access.company.id), eq(portStay.id, row.id)));
+    await requestRecompute(tx, access.company.id, vessel.id);
     return { deleted: row.id, released };
   });
 }
