@@ -1,5 +1,7 @@
 ALTER TABLE "port_stay" DROP CONSTRAINT "port_stay_immobilisation";--> statement-breakpoint
 ALTER TABLE "routine" DROP CONSTRAINT "routine_has_interval";--> statement-breakpoint
+ALTER TABLE "completion" ADD COLUMN "responsible_id" text;--> statement-breakpoint
+ALTER TABLE "completion" ADD COLUMN "worked_by" jsonb DEFAULT '[]'::jsonb NOT NULL;--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "workday_from" smallint DEFAULT 480 NOT NULL;--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "workday_to" smallint DEFAULT 1020 NOT NULL;--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "engine_stop_from" timestamp with time zone;--> statement-breakpoint
@@ -13,6 +15,7 @@ ALTER TABLE "work_package_item" ADD COLUMN "starts_at" timestamp with time zone;
 ALTER TABLE "work_package_item" ADD COLUMN "ends_at" timestamp with time zone;--> statement-breakpoint
 ALTER TABLE "work_package_item" ADD COLUMN "segments" jsonb DEFAULT '[]'::jsonb NOT NULL;--> statement-breakpoint
 ALTER TABLE "work_package_item" ADD COLUMN "people" jsonb DEFAULT '[]'::jsonb NOT NULL;--> statement-breakpoint
+ALTER TABLE "completion" ADD CONSTRAINT "completion_responsible_id_user_id_fk" FOREIGN KEY ("responsible_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 -- Data: an immobilisation budget becomes a slot from the arrival; a rank's man-hours a day become
 -- people (8 h a person, at least one where there were hours); accepted jobs get a start at 08:00 of
 -- their day in the vessel's zone and one working period as long as their man-hours.

@@ -16,6 +16,8 @@ export type RecordedMeasurement = {
   outOfLimits: boolean;
 };
 
+export type WorkedBy = { rank: string; name: string };
+
 /** The record of a job done: checklist, measurements, counter value, who; approved by the chief. */
 export const completion = pgTable(
   "completion",
@@ -32,7 +34,12 @@ export const completion = pgTable(
     checklist: jsonb().$type<{ step: string; done: boolean }[]>().notNull().default([]),
     measurements: jsonb().$type<RecordedMeasurement[]>().notNull().default([]),
     remarks: text().notNull().default(""),
+    /** Who recorded it in Keelson. */
     doneBy: text().references(() => user.id, { onDelete: "set null" }),
+    /** Who answers for the job (often the chief engineer), apart from the people who did it. */
+    responsibleId: text().references(() => user.id, { onDelete: "set null" }),
+    /** The people who did the work, by rank and name (crew need not be Keelson users). */
+    workedBy: jsonb().$type<WorkedBy[]>().notNull().default([]),
     status: text({ enum: ["awaiting-approval", "approved", "returned"] })
       .notNull()
       .default("awaiting-approval"),

@@ -5,6 +5,7 @@ import { z } from "zod";
 import type { RecordedMeasurement, RoutineCaution, RoutineMeasurement } from "@/db/schema";
 import { enteredDay } from "@/server/http/dates";
 import { MeterValue, SHIP_DAY_FORMAT, ShipClock } from "@/server/readings/contract";
+import { RANKS } from "@/server/routines/contract";
 import { DUE_FIELDS, HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
 import type { WorkOrderView } from "@/server/work-orders/view";
 
@@ -26,6 +27,13 @@ function typedNumber(message: string) {
 }
 
 const Remark = z.string().trim().max(500, { message: "Keep the remark under 500 characters." });
+
+export const MAX_WORKED_BY = 20;
+
+export const WorkedByRow = z.object({
+  rank: z.enum(RANKS, { message: "Choose the rank of the person who did the work." }),
+  name: z.string({ message: "The name must be text." }).trim().max(80, { message: "Keep the name under 80 characters." }).default(""),
+});
 
 export const ChecklistTick = z.object({
   step: z.string().trim().min(1, { message: "A checklist step needs its text." }).max(500),
@@ -56,6 +64,16 @@ export const CompletionInput = z
     checklist: z.array(ChecklistTick).max(200, { message: "At most 200 checklist steps." }),
     measurements: z.array(MeasurementValue).max(100, { message: "At most 100 measurements." }),
     remarks: z.string().trim().max(4_000, { message: "Keep the remarks under 4,000 characters." }).default(""),
+    /** Who answers for the job; the person recording when left out. */
+    responsibleId: z
+      .union([z.literal("").transform(() => null), z.string().trim().min(1).max(100)], {
+        message: "Choose the person responsible.",
+      })
+      .nullish(),
+    workedBy: z
+      .array(WorkedByRow, { message: "List who did the work by rank and name." })
+      .max(MAX_WORKED_BY, { message: `At most ${MAX_WORKED_BY} people on one job.` })
+      .default([]),
   })
   .superRefine((input, ctx) => {
     input.checklist.forEach((tick, index) => {
@@ -149,6 +167,9 @@ export type CompletionRecord = {
   measurements: RecordedMeasurement[];
   remarks: string;
   doneBy: string | null;
+  responsibleId: string | null;
+  responsible: string | null;
+  workedBy: { rank: string; name: string }[];
   decidedBy: string | null;
   decidedAt: string | null;
   decisionNote: string | null;
@@ -198,6 +219,8 @@ export type WorkOrderDetail = {
   completion: CompletionRecord | null;
   history: ComponentHistoryEntry[];
   may: { record: boolean; approve: boolean };
+  /** The people of the company on this vessel who may answer for a job: the responsible person's choices. */
+  responsibleChoices: { id: string; name: string; role: string; rank: string | null }[];
 };
 
 export type CompletionResult = { completionId: string; status: CompletionStatus; followUpNumber: string | null };

@@ -1,10 +1,20 @@
 // A work order as the completion page needs it: the job, its routine, the counter's latest
 // reading, its completion, and the component's earlier work. Scoped by company and vessel.
 import "server-only";
-import { aliasedTable, and, desc, eq, ne, sql } from "drizzle-orm";
+import { aliasedTable, and, asc, desc, eq, inArray, ne, sql } from "drizzle-orm";
 import { z } from "zod";
-import { getDb } from "@/db/client";
-import { completion, component, counter, reading, routine, user, workOrder } from "@/db/schema";
+import { type Db, getDb, type Tx } from "@/db/client";
+import {
+  completion,
+  component,
+  counter,
+  membership,
+  reading,
+  routine,
+  user,
+  vesselAssignment,
+  workOrder,
+} from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import type { WorkOrderWithDeferrals } from "@/server/deferrals/contract";
@@ -87,18 +97,40 @@ export async function loadWorkOrderDetail(
       record: can(access.role, "readings:write") && w.state !== "done",
       approve: can(access.role, "work:approve"),
     },
+    responsibleChoices: await responsibleChoices(db, companyId, vessel.id),
     deferrals: await loadWorkOrderDeferrals(access, vessel, w, now),
   };
 }
 
 const decider = aliasedTable(user, "decider");
+const responsible = aliasedTable(user, "responsible");
+
+/** Chief engineers and engineers of the company assigned to the vessel: who may answer for a job. */
+export async function responsibleChoices(db: Db | Tx, companyId: string, vesselId: string): Promise<WorkOrderDetail["responsibleChoices"]> {
+  const rows = await db
+    .select({ id: user.id, name: user.name, role: membership.role, rank: membership.rank })
+    .from(membership)
+    .innerJoin(user, eq(user.id, membership.userId))
+    .innerJoin(
+      vesselAssignment,
+      and(
+        eq(vesselAssignment.companyId, membership.companyId),
+        eq(vesselAssignment.userId, membership.userId),
+        eq(vesselAssignment.vesselId, vesselId),
+      ),
+    )
+    .where(and(eq(membership.companyId, companyId), inArray(membership.role, ["chief-engineer", "engineer"])))
+    .orderBy(asc(membership.role), asc(user.name));
+  return rows;
+}
 
 async function loadCompletionRecord(companyId: string, workOrderId: string): Promise<CompletionRecord | null> {
   const [row] = await getDb()
-    .select({ c: completion, doneBy: user.name, decidedBy: decider.name })
+    .select({ c: completion, doneBy: user.name, decidedBy: decider.name, responsible: responsible.name })
     .from(completion)
     .leftJoin(user, eq(user.id, completion.doneBy))
     .leftJoin(decider, eq(decider.id, completion.decidedBy))
+    .leftJoin(responsible, eq(responsible.id, completion.responsibleId))
     .where(and(eq(completion.companyId, companyId), eq(completion.workOrderId, workOrderId)));
   if (!row) return null;
   const { c } = row;
@@ -112,6 +144,9 @@ async function loadCompletionRecord(companyId: string, workOrderId: string): Pro
     measurements: c.measurements,
     remarks: c.remarks,
     doneBy: row.doneBy,
+    responsibleId: c.responsibleId,
+    responsible: row.responsible,
+    workedBy: c.workedBy,
     decidedBy: row.decidedBy,
     decidedAt: isoInstant(c.decidedAt),
     decisionNote: c.decisionNote,

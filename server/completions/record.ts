@@ -12,6 +12,7 @@ import { isInFuture, readingProblem } from "@/server/readings/rules";
 import { assessMeasurements, type Completion, type CompletionResult, measurementMismatches } from "./contract";
 import { lockVesselWorkOrders } from "@/server/work-orders/lock";
 import { createFollowUp } from "./follow-up";
+import { responsibleChoices } from "./queries";
 
 type Mode = "record" | "resubmit";
 
@@ -128,6 +129,14 @@ async function writeCompletion(
         });
       }
     }
+    const responsibleId = input.responsibleId ?? access.user.id;
+    const choices = await responsibleChoices(tx, companyId, vessel.id);
+    if (responsibleId !== access.user.id && !choices.some((c) => c.id === responsibleId)) {
+      errors.push({
+        field: "responsibleId",
+        message: "The person responsible is a chief engineer or engineer of this company assigned to this vessel.",
+      });
+    }
     if (errors.length) throw invalidInput(errors);
 
     const measurements = assessMeasurements(r?.measurements ?? [], input.measurements);
@@ -140,6 +149,8 @@ async function writeCompletion(
       measurements,
       remarks: input.remarks,
       doneBy: access.user.id,
+      responsibleId,
+      workedBy: input.workedBy.map((p) => ({ rank: p.rank, name: p.name })),
       status: "awaiting-approval" as const,
       decidedBy: null,
       decidedAt: null,

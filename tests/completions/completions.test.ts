@@ -196,6 +196,18 @@ describe("bad input gets 422 naming the field, and writes nothing", () => {
       "measurements.1.name",
       /not a measurement of this routine/,
     ],
+    [
+      "a viewer as the person responsible",
+      () => completionBody({ responsibleId: f.users.viewer.id }),
+      "responsibleId",
+      /chief engineer or engineer of this company assigned to this vessel/,
+    ],
+    [
+      "a rank Keelson does not know among who did the work",
+      () => completionBody({ workedBy: [{ rank: "second-engineer", name: "Lim" }, { rank: "cook", name: "" }] }),
+      "workedBy.1.rank",
+      /Choose the rank/,
+    ],
   ];
   for (const [what, body, field, message] of cases) {
     it(`refuses ${what}`, async () => {
@@ -216,10 +228,28 @@ describe("a completion from record to the next occurrence", () => {
       engineer,
       "POST",
       path(workOrders.overhaul.id, "/completion"),
-      completionBody(),
+      completionBody({
+        responsibleId: f.users["chief-engineer"].id,
+        workedBy: [
+          { rank: "second-engineer", name: "Lim" },
+          { rank: "motorman", name: "Aziz" },
+        ],
+      }),
     );
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ status: "awaiting-approval", followUpNumber: null });
+    // The engineer recorded it; the chief answers for it; two others did the work.
+    const detail = await api<WorkOrderDetail>(engineer, "GET", path(workOrders.overhaul.id));
+    expect(detail.body.completion).toMatchObject({
+      doneBy: expect.stringMatching(/^engineer /),
+      responsibleId: f.users["chief-engineer"].id,
+      responsible: expect.stringMatching(/^chief-engineer /),
+      workedBy: [
+        { rank: "second-engineer", name: "Lim" },
+        { rank: "motorman", name: "Aziz" },
+      ],
+    });
+    expect(detail.body.responsibleChoices.map((c) => c.role).sort()).toEqual(["chief-engineer", "engineer"]);
     const backlog = await api<BacklogPage>(
       engineer,
       "GET",

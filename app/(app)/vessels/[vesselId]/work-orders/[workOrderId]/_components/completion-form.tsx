@@ -8,6 +8,8 @@ import { FormActions } from "@/app/_components/forms/form-actions";
 import { rowFields, useSendForm } from "@/app/_components/forms/use-send-form";
 import { CompletionInput, limitSide, type WorkOrderDetail } from "@/server/completions/contract";
 import { formatHours, formatShipTime, shipClock, shipDay } from "@/server/format/hours";
+import { RANKS, type Rank } from "@/server/routines/contract";
+import { CompletionPeople } from "./completion-people";
 import { useSaveCompletion } from "./use-work-order";
 
 type Values = z.input<typeof CompletionInput>;
@@ -28,6 +30,8 @@ function startingValues(detail: WorkOrderDetail): Values {
       checklist: record.checklist.map((t) => ({ step: t.step, done: t.done, remark: t.remark ?? "" })),
       measurements: record.measurements.map((m) => ({ name: m.name, value: String(m.value) })),
       remarks: record.remarks,
+      responsibleId: record.responsibleId ?? "",
+      workedBy: record.workedBy.map((p) => ({ rank: p.rank as Rank, name: p.name })),
     };
   }
   const now = new Date(detail.now);
@@ -40,6 +44,9 @@ function startingValues(detail: WorkOrderDetail): Values {
     checklist: (detail.routine?.checklist ?? []).map((step) => ({ step, done: false, remark: "" })),
     measurements: (detail.routine?.measurements ?? []).map((m) => ({ name: m.name, value: "" })),
     remarks: "",
+    // The vessel's chief answers for most jobs; the work order's rank did it, names to be filled in.
+    responsibleId: detail.responsibleChoices.find((c) => c.role === "chief-engineer")?.id ?? "",
+    workedBy: RANKS.includes(detail.workOrder.rank as Rank) ? [{ rank: detail.workOrder.rank as Rank, name: "" }] : [],
   };
 }
 
@@ -69,6 +76,9 @@ export function CompletionForm({ detail, onDone }: Props) {
       "checklist",
       ...rowFields("measurements", limits.length, ["value", "name"]),
       "measurements",
+      "responsibleId",
+      ...rowFields("workedBy", form.getValues("workedBy")?.length ?? 0, ["rank", "name"]),
+      "workedBy",
     ],
     send: async (values) => {
       const result = await save.mutateAsync(values);
@@ -210,6 +220,8 @@ export function CompletionForm({ detail, onDone }: Props) {
           />
         </Field>
       </div>
+
+      <CompletionPeople form={form} detail={detail} />
 
       <Field
         id="remarks"

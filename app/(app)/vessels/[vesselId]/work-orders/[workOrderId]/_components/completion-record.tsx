@@ -4,6 +4,7 @@ import { useState } from "react";
 import { Field } from "@/app/_components/forms/field";
 import { problemSentence } from "@/app/_components/forms/form-problem";
 import { Notice } from "@/app/_components/notice";
+import { rankLabel } from "@/app/_components/rank-words";
 import type { CompletionRecord } from "@/server/completions/contract";
 import { formatHours, formatShipTime } from "@/server/format/hours";
 import { useDecideCompletion } from "./use-work-order";
@@ -44,8 +45,20 @@ export function CompletionRecordView({ record, timeZone, counterName }: Props) {
           <dd>{when(record.doneAt)} ship’s time</dd>
         </div>
         <div>
-          <dt className="label">By</dt>
+          <dt className="label">Recorded by</dt>
           <dd>{record.doneBy ?? "—"}</dd>
+        </div>
+        <div>
+          <dt className="label">Responsible</dt>
+          <dd>{record.responsible ?? record.doneBy ?? "—"}</dd>
+        </div>
+        <div className="col-span-2">
+          <dt className="label">Done by</dt>
+          <dd>
+            {record.workedBy.length
+              ? record.workedBy.map((p) => (p.name ? `${rankLabel(p.rank)} ${p.name}` : rankLabel(p.rank))).join(", ")
+              : "—"}
+          </dd>
         </div>
         <div>
           <dt className="label">Counter at completion</dt>
