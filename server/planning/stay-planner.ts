@@ -149,33 +149,21 @@ function whyLeftOut(c: Classified, grid: StayGrid, stay: PlanStay, pass: Pass): 
   return "crew-taken";
 }
 
-export function horizonOf(input: StayPlanInput): Date {
-  const lookAhead = input.lookAheadDays ?? DEFAULT_LOOK_AHEAD_DAYS;
-  return input.nextStayArrivesAt ?? new Date(input.stay.departsAt.getTime() + lookAhead * DAY_MS);
-}
+type Found = Pass & { name: StayPlan["order"]; order: Classified[] };
 
-export function planPortStay(input: StayPlanInput): StayPlan {
-  const { stay } = input;
-  const grid = buildStayGrid(stay.arrivesAt, stay.departsAt, stay.timeZone, stay.workday, input.slotMinutes);
-  if (stay.immobilisation && !(stay.immobilisation.from < stay.immobilisation.to)) {
-    throw invalidInput([{ field: "stay.immobilisation", message: "The engine stop ends after it starts." }]);
-  }
-  const horizon = horizonOf(input);
-  const { considered, atSea } = classify(input.jobs, { departsAt: stay.departsAt, horizon });
-  const base = buildCrewLedger(grid, stay.crew, stay.watches);
-  const possible = considered.reduce((sum, c) => sum + valueOf(c), 0);
-
-  let best: (Pass & { name: StayPlan["order"]; order: Classified[] }) | null = null;
+/** The fixed orders, then the seeded local search: the pass of the highest value. */
+function bestPass(considered: Classified[], grid: StayGrid, stay: PlanStay, base: CrewLedger, possible: number): Found {
+  const rank = new Map(considered.map((c, i) => [c, i]));
+  let best: Found | null = null;
   for (const { name, sort } of ORDERS) {
-    const order = sort ? [...considered].sort((a, b) => sort(a, b) || considered.indexOf(a) - considered.indexOf(b)) : considered;
+    const order = sort ? [...considered].sort((a, b) => sort(a, b) || rank.get(a)! - rank.get(b)!) : considered;
     const pass = runPass(order, grid, stay, base);
     if (!best || pass.value > best.value + 1e-9) best = { ...pass, name, order };
   }
-  // Then a seeded local search over the order (a job moved to an earlier place can unlock a better
-  // plan: one placed before it took the only start it had). A step moves one job, mostly one left
-  // out, or two at once; it is kept when the value does not fall (so the search can cross plateaus)
-  // and the best plan seen is the answer. Seeded, so the same input gives the same plan; bounded so
-  // a big vessel stays within a second.
+  // A job moved to an earlier place in the order can unlock a better plan (one placed before it
+  // took the only start it had). A step moves one job, mostly one left out, or two at once; it is
+  // kept when the value does not fall (so the search crosses plateaus), and the best plan seen is
+  // the answer. Seeded, so the same input gives the same plan; bounded so a big vessel stays fast.
   const random = seededRandom(considered.length);
   const moves = Math.min(MAX_MOVES, Math.floor(MOVE_BUDGET / Math.max(1, considered.length)));
   let current = best!;
@@ -194,7 +182,26 @@ export function planPortStay(input: StayPlanInput): StayPlan {
     current = { ...pass, name: "searched", order };
     if (pass.value > best!.value + 1e-9) best = current;
   }
-  const pass = best!;
+  return best!;
+}
+
+export function horizonOf(input: StayPlanInput): Date {
+  const lookAhead = input.lookAheadDays ?? DEFAULT_LOOK_AHEAD_DAYS;
+  return input.nextStayArrivesAt ?? new Date(input.stay.departsAt.getTime() + lookAhead * DAY_MS);
+}
+
+export function planPortStay(input: StayPlanInput): StayPlan {
+  const { stay } = input;
+  const grid = buildStayGrid(stay.arrivesAt, stay.departsAt, stay.timeZone, stay.workday, input.slotMinutes);
+  if (stay.immobilisation && !(stay.immobilisation.from < stay.immobilisation.to)) {
+    throw invalidInput([{ field: "stay.immobilisation", message: "The engine stop ends after it starts." }]);
+  }
+  const horizon = horizonOf(input);
+  const { considered, atSea } = classify(input.jobs, { departsAt: stay.departsAt, horizon });
+  const base = buildCrewLedger(grid, stay.crew, stay.watches);
+  const possible = considered.reduce((sum, c) => sum + valueOf(c), 0);
+
+  const pass = bestPass(considered, grid, stay, base, possible);
   const year = new TZDate(stay.arrivesAt, stay.timeZone).getFullYear();
   const ctx = { timeZone: stay.timeZone, year, horizon, stay, nextStay: input.nextStayArrivesAt };
 
