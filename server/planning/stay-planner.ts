@@ -87,6 +87,8 @@ const DAY_MS = 86_400_000;
 /** The local search: at most this many passes, and at most MOVE_BUDGET / jobs of them. */
 const MAX_MOVES = 2_000;
 const MOVE_BUDGET = 100_000;
+/** Steps without a gain before the search starts again from a shaken best order. */
+const RESTART_AFTER = 150;
 
 /** mulberry32: a small seeded generator, so the search is the same on every run. */
 function seededRandom(seed: number): () => number {
@@ -167,7 +169,14 @@ function bestPass(considered: Classified[], grid: StayGrid, stay: PlanStay, base
   const random = seededRandom(considered.length);
   const moves = Math.min(MAX_MOVES, Math.floor(MOVE_BUDGET / Math.max(1, considered.length)));
   let current = best!;
+  let sinceGain = 0;
   for (let m = 0; m < moves && best!.value < possible - 1e-9; m++) {
+    // Stuck on a plateau: start again from the best order with a few jobs pulled to the front.
+    if (++sinceGain > RESTART_AFTER) {
+      const pulled = best!.order.filter(() => random() < 0.2);
+      current = { ...best!, order: [...pulled, ...best!.order.filter((c) => !pulled.includes(c))] };
+      sinceGain = 0;
+    }
     let order = current.order;
     for (let k = random() < 0.3 ? 2 : 1; k > 0; k--) {
       const left = order.filter((c) => !current.placements.has(c));
@@ -180,7 +189,10 @@ function bestPass(considered: Classified[], grid: StayGrid, stay: PlanStay, base
     const pass = runPass(order, grid, stay, base);
     if (pass.value < current.value - 1e-9) continue;
     current = { ...pass, name: "searched", order };
-    if (pass.value > best!.value + 1e-9) best = current;
+    if (pass.value > best!.value + 1e-9) {
+      best = current;
+      sinceGain = 0;
+    }
   }
   return best!;
 }
