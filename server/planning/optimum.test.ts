@@ -266,5 +266,6 @@ for (const [name, size, runs] of [["small", SMALL, 60], ["medium", MEDIUM, 30]] 
       }),
       { numRuns: Number(process.env.PLAN_RUNS ?? runs), seed: process.env.PLAN_SEED ? Number(process.env.PLAN_SEED) : undefined },
     );
-  }, 120_000);
+    // A long trial (PLAN_RUNS) gets time in proportion: about 0.15 s a medium stay on this machine.
+  }, Math.max(120_000, Number(process.env.PLAN_RUNS ?? 0) * 400));
 }
