@@ -7,7 +7,7 @@ import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
 import type { PortStayView } from "@/server/port-stays/contract";
 import { StayForm } from "./stay-form";
-import { immobilisationWords, stayPeriod } from "./stay-words";
+import { engineStopWords, stayPeriod } from "./stay-words";
 import { usePortStays } from "./use-port-stays";
 
 type Props = { vesselId: string; timeZone: string };
@@ -26,7 +26,7 @@ export function PortStaysView({ vesselId, timeZone }: Props) {
         <div>
           <h1 className="text-xl font-bold">Port stays</h1>
           <p className="text-ink-600 dark:text-ink-300">
-            Port calls with the crew’s hours for maintenance; plan each one’s work package. Times are ship’s time (
+            Port calls with the crew on board and the working day; plan each one’s work package. Times are ship’s time (
             {timeZone}).
           </p>
         </div>
@@ -65,7 +65,7 @@ export function PortStaysView({ vesselId, timeZone }: Props) {
           <StayForm
             vesselId={vesselId}
             timeZone={timeZone}
-            crew={data.latestCrew}
+            latest={data.latest}
             onDone={(message) => {
               setAdding(false);
               setNotice(message);
@@ -123,7 +123,7 @@ function StayTable({
     {
       id: "engine",
       header: "Main engine",
-      cell: (s) => immobilisationWords(s.engineMayStop, s.immobilisationHours),
+      cell: (s) => engineStopWords(s.engineStop),
     },
     {
       id: "package",

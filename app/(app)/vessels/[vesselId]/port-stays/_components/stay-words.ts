@@ -1,8 +1,11 @@
-// How the port-stay pages write a stay's dates, hours and ranks.
+// How the port-stay pages write a stay's dates, hours, engine stop, crew and people.
 import { format, parseISO } from "date-fns";
-import { formatHours, formatShipTime } from "@/server/format/hours";
+import type { CrewOnBoard } from "@/db/schema/port-stays";
+import { formatShipTime } from "@/server/format/hours";
+import type { PortStayView } from "@/server/port-stays/contract";
+import { rankLabel } from "@/app/_components/rank-words";
 
-export { rankLabel } from "@/app/_components/rank-words";
+export { rankLabel };
 
 /** "4 Dec 2026 07:00 – 5 Dec 2026 19:00 (ship's time)" */
 export function stayPeriod(arrivesAt: string, departsAt: string, timeZone: string): string {
@@ -14,6 +17,29 @@ export function dayLabel(day: string): string {
   return format(parseISO(day), "EEE d MMM");
 }
 
-export function immobilisationWords(engineMayStop: boolean, hours: number): string {
-  return engineMayStop ? `main engine may be immobilised for ${formatHours(hours)}` : "main engine on standby throughout";
+/** A ship's clock value "2026-12-04T07:00" → "Fri 4 Dec 07:00". */
+export function shipClockLabel(local: string): string {
+  return `${dayLabel(local.slice(0, 10))} ${local.slice(11, 16)}`;
 }
+
+export function engineStopWords(stop: PortStayView["engineStop"]): string {
+  return stop
+    ? `may be immobilised ${shipClockLabel(stop.fromLocal)} – ${shipClockLabel(stop.toLocal)}`
+    : "on standby throughout (no engine-stop work)";
+}
+
+export function crewWords(crew: CrewOnBoard[]): string {
+  const on = crew.filter((c) => c.count > 0);
+  return on.length === 0 ? "none entered: nothing can be planned" : on.map((c) => `${c.count} × ${rankLabel(c.rank)}`).join(" · ");
+}
+
+/** A person key "motorman#2" → "Motorman 2"; the only one of a rank keeps the bare rank. */
+export function personLabel(key: string, crew?: CrewOnBoard[]): string {
+  const [rank = key, n = "1"] = key.split("#");
+  const heads = crew?.find((c) => c.rank === rank)?.count ?? 2;
+  return heads <= 1 ? rankLabel(rank) : `${rankLabel(rank)} ${n}`;
+}
+
+/** The caution every engine-stop job carries, in the words of the routine cautions. */
+export const ENGINE_STOP_CAUTION =
+  "Engine-stop work needs the usual isolation, lock-out and permit to work; the maker’s instruction manual, company procedures and class requirements prevail.";

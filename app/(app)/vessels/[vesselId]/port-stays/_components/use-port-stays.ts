@@ -4,6 +4,7 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { fetchJson } from "@/app/_components/fetch-json";
 import { queryKeys } from "@/app/_components/query-keys";
 import type {
+  PackageCheck,
   PackageInput,
   PackageResult,
   PortStayDetail,
@@ -98,4 +99,9 @@ export function useAcceptPackage(vesselId: string, stayId: string) {
         client.invalidateQueries({ queryKey: queryKeys.backlogAll(vesselId) }),
       ]),
   });
+}
+
+/** The draft as the server would store it; writes nothing. */
+export function checkPackage(vesselId: string, stayId: string, input: PackageInput): Promise<PackageCheck> {
+  return fetchJson<PackageCheck>(`${base(vesselId)}/${stayId}/package/check`, { method: "POST", body: JSON.stringify(input) });
 }

@@ -6,12 +6,12 @@ import { useState } from "react";
 import { problemSentence } from "@/app/_components/forms/form-problem";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
-import { formatHours, formatShipTime } from "@/server/format/hours";
+import { formatShipTime } from "@/server/format/hours";
 import type { PortStayDetail } from "@/server/port-stays/contract";
 import { StayForm } from "../../_components/stay-form";
-import { immobilisationWords, rankLabel, stayPeriod } from "../../_components/stay-words";
+import { crewWords, engineStopWords, personLabel, shipClockLabel, stayPeriod } from "../../_components/stay-words";
 import { useDeleteStay, usePortStay } from "../../_components/use-port-stays";
-import { PackageEditor } from "./package-editor";
+import { PackagePanel } from "./package-panel";
 
 type Props = { vesselId: string; stayId: string };
 
@@ -59,11 +59,19 @@ export function StayView({ vesselId, stayId }: Props) {
           )}
         </div>
         <dl className="mt-4 grid gap-x-6 gap-y-3 text-sm sm:grid-cols-3">
-          <Fact label="Main engine">{immobilisationWords(stay.engineMayStop, stay.immobilisationHours)}</Fact>
-          <Fact label="Crew’s hours a day">
-            {stay.crew.length === 0
-              ? "none entered: nothing can be planned"
-              : stay.crew.map((c) => `${rankLabel(c.rank)} ${formatHours(c.manHoursPerDay)}`).join(" · ")}
+          <Fact label="Working day">
+            {stay.workdayFrom}–{stay.workdayTo} on each of {stay.days.length} day{stay.days.length === 1 ? "" : "s"}
+          </Fact>
+          <Fact label="Main engine">{engineStopWords(stay.engineStop)}</Fact>
+          <Fact label="Crew on board">{crewWords(stay.crew)}</Fact>
+          <Fact label="Port watches">
+            {stay.watches.length === 0
+              ? "none"
+              : stay.watches.map((w, i) => (
+                  <span key={i} className="block">
+                    {personLabel(`${w.rank}#${w.person}`, stay.crew)}: {w.label}, {shipClockLabel(w.fromLocal)} – {shipClockLabel(w.toLocal)}
+                  </span>
+                ))}
           </Fact>
           <Fact label="Work package">
             {stay.packageAcceptedAt
@@ -74,7 +82,7 @@ export function StayView({ vesselId, stayId }: Props) {
         {stay.remarks && <p className="mt-3 max-w-prose whitespace-pre-line">{stay.remarks}</p>}
       </header>
       <Notice message={notice} />
-      <PackageEditor detail={detail} over={over} />
+      <PackagePanel detail={detail} over={over} />
 
       {open === "edit" && (
         <SidePanel title={`Edit ${stay.port}`} onClose={() => setOpen(null)} wide>
@@ -82,7 +90,7 @@ export function StayView({ vesselId, stayId }: Props) {
             vesselId={vesselId}
             timeZone={vessel.timeZone}
             stay={stay}
-            crew={stay.crew}
+            latest={null}
             onDone={(message) => {
               setOpen(null);
               setNotice(message);

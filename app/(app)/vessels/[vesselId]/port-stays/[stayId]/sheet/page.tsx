@@ -7,7 +7,7 @@ import { formatHours } from "@/server/format/hours";
 import { AppError } from "@/server/http/problem";
 import { loadPackageSheet, type SheetJob } from "@/server/port-stays/sheet";
 import { Cautions } from "../../../work-orders/[workOrderId]/_components/cautions";
-import { dayLabel, immobilisationWords, rankLabel, stayPeriod } from "../../_components/stay-words";
+import { dayLabel, ENGINE_STOP_CAUTION, engineStopWords, personLabel, stayPeriod } from "../../_components/stay-words";
 import { PrintButton } from "./print-button";
 
 export const metadata: Metadata = { title: "Work package sheet" };
@@ -41,7 +41,7 @@ export default async function PackageSheetPage({ params }: { params: Promise<{ v
         <h1 className="text-xl font-bold">Work package: {stay.port}</h1>
         <p className="tabular-nums">
           {stayPeriod(stay.arrivesAt, stay.departsAt, vessel.timeZone)} ship’s time ({vessel.timeZone}) ·{" "}
-          {immobilisationWords(stay.engineMayStop, stay.immobilisationHours)} · {jobs} job{jobs === 1 ? "" : "s"}
+          main engine {engineStopWords(stay.engineStop)} · working day {stay.workdayFrom}–{stay.workdayTo} · {jobs} job{jobs === 1 ? "" : "s"}
           {!stay.packageAcceptedAt && " · not accepted yet"}
         </p>
       </header>
@@ -50,6 +50,7 @@ export default async function PackageSheetPage({ params }: { params: Promise<{ v
         ship’s safety management system. The maker’s figures and procedures, local regulations, flag-state and class
         requirements prevail. Isolate and lock out before opening any machinery.
       </p>
+      <p className="text-sm font-medium">⚠ {ENGINE_STOP_CAUTION}</p>
       {sheet.days.map(({ day, jobs }) => (
         <section key={day} aria-labelledby={`sheet-${day}`} className="grid gap-3 print:mt-4">
           <h2 id={`sheet-${day}`} className="border-b border-ink-300 pb-1 text-lg font-bold print:border-black">
@@ -74,7 +75,7 @@ function SheetJobCard({ job }: { job: SheetJob }) {
           <span className="font-mono">{job.number}</span> {job.title}
         </h3>
         <p className="text-sm tabular-nums">
-          {rankLabel(job.rank)} · {formatHours(job.manHours)}
+          {formatHours(job.manHours)} man-hours
           {job.needsEngineStop && " · engine stopped"}
           {job.critical && " · ⚠ critical"}
           {job.classRelated && " · ◆ class-related"}
@@ -82,6 +83,12 @@ function SheetJobCard({ job }: { job: SheetJob }) {
       </header>
       <p className="text-sm">
         <span className="font-mono">{job.componentCode}</span> {job.componentName}
+      </p>
+      <p className="text-sm tabular-nums">
+        <span className="font-semibold">When:</span>{" "}
+        {job.segments.map((s) => `${dayLabel(s.from.slice(0, 10))} ${s.from.slice(11, 16)}–${s.to.slice(11, 16)}`).join(" · ")}
+        <br />
+        <span className="font-semibold">Who:</span> {job.people.map((p) => personLabel(p)).join(", ") || "not named"}
       </p>
       <p className="text-sm text-ink-600 dark:text-ink-300 print:text-black">{job.reason}</p>
       <div className="grid gap-4 sm:grid-cols-2 print:grid-cols-2">

@@ -1,0 +1,73 @@
+"use client";
+// A job on the timeline: one block per working period in each of its people's lanes, the same colour
+// throughout. The first block is the job's control (a button the arrow keys move); the others repeat
+// it for the eye only.
+import type { PlacedView } from "@/server/port-stays/contract";
+import { personLabel, shipClockLabel } from "../../_components/stay-words";
+
+/** Light fills that dark text reads on at 4.5:1 or more, in both themes. */
+const FILLS = ["#a8dce5", "#f3d58a", "#c9e7b5", "#f2c2c9", "#d5c8f0", "#f7c99b", "#b9d3f0", "#e3e3a0"];
+export const fillOf = (index: number) => FILLS[index % FILLS.length]!;
+
+export type BlockPlace = { left: number; width: number; top: number; height: number };
+
+type Props = {
+  job: PlacedView;
+  colour: string;
+  places: BlockPlace[];
+  problem?: string;
+  /** The job's draft start on the ship's clock (it differs from the placed one while refused). */
+  wanted: string;
+  onKey?: (key: string, shift: boolean) => boolean;
+};
+
+export function jobWords(job: PlacedView): string {
+  const people = job.people.map((p) => personLabel(p)).join(", ");
+  return `${job.number} ${job.title}, ${shipClockLabel(job.startLocal)} for ${job.elapsedHours} h, ${people}${job.needsEngineStop ? ", engine stopped" : ""}`;
+}
+
+export function JobBlock({ job, colour, places, problem, wanted, onKey }: Props) {
+  const words = jobWords(job);
+  const [first, ...rest] = places;
+  if (!first) return null;
+  const ring = problem ? "ring-2 ring-alarm-600 ring-offset-1 dark:ring-alarm-300" : "";
+  const shared = `absolute overflow-hidden rounded border border-ink-800/40 px-1 text-left text-xs leading-6 font-semibold text-ink-950 ${ring}`;
+  const style = (p: BlockPlace) => ({ left: p.left, width: Math.max(p.width, 24), top: p.top, height: p.height, backgroundColor: colour });
+  const facts = {
+    "data-work-order": job.number,
+    "data-start": job.start,
+    "data-end": job.end,
+    "data-start-local": wanted,
+    "data-engine-stop": job.needsEngineStop ? "true" : "false",
+    "data-problem": problem ? "true" : undefined,
+  };
+  return (
+    <>
+      {onKey ? (
+        <button
+          type="button"
+          className={`${shared} cursor-grab focus-visible:z-20`}
+          style={style(first)}
+          title={problem ? `${words}. ${problem}` : words}
+          aria-label={`${words}.${problem ? ` Problem: ${problem}` : ""} Arrow keys move it, Shift by the hour, Page Up and Page Down by the day.`}
+          onKeyDown={(e) => {
+            if (onKey(e.key, e.shiftKey)) e.preventDefault();
+          }}
+          {...facts}
+        >
+          {problem && <span aria-hidden="true">⚠ </span>}
+          {job.number}
+        </button>
+      ) : (
+        <div role="img" className={shared} style={style(first)} title={words} aria-label={words} {...facts}>
+          {job.number}
+        </div>
+      )}
+      {rest.map((p, i) => (
+        <div key={i} aria-hidden="true" className={shared} style={style(p)} title={words}>
+          {job.number}
+        </div>
+      ))}
+    </>
+  );
+}
