@@ -42,7 +42,8 @@ export function Timeline({ stay, timeZone, jobs, slotMinutes = 30, onMove, label
             </li>
           ))}
         </ul>
-        <div className="overflow-x-auto" tabIndex={-1}>
+        {/* Focusable so that the keyboard can scroll a long stay sideways (an accepted package has no buttons). */}
+        <div className="min-w-0 flex-1 overflow-x-auto" tabIndex={0} role="group" aria-label="Timeline, scrolls sideways">
           <div className="relative" style={{ width: axis.width, height }}>
             {axis.pieces.map((p) => (
               <div
@@ -64,7 +65,7 @@ export function Timeline({ stay, timeZone, jobs, slotMinutes = 30, onMove, label
             {stop && stay.engineStop && (
               <div
                 className="absolute border-x-2 border-dashed border-brass-600 bg-brass-400/20 dark:border-brass-400 dark:bg-brass-400/15"
-                style={{ left: stop.left, width: stop.width, top: HEAD_PX - 6, height: height - HEAD_PX + 6 }}
+                style={{ left: stop.left, width: stop.width, top: HEAD_PX, height: height - HEAD_PX }}
                 data-engine-stop-band=""
                 data-from={stay.engineStop.from}
                 data-to={stay.engineStop.to}
