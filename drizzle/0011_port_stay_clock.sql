@@ -7,8 +7,14 @@ ALTER TABLE "port_stay" ADD COLUMN "workday_to" smallint DEFAULT 1020 NOT NULL;-
 ALTER TABLE "port_stay" ADD COLUMN "engine_stop_from" timestamp with time zone;--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "engine_stop_to" timestamp with time zone;--> statement-breakpoint
 ALTER TABLE "port_stay" ADD COLUMN "watches" jsonb DEFAULT '[]'::jsonb NOT NULL;--> statement-breakpoint
+ALTER TABLE "routine" ADD COLUMN "team" jsonb DEFAULT '[]'::jsonb NOT NULL;--> statement-breakpoint
+ALTER TABLE "routine" ADD COLUMN "elapsed_hours" numeric(6, 1) DEFAULT 1 NOT NULL;--> statement-breakpoint
+ALTER TABLE "routine" ADD COLUMN "needs_port" boolean DEFAULT false NOT NULL;--> statement-breakpoint
 ALTER TABLE "routine" ADD COLUMN "port_event" text;--> statement-breakpoint
 ALTER TABLE "routine" ADD COLUMN "port_event_hours" numeric(5, 1);--> statement-breakpoint
+ALTER TABLE "work_order" ADD COLUMN "team" jsonb DEFAULT '[]'::jsonb NOT NULL;--> statement-breakpoint
+ALTER TABLE "work_order" ADD COLUMN "elapsed_hours" numeric(6, 1) DEFAULT 1 NOT NULL;--> statement-breakpoint
+ALTER TABLE "work_order" ADD COLUMN "needs_port" boolean DEFAULT false NOT NULL;--> statement-breakpoint
 ALTER TABLE "work_order" ADD COLUMN "port_event" text;--> statement-breakpoint
 ALTER TABLE "work_order" ADD COLUMN "port_event_hours" numeric(5, 1);--> statement-breakpoint
 ALTER TABLE "work_package_item" ADD COLUMN "starts_at" timestamp with time zone;--> statement-breakpoint
@@ -24,6 +30,14 @@ UPDATE "port_stay" SET "crew" = (SELECT coalesce(jsonb_agg(jsonb_build_object('r
 UPDATE "work_package_item" i SET "starts_at" = (i."planned_date"::timestamp + interval '8 hours') AT TIME ZONE v."time_zone" FROM "vessel" v WHERE v."id" = i."vessel_id";--> statement-breakpoint
 UPDATE "work_package_item" i SET "ends_at" = i."starts_at" + greatest(w."estimated_man_hours", 0.5) * interval '1 hour' FROM "work_order" w WHERE w."id" = i."work_order_id";--> statement-breakpoint
 UPDATE "work_package_item" SET "segments" = jsonb_build_array(jsonb_build_object('from', to_char("starts_at" AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"'), 'to', to_char("ends_at" AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"'))) WHERE "starts_at" IS NOT NULL AND "ends_at" IS NOT NULL;--> statement-breakpoint
+-- Ranks: the electrician is the electro-technical officer (STCW's name); then every routine and
+-- work order gets its team as one person of its rank for the man-hours' length.
+UPDATE "routine" SET "rank" = 'electro-technical-officer' WHERE "rank" = 'electrician';--> statement-breakpoint
+UPDATE "work_order" SET "rank" = 'electro-technical-officer' WHERE "rank" = 'electrician';--> statement-breakpoint
+UPDATE "membership" SET "rank" = 'electro-technical-officer' WHERE "rank" = 'electrician';--> statement-breakpoint
+UPDATE "port_stay" SET "crew" = replace("crew"::text, '"electrician"', '"electro-technical-officer"')::jsonb;--> statement-breakpoint
+UPDATE "routine" SET "team" = jsonb_build_array(jsonb_build_object('rank', "rank", 'count', 1)), "elapsed_hours" = greatest("estimated_man_hours", 0.1) WHERE "team" = '[]'::jsonb;--> statement-breakpoint
+UPDATE "work_order" SET "team" = jsonb_build_array(jsonb_build_object('rank', "rank", 'count', 1)), "elapsed_hours" = greatest("estimated_man_hours", 0.1) WHERE "team" = '[]'::jsonb;--> statement-breakpoint
 ALTER TABLE "port_stay" DROP COLUMN "engine_may_stop";--> statement-breakpoint
 ALTER TABLE "port_stay" DROP COLUMN "immobilisation_hours";--> statement-breakpoint
 ALTER TABLE "port_stay" ADD CONSTRAINT "port_stay_workday" CHECK ("port_stay"."workday_from" >= 0 and "port_stay"."workday_from" < "port_stay"."workday_to" and "port_stay"."workday_to" <= 1440);--> statement-breakpoint

@@ -6,8 +6,9 @@ export const RANK_LABEL: Record<Rank, string> = {
   "second-engineer": "Second engineer",
   "third-engineer": "Third engineer",
   "fourth-engineer": "Fourth engineer",
+  "electro-technical-officer": "Electro-technical officer",
   motorman: "Motorman",
-  electrician: "Electrician",
+  oiler: "Oiler",
 };
 
 export const rankLabel = (rank: string) => RANK_LABEL[rank as Rank] ?? rank;

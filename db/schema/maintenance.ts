@@ -16,7 +16,7 @@ import {
   unique,
   uuid,
 } from "drizzle-orm/pg-core";
-import { hours } from "./columns";
+import { type HeadCount, hours } from "./columns";
 import { component } from "./machinery";
 import { companyRef, instant, nowStamp, vesselRef } from "./refs";
 
@@ -76,6 +76,12 @@ export const routine = pgTable(
     anchorDate: date({ mode: "string" }),
     estimatedManHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull().default(1),
     rank: text().notNull().default("engineer"),
+    /** Who does it: ranks with a head count; `rank` is its first (lead) rank. */
+    team: jsonb().$type<HeadCount[]>().notNull().default([]),
+    /** Hours the job takes from start to end; man-hours = elapsed × the team's head count. */
+    elapsedHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull().default(1),
+    /** Needs the ship in port: shore crane, service engineer, surveyor, parts delivered in port. */
+    needsPort: boolean().notNull().default(false),
     needsEngineStop: boolean().notNull().default(false),
     /** Falls due at an event of every port stay instead of (never beside) an interval. */
     portEvent: text({ enum: ["departure", "arrival"] }),

@@ -17,7 +17,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import { user } from "./auth";
-import { hours } from "./columns";
+import { type HeadCount, hours } from "./columns";
 import { companyRef, instant, nowStamp, vesselRef } from "./refs";
 import { workOrder } from "./work-orders";
 
@@ -56,8 +56,8 @@ export const deferral = pgTable(
   ],
 );
 
-/** People of a rank on board for maintenance during a stay (also a routine's team: rank × head count). */
-export type CrewOnBoard = { rank: string; count: number };
+/** People of a rank on board for maintenance during a stay. */
+export type CrewOnBoard = HeadCount;
 /** A port watch (cargo, bunkering) of the n-th person of a rank; instants as ISO strings. */
 export type PortWatchRow = { rank: string; person: number; from: string; to: string; label: string };
 

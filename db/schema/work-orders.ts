@@ -6,6 +6,7 @@ import {
   date,
   index,
   integer,
+  jsonb,
   numeric,
   pgEnum,
   pgTable,
@@ -14,7 +15,7 @@ import {
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
-import { hours } from "./columns";
+import { type HeadCount, hours } from "./columns";
 import { component, counter } from "./machinery";
 import { intervalKind, routine } from "./maintenance";
 import { companyRef, instant, nowStamp, vesselRef } from "./refs";
@@ -85,6 +86,12 @@ export const workOrder = pgTable(
     deferredDueHours: hours(),
     rank: text().notNull().default("engineer"),
     estimatedManHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull().default(1),
+    /** Who does it: ranks with a head count; `rank` is its first (lead) rank. */
+    team: jsonb().$type<HeadCount[]>().notNull().default([]),
+    /** Hours the job takes from start to end; man-hours = elapsed × the team's head count. */
+    elapsedHours: numeric({ precision: 6, scale: 1, mode: "number" }).notNull().default(1),
+    /** Needs the ship in port: shore crane, service engineer, surveyor, parts delivered in port. */
+    needsPort: boolean().notNull().default(false),
     needsEngineStop: boolean().notNull().default(false),
     /** Copied from a routine tied to a port stay's event: the planner keeps the job in its window. */
     portEvent: text({ enum: ["departure", "arrival"] }),

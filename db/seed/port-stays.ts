@@ -99,7 +99,7 @@ const DEMO_CREW: s.CrewOnBoard[] = [
   { rank: "third-engineer", count: 1 },
   { rank: "fourth-engineer", count: 1 },
   { rank: "motorman", count: 2 },
-  { rank: "electrician", count: 1 },
+  { rank: "electro-technical-officer", count: 1 },
 ];
 
 export async function seedPortStays(tx: Tx, companyId: string, vesselId: string, v: DemoVessel, now: Date) {

@@ -191,7 +191,7 @@ export const vesselRoutines: DemoRoutine[] = [
     title: "Emergency generator: weekly test run on load",
     calendarRule: "FREQ=WEEKLY;BYDAY=SA",
     manHours: 0.5,
-    rank: "electrician",
+    rank: "electro-technical-officer",
     critical: true,
     // common practice and flag guidance; SOLAS II-1/43.7 requires periodic testing, no interval.
     checklist: [

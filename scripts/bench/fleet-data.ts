@@ -69,7 +69,7 @@ const CALENDAR = [
   ["FREQ=YEARLY;INTERVAL=5", 1826.25],
 ] as const;
 const HOURS = [250, 500, 1_000, 2_000, 3_000, 4_000, 8_000, 12_000];
-const RANKS = ["engineer", "motorman", "third-engineer", "second-engineer", "electrician", "chief-engineer"];
+const RANKS = ["engineer", "motorman", "third-engineer", "second-engineer", "electro-technical-officer", "chief-engineer"];
 
 // A fixed seed: every run of the bench times the same plan.
 function random(seed: number) {

@@ -173,7 +173,7 @@ const [stay] = await db
       { rank: "second-engineer", count: 1 },
       { rank: "third-engineer", count: 1 },
       { rank: "motorman", count: 2 },
-      { rank: "electrician", count: 1 },
+      { rank: "electro-technical-officer", count: 1 },
     ],
   })
   .returning();

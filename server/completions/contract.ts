@@ -5,7 +5,7 @@ import { z } from "zod";
 import type { RecordedMeasurement, RoutineCaution, RoutineMeasurement } from "@/db/schema";
 import { enteredDay } from "@/server/http/dates";
 import { MeterValue, SHIP_DAY_FORMAT, ShipClock } from "@/server/readings/contract";
-import { RANKS } from "@/server/routines/contract";
+import { RANKS } from "@/server/routines/ranks";
 import { DUE_FIELDS, HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
 import type { WorkOrderView } from "@/server/work-orders/view";
 

@@ -117,8 +117,11 @@ export const jobColumns = {
   componentName: component.name,
   state: workOrder.state,
   rank: workOrder.rank,
+  team: workOrder.team,
+  elapsedHours: workOrder.elapsedHours,
   manHours: workOrder.estimatedManHours,
   needsEngineStop: workOrder.needsEngineStop,
+  needsPort: workOrder.needsPort,
   portEvent: workOrder.portEvent,
   portEventHours: workOrder.portEventHours,
   critical: workOrder.critical,
@@ -138,8 +141,11 @@ export type JobRow = {
   componentName: string;
   state: PackageJob["state"];
   rank: string;
+  team: { rank: string; count: number }[];
+  elapsedHours: number;
   manHours: number;
   needsEngineStop: boolean;
+  needsPort: boolean;
   portEvent: "departure" | "arrival" | null;
   portEventHours: number | null;
   critical: boolean;
@@ -160,11 +166,12 @@ export function toJob(r: JobRow): PackageJob {
     componentCode: r.componentCode,
     componentName: r.componentName,
     state: r.state,
-    team: [{ rank: r.rank, count: 1 }],
-    elapsedHours: r.manHours,
+    // A work order written before teams holds one person of its rank for its man-hours.
+    team: r.team.length ? r.team : [{ rank: r.rank, count: 1 }],
+    elapsedHours: r.team.length ? r.elapsedHours : r.manHours,
     manHours: r.manHours,
     needsEngineStop: r.needsEngineStop,
-    needsPort: false,
+    needsPort: r.needsPort,
     tiedTo: r.portEvent && r.portEventHours ? { event: r.portEvent, withinHours: r.portEventHours } : null,
     critical: r.critical,
     classRelated: r.classRelated,

@@ -10,16 +10,9 @@ import { enteredDay } from "@/server/http/dates";
 import { MAX_METER_HOURS, MeterValue, SHIP_DAY_FORMAT } from "@/server/readings/contract";
 import { calendarRuleProblem, parseCalendarRule } from "@/server/scheduling/calendar-rule";
 import { calendarRuleFromForm, type CalendarRuleForm } from "@/server/scheduling/calendar-rule-words";
+import { RANKS, type Rank } from "./ranks";
 
-export const RANKS = [
-  "chief-engineer",
-  "second-engineer",
-  "third-engineer",
-  "fourth-engineer",
-  "motorman",
-  "electrician",
-] as const;
-export type Rank = (typeof RANKS)[number];
+export { RANKS, type Rank };
 
 export const CAUTIONS = [
   "isolation",
@@ -69,6 +62,22 @@ const CalendarForm = z.object({
   weekdays: z.array(z.enum(WEEKDAYS, { message: "Unknown weekday." })).optional(),
 });
 
+export const MAX_TEAM_ROWS = 6;
+export const MAX_TEAM_HEADS = 10;
+/** An overhaul of a large two-stroke takes days, not weeks (Keelson's bound, `common practice`). */
+export const MAX_ELAPSED_HOURS = 500;
+export const MAX_PORT_EVENT_HOURS = 72;
+export const PORT_EVENTS = ["departure", "arrival"] as const;
+
+const TeamRow = z.object({
+  rank: z.enum(RANKS, { message: "Choose the rank." }),
+  count: z
+    .number({ message: "People: enter a whole number from 1." })
+    .int({ message: "People: enter a whole number from 1." })
+    .min(1, { message: "People: at least 1 (remove the row instead)." })
+    .max(MAX_TEAM_HEADS, { message: `People: at most ${MAX_TEAM_HEADS} of one rank on a job.` }),
+});
+
 /** Every field of a routine as the form sends it; cross-field rules come in RoutineInput. */
 const fields = {
   componentId: z.uuid({ message: "Choose the component the routine belongs to." }),
@@ -83,9 +92,20 @@ const fields = {
   calendarRule: z.string({ message: "The calendar rule must be text." }).trim().nullish(),
   anchored: z.boolean({ message: "Anchored must be yes or no." }).optional(),
   anchorDate: enteredDay("anniversary", "The anniversary date", SHIP_DAY_FORMAT).nullish(),
-  // The completion's limit for one job (numeric(6,1) would hold 99,999.9).
+  // The completion's limit for one job (numeric(6,1) would hold 99,999.9). With a team, derived.
   estimatedManHours: tenths("Estimated man-hours", { min: 0, max: MAX_JOB_MAN_HOURS }),
-  rank: z.enum(RANKS, { message: "Choose the rank who does the job." }),
+  rank: z.enum(RANKS, { message: "Choose the rank who does the job." }).optional(),
+  /** Who does it: ranks with a head count, the lead rank first. */
+  team: z
+    .array(TeamRow, { message: "List the team by rank and number of people." })
+    .min(1, { message: "A job needs at least one person: add a rank to the team." })
+    .max(MAX_TEAM_ROWS, { message: `At most ${MAX_TEAM_ROWS} ranks in a team.` })
+    .optional(),
+  /** Hours from start to finish; man-hours are elapsed × the team's head count. */
+  elapsedHours: tenths("Elapsed time", { above: 0, max: MAX_ELAPSED_HOURS }),
+  needsPort: z.boolean({ message: "Needs port must be yes or no." }).optional(),
+  portEvent: z.enum(PORT_EVENTS, { message: "Tie it to the departure or the arrival." }).nullish(),
+  portEventHours: tenths("Hours from the event", { above: 0, max: MAX_PORT_EVENT_HOURS }),
   needsEngineStop: z.boolean({ message: "Engine stop must be yes or no." }).optional(),
   critical: z.boolean({ message: "Critical must be yes or no." }).optional(),
   classRelated: z.boolean({ message: "Class-related must be yes or no." }).optional(),
@@ -112,6 +132,11 @@ export type NewRoutine = {
   anchorDate: string | null;
   estimatedManHours: number;
   rank: Rank;
+  team: { rank: Rank; count: number }[];
+  elapsedHours: number;
+  needsPort: boolean;
+  portEvent: (typeof PORT_EVENTS)[number] | null;
+  portEventHours: number | null;
   needsEngineStop: boolean;
   critical: boolean;
   classRelated: boolean;
@@ -166,21 +191,40 @@ function ruleOf(f: Fields, issues: Issue[]): string | null {
   return rule.text;
 }
 
-function crossFieldIssues(f: Fields, calendarRule: string | null, issues: Issue[]): void {
-  const hasHours = f.intervalHours != null;
-  const hasCalendar = calendarRule !== null || Boolean(f.calendar || f.calendarRule);
-  if (!hasHours && !hasCalendar) {
-    issues.push({
-      path: ["intervalHours"],
-      message: "Give the routine an interval in running hours, a calendar rule, or both (whichever comes first).",
+/** The team and its hours: a team with an elapsed time, or (older clients) one rank and its man-hours. */
+function labourOf(f: Fields, issues: Issue[]): Pick<NewRoutine, "rank" | "team" | "elapsedHours" | "estimatedManHours"> | null {
+  if (f.team) {
+    const seen = new Map<string, number>();
+    f.team.forEach((row, i) => {
+      const first = seen.get(row.rank);
+      if (first !== undefined) issues.push({ path: ["team", i, "rank"], message: `This rank is already on row ${first + 1}: give it one row with its number of people.` });
+      else seen.set(row.rank, i);
     });
+    if (f.elapsedHours == null) {
+      issues.push({ path: ["elapsedHours"], message: "Give the team's elapsed time: hours from start to finish." });
+      return null;
+    }
+    const heads = f.team.reduce((sum, row) => sum + row.count, 0);
+    const manHours = Math.round(f.elapsedHours * heads * 10) / 10;
+    if (manHours > MAX_JOB_MAN_HOURS) {
+      issues.push({
+        path: ["elapsedHours"],
+        message: `${heads} people × ${f.elapsedHours} h is ${manHours.toLocaleString("en-GB")} man-hours, more than one job takes (at most ${MAX_JOB_MAN_HOURS.toLocaleString("en-GB")}).`,
+      });
+      return null;
+    }
+    return { rank: f.team[0]!.rank, team: f.team, elapsedHours: f.elapsedHours, estimatedManHours: manHours };
   }
-  if (f.anchored) {
-    if (!hasCalendar)
-      issues.push({ path: ["anchored"], message: "Only a routine with a calendar rule can keep a fixed anniversary." });
-    if (!f.anchorDate)
-      issues.push({ path: ["anchorDate"], message: "An anchored routine needs its anniversary date (YYYY-MM-DD)." });
+  if (!f.rank) {
+    issues.push({ path: ["team"], message: "Say who does the job: a team of ranks with their number of people." });
+    return null;
   }
+  // One person of the rank for the man-hours' length, as routines were before teams.
+  const hours = f.estimatedManHours ?? 1;
+  return { rank: f.rank, team: [{ rank: f.rank, count: 1 }], elapsedHours: hours, estimatedManHours: hours };
+}
+
+function crossFieldIssues(f: Fields, calendarRule: string | null, issues: Issue[]): void {
   (f.measurements ?? []).forEach((m, i) => {
     if (m.lower !== null && m.upper !== null && m.lower > m.upper) {
       issues.push({
@@ -189,6 +233,34 @@ function crossFieldIssues(f: Fields, calendarRule: string | null, issues: Issue[
       });
     }
   });
+  const hasHours = f.intervalHours != null;
+  const hasCalendar = calendarRule !== null || Boolean(f.calendar || f.calendarRule);
+  if (f.portEvent) {
+    // It falls due at each stay's event: no interval, no anniversary, no baseline to count from.
+    if (f.portEventHours == null) {
+      const when = f.portEvent === "departure" ? "before the departure" : "after the arrival";
+      issues.push({ path: ["portEventHours"], message: `Say within how many hours ${when} it is done.` });
+    }
+    if (hasHours || hasCalendar || f.anchored) {
+      issues.push({
+        path: [hasHours ? "intervalHours" : "calendar"],
+        message: "A routine tied to every port stay falls due at each stay: leave the running hours and the calendar rule out.",
+      });
+    }
+    return;
+  }
+  if (!hasHours && !hasCalendar) {
+    issues.push({
+      path: ["intervalHours"],
+      message: "Give the routine an interval in running hours, a calendar rule, both (whichever comes first), or tie it to every port stay.",
+    });
+  }
+  if (f.anchored) {
+    if (!hasCalendar)
+      issues.push({ path: ["anchored"], message: "Only a routine with a calendar rule can keep a fixed anniversary." });
+    if (!f.anchorDate)
+      issues.push({ path: ["anchorDate"], message: "An anchored routine needs its anniversary date (YYYY-MM-DD)." });
+  }
   const baselineWords = "A routine never done needs a baseline";
   if (hasHours && f.baselineHours == null) {
     issues.push({
@@ -205,7 +277,7 @@ function crossFieldIssues(f: Fields, calendarRule: string | null, issues: Issue[
   }
 }
 
-function toRoutine(f: Fields, calendarRule: string | null): NewRoutine {
+function toRoutine(f: Fields, calendarRule: string | null, labour: NonNullable<ReturnType<typeof labourOf>>): NewRoutine {
   return {
     componentId: f.componentId,
     title: f.title,
@@ -215,8 +287,10 @@ function toRoutine(f: Fields, calendarRule: string | null): NewRoutine {
     calendarRule,
     anchored: f.anchored ?? false,
     anchorDate: f.anchored ? (f.anchorDate ?? null) : null,
-    estimatedManHours: f.estimatedManHours ?? 1,
-    rank: f.rank,
+    ...labour,
+    needsPort: f.needsPort ?? false,
+    portEvent: f.portEvent ?? null,
+    portEventHours: f.portEvent ? (f.portEventHours ?? null) : null,
     needsEngineStop: f.needsEngineStop ?? false,
     critical: f.critical ?? false,
     classRelated: f.classRelated ?? false,
@@ -234,8 +308,9 @@ export const RoutineInput = z.object(fields).transform((f, ctx) => {
   const issues: Issue[] = [];
   const calendarRule = ruleOf(f, issues);
   crossFieldIssues(f, calendarRule, issues);
+  const labour = labourOf(f, issues);
   for (const issue of issues) ctx.addIssue({ code: "custom", ...issue });
-  return issues.length ? z.NEVER : toRoutine(f, calendarRule);
+  return issues.length || !labour ? z.NEVER : toRoutine(f, calendarRule, labour);
 });
 export type RoutineInput = z.input<typeof RoutineInput>;
 
@@ -287,11 +362,14 @@ export type RoutineSummary = Pick<
   | "component"
   | "intervalWords"
   | "rank"
+  | "team"
+  | "elapsedHours"
   | "estimatedManHours"
   | "critical"
   | "classRelated"
   | "classItemRef"
   | "needsEngineStop"
+  | "needsPort"
 > & {
   /** The fixed anniversary of an anchored routine, else null. */
   anchoredOn: string | null;

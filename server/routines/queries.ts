@@ -51,6 +51,11 @@ function toView(
     anchorDate: r.anchorDate,
     estimatedManHours: r.estimatedManHours,
     rank: r.rank as Rank,
+    team: (r.team.length ? r.team : [{ rank: r.rank, count: 1 }]) as NewRoutine["team"],
+    elapsedHours: r.elapsedHours,
+    needsPort: r.needsPort,
+    portEvent: r.portEvent,
+    portEventHours: r.portEventHours,
     needsEngineStop: r.needsEngineStop,
     critical: r.critical,
     classRelated: r.classRelated,
@@ -62,7 +67,7 @@ function toView(
     baselineHours: r.baselineHours,
     toleranceRuleId: r.toleranceRuleId,
     component: c,
-    intervalWords: intervalWords(r.intervalHours, r.calendarRule),
+    intervalWords: intervalWords(r.intervalHours, r.calendarRule, r.portEvent && r.portEventHours ? { event: r.portEvent, withinHours: r.portEventHours } : null),
     calendar: r.calendarRule ? formFromCalendarRule(r.calendarRule) : null,
     toleranceRuleName,
     revision: r.revision,
@@ -105,11 +110,16 @@ export async function listRoutines(
       anchored: routine.anchored,
       anchorDate: routine.anchorDate,
       rank: routine.rank,
+      team: routine.team,
+      elapsedHours: routine.elapsedHours,
       estimatedManHours: routine.estimatedManHours,
       critical: routine.critical,
       classRelated: routine.classRelated,
       classItemRef: routine.classItemRef,
       needsEngineStop: routine.needsEngineStop,
+      needsPort: routine.needsPort,
+      portEvent: routine.portEvent,
+      portEventHours: routine.portEventHours,
       planProblem: routinePlanProblem.reason,
     })
     .from(routine)
@@ -136,10 +146,11 @@ export async function listRoutines(
   return {
     vessel: { id: vessel.id, name: vessel.name, code: vessel.code },
     canEdit: can(access.role, "register:edit"),
-    routines: rows.map(({ intervalHours, calendarRule, anchored, anchorDate, rank, ...shown }): RoutineSummary => ({
+    routines: rows.map(({ intervalHours, calendarRule, anchored, anchorDate, rank, team, portEvent, portEventHours, ...shown }): RoutineSummary => ({
       ...shown,
       rank: rank as Rank,
-      intervalWords: intervalWords(intervalHours, calendarRule),
+      team: (team.length ? team : [{ rank, count: 1 }]) as RoutineSummary["team"],
+      intervalWords: intervalWords(intervalHours, calendarRule, portEvent && portEventHours ? { event: portEvent, withinHours: portEventHours } : null),
       anchoredOn: anchored ? anchorDate : null,
     })),
     total: total?.n ?? 0,
@@ -241,6 +252,11 @@ export async function updateRoutine(
     if (!found) throw noSuchRoutine(vessel);
     const sent = Object.fromEntries(Object.entries(change).filter(([, v]) => v !== undefined));
     const merged = { ...inputOf(toView(found.r, found.c, found.rule, vessel.timeZone)), ...sent };
+    // One rank and its man-hours sent without a team (an older client): they replace the team.
+    if (!("team" in sent) && ("rank" in sent || "estimatedManHours" in sent)) {
+      delete merged.team;
+      delete merged.elapsedHours;
+    }
     // A calendar sent either way replaces the stored one, whichever way it was given before.
     if ("calendar" in sent || "calendarRule" in sent) {
       merged.calendar = sent.calendar ?? null;

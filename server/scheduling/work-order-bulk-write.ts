@@ -45,7 +45,12 @@ function columnArrays<T extends PgTable, K extends ColumnKey<T>>(
 ): SQL {
   const columns = columnsOf(table, keys);
   return sql.join(
-    keys.map((key, i) => sql`${sql.param(rows.map((r) => r[key]))}::${sql.raw(columns[i]!.getSQLType())}[]`),
+    keys.map((key, i) => {
+      const type = columns[i]!.getSQLType();
+      // A jsonb value (a team) goes as its JSON text: pg would turn an array of arrays into a 2-D array.
+      const values = rows.map((r) => (type === "jsonb" && r[key] !== null ? JSON.stringify(r[key]) : r[key]));
+      return sql`${sql.param(values)}::${sql.raw(type)}[]`;
+    }),
     sql`, `,
   );
 }

@@ -40,7 +40,10 @@ export function routineFields(
     | "componentId"
     | "title"
     | "rank"
+    | "team"
+    | "elapsedHours"
     | "estimatedManHours"
+    | "needsPort"
     | "needsEngineStop"
     | "portEvent"
     | "portEventHours"
@@ -69,7 +72,10 @@ export function routineFields(
     planUntil: plan.planUntil,
     outOfToleranceAt: plan.outOfToleranceAt,
     rank: r.rank,
+    team: r.team,
+    elapsedHours: r.elapsedHours,
     estimatedManHours: r.estimatedManHours,
+    needsPort: r.needsPort,
     needsEngineStop: r.needsEngineStop,
     portEvent: r.portEvent,
     portEventHours: r.portEventHours,
@@ -121,7 +127,7 @@ export function diffWorkOrders(
   return diff;
 }
 
-/** Instants compare by their time: the row's and the plan's are different Date objects. */
+/** Instants compare by their time (the row's and the plan's are different Date objects), lists by value. */
 function fieldsMoved(row: WorkOrderRow, fields: WrittenFields): boolean {
   return WRITTEN_FIELDS.some((key) => {
     const now = row[key];
@@ -129,6 +135,8 @@ function fieldsMoved(row: WorkOrderRow, fields: WrittenFields): boolean {
     if (now instanceof Date || next instanceof Date) {
       return (now instanceof Date ? now.getTime() : null) !== (next instanceof Date ? next.getTime() : null);
     }
+    // A team is a list: equal when its JSON is (rows keep the routine's order of ranks).
+    if (Array.isArray(now) || Array.isArray(next)) return JSON.stringify(now) !== JSON.stringify(next);
     return now !== next;
   });
 }

@@ -34,7 +34,10 @@ export const PLAN_RANGE_FIELDS = [
 /** Who does the job and what it asks for, copied from its routine. */
 export const JOB_FIELDS = [
   "rank",
+  "team",
+  "elapsedHours",
   "estimatedManHours",
+  "needsPort",
   "needsEngineStop",
   "portEvent",
   "portEventHours",
