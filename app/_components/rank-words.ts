@@ -12,3 +12,13 @@ export const RANK_LABEL: Record<Rank, string> = {
 };
 
 export const rankLabel = (rank: string) => RANK_LABEL[rank as Rank] ?? rank;
+
+/** "Second engineer, motorman ×2": a team as pages write it. */
+export function teamLabel(team: readonly { rank: string; count: number }[]): string {
+  return team
+    .map(({ rank, count }, i) => {
+      const label = i === 0 ? rankLabel(rank) : rankLabel(rank).toLowerCase();
+      return count > 1 ? `${label} ×${count}` : label;
+    })
+    .join(", ");
+}

@@ -9,7 +9,7 @@ import { calendarIntervalDays } from "../../server/scheduling/tolerance";
 import { parseCalendarRule } from "../../server/scheduling/calendar-rule";
 import { presetRow } from "../../server/tolerance/rows";
 import { seededRandom } from "./readings";
-import { routinesFor } from "./routines";
+import { type DemoRoutine, routinesFor } from "./routines";
 import { componentsFor, type DemoVessel } from "./scenario";
 
 export async function seedTolerancePresets(tx: Tx, companyId: string) {
@@ -75,8 +75,10 @@ export async function seedRoutines(
       calendarRule: r.calendarRule ?? null,
       anchored: r.anchored ?? false,
       anchorDate,
-      estimatedManHours: r.manHours,
-      rank: r.rank,
+      ...labourOf(r),
+      needsPort: r.needsPort ?? false,
+      portEvent: r.portEvent?.event ?? null,
+      portEventHours: r.portEvent?.withinHours ?? null,
       needsEngineStop: r.engineStop ?? false,
       critical: r.critical ?? false,
       classRelated: r.classRelated ?? false,
@@ -88,4 +90,12 @@ export async function seedRoutines(
     });
   }
   await tx.insert(s.routine).values(rows);
+}
+
+/** The team and its hours: as given, or one person of the rank for the man-hours' length. */
+function labourOf(r: DemoRoutine) {
+  const team = r.team ?? [{ rank: r.rank, count: 1 }];
+  const elapsedHours = r.team ? (r.elapsedHours ?? r.manHours) : r.manHours;
+  const heads = team.reduce((sum, t) => sum + t.count, 0);
+  return { team, elapsedHours, rank: team[0]!.rank, estimatedManHours: Math.round(elapsedHours * heads * 10) / 10 };
 }

@@ -98,8 +98,9 @@ const DEMO_CREW: s.CrewOnBoard[] = [
   { rank: "second-engineer", count: 1 },
   { rank: "third-engineer", count: 1 },
   { rank: "fourth-engineer", count: 1 },
-  { rank: "motorman", count: 2 },
   { rank: "electro-technical-officer", count: 1 },
+  { rank: "motorman", count: 2 },
+  { rank: "oiler", count: 1 },
 ];
 
 export async function seedPortStays(tx: Tx, companyId: string, vesselId: string, v: DemoVessel, now: Date) {

@@ -11,8 +11,15 @@ export type DemoRoutine = {
   /** RFC 5545 RRULE without DTSTART. */
   calendarRule?: string;
   anchored?: boolean;
+  /** One person's man-hours when no team is given; with a team, derived (elapsed × people). */
   manHours: number;
   rank: Rank;
+  /** Who does it and for how long (`common practice` demo values, not a maker's figures). */
+  team?: { rank: Rank; count: number }[];
+  elapsedHours?: number;
+  needsPort?: boolean;
+  /** Falls due at every stay's departure or arrival instead of an interval. */
+  portEvent?: { event: "departure" | "arrival"; withinHours: number };
   engineStop?: boolean;
   critical?: boolean;
   classRelated?: boolean;
@@ -38,6 +45,11 @@ export const cylinderRoutines = (n: number): DemoRoutine[] => [
     intervalHours: 16_000,
     manHours: 36,
     rank: "second-engineer",
+    team: [
+      { rank: "second-engineer", count: 1 },
+      { rank: "motorman", count: 2 },
+    ],
+    elapsedHours: 12,
     engineStop: true,
     critical: true,
     classRelated: true,
@@ -55,6 +67,11 @@ export const cylinderRoutines = (n: number): DemoRoutine[] => [
     intervalHours: 8_000,
     manHours: 12,
     rank: "third-engineer",
+    team: [
+      { rank: "third-engineer", count: 1 },
+      { rank: "motorman", count: 1 },
+    ],
+    elapsedHours: 6,
     engineStop: true,
     critical: true,
     checklist: overhaulSteps,
@@ -97,6 +114,11 @@ export const generatorRoutines = (n: number): DemoRoutine[] => [
     intervalHours: 12_000,
     manHours: 30,
     rank: "second-engineer",
+    team: [
+      { rank: "second-engineer", count: 1 },
+      { rank: "oiler", count: 1 },
+    ],
+    elapsedHours: 15,
     critical: true,
     classRelated: true,
     checklist: overhaulSteps,
@@ -138,6 +160,11 @@ export const vesselRoutines: DemoRoutine[] = [
     intervalHours: 4_000,
     manHours: 8,
     rank: "second-engineer",
+    team: [
+      { rank: "second-engineer", count: 1 },
+      { rank: "motorman", count: 1 },
+    ],
+    elapsedHours: 4,
     engineStop: true,
     critical: true,
     classRelated: true,
@@ -157,6 +184,14 @@ export const vesselRoutines: DemoRoutine[] = [
     intervalHours: 24_000,
     manHours: 24,
     rank: "chief-engineer",
+    // The maker's service engineer attends in port.
+    team: [
+      { rank: "chief-engineer", count: 1 },
+      { rank: "second-engineer", count: 1 },
+      { rank: "motorman", count: 1 },
+    ],
+    elapsedHours: 8,
+    needsPort: true,
     engineStop: true,
     critical: true,
     classRelated: true,
@@ -170,6 +205,11 @@ export const vesselRoutines: DemoRoutine[] = [
     intervalHours: 3_000,
     manHours: 10,
     rank: "third-engineer",
+    team: [
+      { rank: "third-engineer", count: 1 },
+      { rank: "motorman", count: 1 },
+    ],
+    elapsedHours: 5,
     engineStop: true,
     checklist: ["Remove fuel valves", "Test opening pressure", "Recondition or renew nozzles", "Refit"],
     measurements: [{ name: "Opening pressure", unit: "bar", lower: 320, upper: 350 }],
@@ -209,6 +249,13 @@ export const vesselRoutines: DemoRoutine[] = [
     anchored: true,
     manHours: 4,
     rank: "chief-engineer",
+    // The class surveyor attends in port.
+    team: [
+      { rank: "chief-engineer", count: 1 },
+      { rank: "electro-technical-officer", count: 1 },
+    ],
+    elapsedHours: 2,
+    needsPort: true,
     critical: true,
     classRelated: true,
     checklist: [
@@ -257,6 +304,12 @@ export const vesselRoutines: DemoRoutine[] = [
     anchored: true,
     manHours: 16,
     rank: "chief-engineer",
+    team: [
+      { rank: "chief-engineer", count: 1 },
+      { rank: "fourth-engineer", count: 1 },
+    ],
+    elapsedHours: 8,
+    needsPort: true,
     critical: true,
     classRelated: true,
     checklist: [
@@ -278,8 +331,9 @@ export const vesselRoutines: DemoRoutine[] = [
   },
   {
     component: "SG.P1",
+    // SOLAS V/26: checked and tested within 12 hours before departure (memory, SOURCES.md).
     title: "Steering gear: test before departure",
-    calendarRule: "FREQ=WEEKLY;BYDAY=MO",
+    portEvent: { event: "departure", withinHours: 12 },
     manHours: 0.5,
     rank: "second-engineer",
     critical: true,

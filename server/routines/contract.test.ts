@@ -54,7 +54,7 @@ describe("RoutineInput", () => {
 
   it("refuses a routine without any interval, naming intervalHours", () => {
     expect(issuesOf(base)).toEqual([
-      { field: "intervalHours", message: expect.stringMatching(/interval in running hours, a calendar rule, or both/) },
+      { field: "intervalHours", message: expect.stringMatching(/interval in running hours, a calendar rule, both .* or tie it to every port stay/) },
     ]);
   });
 
@@ -119,6 +119,61 @@ describe("RoutineInput", () => {
       [field]: value,
     };
     expect(fieldsOf(input)[0]).toMatch(new RegExp(`^${field}`));
+  });
+});
+
+describe("a routine's team", () => {
+  const team = [
+    { rank: "second-engineer", count: 1 },
+    { rank: "motorman", count: 2 },
+  ];
+  it("derives the lead rank and the man-hours from the team and its elapsed time", () => {
+    expect(RoutineInput.parse({ ...hoursRoutine, rank: undefined, team, elapsedHours: "12" })).toMatchObject({
+      rank: "second-engineer",
+      team,
+      elapsedHours: 12,
+      estimatedManHours: 36,
+    });
+  });
+
+  it("keeps an older client's rank and man-hours as one person of that rank", () => {
+    expect(RoutineInput.parse({ ...hoursRoutine, estimatedManHours: 6 })).toMatchObject({
+      rank: "third-engineer",
+      team: [{ rank: "third-engineer", count: 1 }],
+      elapsedHours: 6,
+      estimatedManHours: 6,
+    });
+  });
+
+  it.each([
+    ["a rank twice", { team: [...team, { rank: "motorman", count: 1 }], elapsedHours: 2 }, "team.2.rank"],
+    ["no one", { team: [], elapsedHours: 2 }, "team"],
+    ["half a person", { team: [{ rank: "motorman", count: 1.5 }], elapsedHours: 2 }, "team.0.count"],
+    ["eleven of a rank", { team: [{ rank: "motorman", count: 11 }], elapsedHours: 2 }, "team.0.count"],
+    ["a team without its elapsed time", { team }, "elapsedHours"],
+    ["more man-hours than one job takes", { team: [{ rank: "motorman", count: 10 }, { rank: "oiler", count: 10 }], elapsedHours: 500 }, "elapsedHours"],
+    ["an elapsed time of 0", { team, elapsedHours: 0 }, "elapsedHours"],
+  ])("refuses %s, naming the field", (_what, extra, field) => {
+    expect(fieldsOf({ ...hoursRoutine, rank: undefined, ...extra })).toEqual([field]);
+  });
+});
+
+describe("a routine tied to every port stay", () => {
+  // SOLAS chapter V, regulation 26 (memory): the steering gear tested within 12 h before departure.
+  const steering = { ...base, portEvent: "departure", portEventHours: 12 };
+  it("needs no interval and no baseline", () => {
+    expect(RoutineInput.parse(steering)).toMatchObject({ portEvent: "departure", portEventHours: 12, intervalHours: null, calendarRule: null });
+  });
+
+  it("refuses an interval beside it, and a missing number of hours", () => {
+    expect(fieldsOf({ ...steering, calendarRule: "FREQ=WEEKLY" })).toEqual(["calendar"]);
+    expect(fieldsOf({ ...steering, intervalHours: 100 })).toEqual(["intervalHours"]);
+    expect(fieldsOf({ ...steering, portEventHours: null })).toEqual(["portEventHours"]);
+    expect(fieldsOf({ ...steering, portEventHours: 73 })).toEqual(["portEventHours"]);
+  });
+
+  it("is worded as the list shows it", () => {
+    expect(intervalWords(null, null, { event: "departure", withinHours: 12 })).toBe("within 12 h before each departure");
   });
 });
 

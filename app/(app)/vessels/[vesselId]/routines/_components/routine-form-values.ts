@@ -17,8 +17,12 @@ export type RoutineFormValues = {
   calendarRule: string;
   anchored: boolean;
   anchorDate: string;
-  estimatedManHours: string;
-  rank: Rank;
+  team: { rank: Rank; count: string }[];
+  elapsedHours: string;
+  /** "" for a routine by running hours or calendar. */
+  portEvent: "" | "departure" | "arrival";
+  portEventHours: string;
+  needsPort: boolean;
   needsEngineStop: boolean;
   critical: boolean;
   classRelated: boolean;
@@ -50,8 +54,11 @@ export function valuesOf(routine: RoutineView | null, today: string): RoutineFor
     calendarRule: mode === "rrule" ? (routine?.calendarRule ?? "") : "",
     anchored: routine?.anchored ?? false,
     anchorDate: routine?.anchorDate ?? "",
-    estimatedManHours: text(routine?.estimatedManHours ?? 1),
-    rank: routine?.rank ?? "second-engineer",
+    team: (routine?.team ?? [{ rank: "second-engineer" as Rank, count: 1 }]).map((t) => ({ rank: t.rank, count: String(t.count) })),
+    elapsedHours: text(routine?.elapsedHours ?? 1),
+    portEvent: routine?.portEvent ?? "",
+    portEventHours: text(routine?.portEventHours ?? 12),
+    needsPort: routine?.needsPort ?? false,
     needsEngineStop: routine?.needsEngineStop ?? false,
     critical: routine?.critical ?? false,
     classRelated: routine?.classRelated ?? false,
@@ -77,25 +84,30 @@ function limit(value: string): number | null {
 }
 
 export function inputOf(v: RoutineFormValues): RoutineInput {
+  // Tied to every port stay: no interval, calendar or baseline of its own.
+  const tied = v.portEvent !== "";
   return {
     componentId: v.componentId,
     title: v.title,
     description: v.description,
     checklist: v.checklist.map((s) => s.text.trim()).filter(Boolean),
-    intervalHours: v.intervalHours.trim() || null,
+    intervalHours: tied ? null : v.intervalHours.trim() || null,
     calendar:
-      v.calendarMode === "form"
+      !tied && v.calendarMode === "form"
         ? {
             every: Number(v.calendar.every),
             unit: v.calendar.unit,
             ...(v.calendar.unit === "week" && v.calendar.weekdays.length ? { weekdays: v.calendar.weekdays } : {}),
           }
         : null,
-    calendarRule: v.calendarMode === "rrule" ? v.calendarRule : null,
-    anchored: v.calendarMode !== "none" && v.anchored,
+    calendarRule: !tied && v.calendarMode === "rrule" ? v.calendarRule : null,
+    anchored: !tied && v.calendarMode !== "none" && v.anchored,
     anchorDate: v.anchorDate || null,
-    estimatedManHours: v.estimatedManHours,
-    rank: v.rank,
+    team: v.team.map((t) => ({ rank: t.rank, count: Number(t.count) })),
+    elapsedHours: v.elapsedHours,
+    portEvent: tied ? (v.portEvent as "departure" | "arrival") : null,
+    portEventHours: tied ? v.portEventHours : null,
+    needsPort: v.needsPort,
     needsEngineStop: v.needsEngineStop,
     critical: v.critical,
     classRelated: v.classRelated,
@@ -105,8 +117,8 @@ export function inputOf(v: RoutineFormValues): RoutineInput {
       .map((m) => ({ name: m.name, unit: m.unit, lower: limit(m.lower), upper: limit(m.upper) })),
     spareParts: v.spareParts,
     cautions: v.cautions,
-    baselineAt: v.baselineAt || null,
-    baselineHours: v.baselineHours.trim() || null,
+    baselineAt: tied ? null : v.baselineAt || null,
+    baselineHours: tied ? null : v.baselineHours.trim() || null,
     toleranceRuleId: v.toleranceRuleId || null,
   };
 }

@@ -1,18 +1,18 @@
 "use client";
 
-import { type Path, useForm } from "react-hook-form";
+import { type Path, useForm, useWatch } from "react-hook-form";
 import { ProblemError } from "@/app/_components/fetch-json";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
 import { rowFields, useSendForm } from "@/app/_components/forms/use-send-form";
-import { RANK_LABEL } from "@/app/_components/rank-words";
 import { fieldErrorsFromZod } from "@/server/http/problem";
-import { CAUTIONS, RANKS, RoutineInput, type RoutineList, type RoutineView } from "@/server/routines/contract";
+import { CAUTIONS, RoutineInput, type RoutineList, type RoutineView } from "@/server/routines/contract";
 import { ChecklistEditor } from "./checklist-editor";
 import { IntervalFields } from "./interval-fields";
 import { MeasurementsEditor } from "./measurements-editor";
 import { inputOf, type RoutineFormValues, valuesOf } from "./routine-form-values";
 import { CAUTION_WORDS, CAUTIONS_PREVAIL } from "./routine-words";
+import { TeamEditor } from "./team-editor";
 import { useAddRoutine, useChangeRoutine } from "./use-routines";
 
 const FIXED_FIELDS = [
@@ -26,8 +26,10 @@ const FIXED_FIELDS = [
   "calendar.weekdays",
   "anchored",
   "anchorDate",
-  "estimatedManHours",
-  "rank",
+  "team",
+  "elapsedHours",
+  "portEvent",
+  "portEventHours",
   "classItemRef",
   "spareParts",
   "cautions",
@@ -50,12 +52,14 @@ export function RoutineForm({ list, routine, onDone, onCancel }: Props) {
     defaultValues: valuesOf(routine, new Date().toISOString().slice(0, 10)),
   });
   const { register, control, formState } = form;
+  const portEvent = useWatch({ control, name: "portEvent" });
   const { errors, isSubmitting } = formState;
 
   const { onSubmit, problem } = useSendForm(form, {
     fields: (values) => [
       ...FIXED_FIELDS,
       ...rowFields("measurements", values.measurements.length, ["name", "unit", "lower", "upper"]),
+      ...rowFields("team", values.team.length, ["rank", "count"]),
     ],
     send: async (values) => {
       const input = inputOf(values);
@@ -114,33 +118,46 @@ export function RoutineForm({ list, routine, onDone, onCancel }: Props) {
         />
       </Field>
 
-      <IntervalFields control={control} register={register} errors={errors} toleranceRules={list.toleranceRules} />
-
-      <div className="grid grid-cols-2 gap-3">
-        <Field id="routine-rank" label="Done by" error={errors.rank?.message}>
-          <select className="field" {...describedBy("routine-rank", errors.rank?.message)} {...register("rank")}>
-            {RANKS.map((r) => (
-              <option key={r} value={r}>
-                {RANK_LABEL[r]}
-              </option>
-            ))}
-          </select>
-        </Field>
-        <Field id="routine-man-hours" label="Estimated man-hours" error={errors.estimatedManHours?.message}>
+      <Field
+        id="routine-port-event"
+        label="Falls due"
+        hint="A statutory test before departure (the steering gear: SOLAS V/26) is tied to every stay, not to a weekly rule."
+        error={errors.portEvent?.message}
+      >
+        <select
+          className="field"
+          {...describedBy("routine-port-event", errors.portEvent?.message, true)}
+          {...register("portEvent")}
+        >
+          <option value="">By running hours or the calendar</option>
+          <option value="departure">Before each departure from a port stay</option>
+          <option value="arrival">After each arrival at a port stay</option>
+        </select>
+      </Field>
+      {portEvent ? (
+        <Field id="routine-port-event-hours" label="Within hours of it" error={errors.portEventHours?.message}>
           <input
-            className="field"
+            className="field w-32"
             inputMode="decimal"
-            {...describedBy("routine-man-hours", errors.estimatedManHours?.message)}
-            {...register("estimatedManHours")}
+            {...describedBy("routine-port-event-hours", errors.portEventHours?.message)}
+            {...register("portEventHours")}
           />
         </Field>
-      </div>
+      ) : (
+        <IntervalFields control={control} register={register} errors={errors} toleranceRules={list.toleranceRules} />
+      )}
+
+      <TeamEditor control={control} register={register} errors={errors} />
 
       <fieldset className="grid gap-1.5">
         <legend className="label">Marks</legend>
         <label className="flex items-center gap-2">
           <input type="checkbox" className="accent-brass-600" {...register("needsEngineStop")} />
           Needs the engine stopped (planned into a port stay)
+        </label>
+        <label className="flex items-center gap-2">
+          <input type="checkbox" className="accent-brass-600" {...register("needsPort")} />
+          Needs the ship in port (shore crane, service engineer, surveyor, parts delivered in port)
         </label>
         <label className="flex items-center gap-2">
           <input type="checkbox" className="accent-brass-600" {...register("critical")} />

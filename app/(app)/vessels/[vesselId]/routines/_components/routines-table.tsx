@@ -1,7 +1,7 @@
 "use client";
 
 import type { RoutineList } from "@/server/routines/contract";
-import { rankLabel } from "@/app/_components/rank-words";
+import { teamLabel } from "@/app/_components/rank-words";
 import type { Sheet } from "./routines-view";
 
 type Props = { list: RoutineList; onAction: (sheet: Sheet) => void };
@@ -32,7 +32,7 @@ export function RoutinesTable({ list, onAction }: Props) {
               Interval
             </th>
             <th scope="col" className="px-3 py-2">
-              Rank
+              Team
             </th>
             <th scope="col" className="px-3 py-2 text-right">
               Man-hours
@@ -63,7 +63,7 @@ export function RoutinesTable({ list, onAction }: Props) {
                   </span>
                 )}
               </td>
-              <td className="px-3 py-1.5 whitespace-nowrap">{rankLabel(r.rank)}</td>
+              <td className="px-3 py-1.5">{teamLabel(r.team)}</td>
               <td className="px-3 py-1.5 text-right tabular-nums">{r.estimatedManHours}</td>
               <td className="px-3 py-1.5">
                 <span className="flex flex-wrap gap-1 text-xs">

@@ -1,4 +1,5 @@
 import { StateBadge } from "@/app/_components/state-badge";
+import { teamLabel } from "@/app/_components/rank-words";
 import type { WorkOrderDetail } from "@/server/completions/contract";
 import { formatHours, formatShipDate } from "@/server/format/hours";
 
@@ -49,7 +50,9 @@ export function WorkOrderSummary({ detail }: Props) {
         </Fact>
         <Fact label="Remaining">{w.state === "done" ? "done" : remaining.length ? remaining.join(" · ") : "—"}</Fact>
         <Fact label="Planned effort">
+          {w.team.length ? `${teamLabel(w.team)} · ${formatHours(w.elapsedHours)} · ` : ""}
           {w.estimatedManHours} man-hours{w.needsEngineStop ? " · engine stopped" : ""}
+          {w.needsPort ? " · in port" : ""}
         </Fact>
       </dl>
       {(w.critical || w.classRelated) && (
