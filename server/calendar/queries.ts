@@ -44,7 +44,7 @@ export async function loadCalendar(access: Access, vessel: VesselRef, q: Calenda
 
   const rows = await db
     .select({
-      // Only what the answer is made of: a whole row is some forty columns and six instants to parse.
+      // Only what the answer is made of: a whole row is 37 columns, 11 of them instants to parse.
       w: workOrderColumns(READ_FIELDS),
       componentCode: component.code,
       componentName: component.name,
@@ -112,7 +112,7 @@ export async function loadCalendar(access: Access, vessel: VesselRef, q: Calenda
   const noCounter = projectionWords({ hoursPerDay: null, rateBasis: null, lastReadAt: null, lastTotalHours: null }, timeZone);
 
   // Due instants are the ends of ship's days, shared by many rows: each distinct one asks Intl once
-  // (shipDateOf remembers them), where asking per row was a fifth of the handler's time.
+  // (shipDateOf remembers them) instead of once per row.
   const day = (d: Date | null) => (d ? shipDateKey(shipDateOf(d, timeZone)) : null);
   const workOrders: CalendarWorkOrder[] = rows.map(({ w, componentCode, componentName, pendingDeferral }) => {
     const dueDay = day(w.deferredDueDate ?? w.dueDate);

@@ -56,7 +56,7 @@ export async function loadFleetOverdue(access: Access, f: FleetOverdueFilter, no
   const limit = sql`coalesce(${workOrder.deferredDueDate}, ${workOrder.dueDate})`;
   const rows = await db
     .select({
-      // Only what the answer is made of: a whole row is some forty columns and six instants to parse.
+      // Only what the answer is made of: a whole row is 37 columns, 11 of them instants to parse.
       w: workOrderColumns(READ_FIELDS),
       limitAt: sql<Date | null>`${limit}`.mapWith((v) => (v ? new Date(v) : null)),
       vesselName: vessel.name,
