@@ -6,9 +6,9 @@ import { getReadDb } from "@/db/client";
 import { component, overdueOrder, vessel, workOrder } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
 import { type CsvColumn, csvResponse, toCsv } from "@/server/export/csv";
-import { shipDay } from "@/server/format/hours";
+import { shipDateKey, shipDateOf } from "@/server/scheduling/ship-date";
 import { AWAITING_APPROVAL, PENDING_DEFERRAL } from "@/server/work-orders/flags";
-import { workOrderView } from "@/server/work-orders/view";
+import { workOrderColumns, workOrderView } from "@/server/work-orders/view";
 import {
   type FleetOverdue,
   type FleetOverdueFilter,
@@ -21,6 +21,16 @@ import {
 export const OVERDUE_LIMIT = 2000;
 
 const DAY_MS = 86_400_000;
+
+/** The columns the list shows, and those its limits and dates are computed from. */
+const READ_FIELDS = [
+  ...OVERDUE_FIELDS,
+  "vesselId",
+  "stateChangedAt",
+  "dueHours",
+  "deferredDueHours",
+  "remainingHours",
+] as const;
 
 export async function loadFleetOverdue(access: Access, f: FleetOverdueFilter, now = new Date()): Promise<FleetOverdue> {
   // The worker's states: a replica a moment behind serves the list as well (KEELSON_READ_DATABASE_URL).
@@ -46,7 +56,8 @@ export async function loadFleetOverdue(access: Access, f: FleetOverdueFilter, no
   const limit = sql`coalesce(${workOrder.deferredDueDate}, ${workOrder.dueDate})`;
   const rows = await db
     .select({
-      w: workOrder,
+      // Only what the answer is made of: a whole row is 37 columns, 11 of them instants to parse.
+      w: workOrderColumns(READ_FIELDS),
       limitAt: sql<Date | null>`${limit}`.mapWith((v) => (v ? new Date(v) : null)),
       vesselName: vessel.name,
       vesselCode: vessel.code,
@@ -72,19 +83,20 @@ export async function loadFleetOverdue(access: Access, f: FleetOverdueFilter, no
   const items: FleetOverdueItem[] = rows.slice(0, OVERDUE_LIMIT).map((r) => {
     const { w } = r;
     const dueHours = w.deferredDueHours ?? w.dueHours;
-    return {
-      ...workOrderView(w, OVERDUE_FIELDS),
+    // Object.assign, not a spread: spreading the view into a literal cost ~18 µs a row in V8.
+    return Object.assign(workOrderView(w, OVERDUE_FIELDS), {
       vessel: { id: w.vesselId, name: r.vesselName, code: r.vesselCode },
       component: { code: r.componentCode, name: r.componentName },
       state: w.state as FleetOverdueItem["state"],
       since: w.stateChangedAt.toISOString(),
-      dueDay: r.limitAt ? shipDay(r.limitAt, r.timeZone) : null,
+      // Limits are the ends of ship's days, shared by many rows: shipDateOf asks Intl once for each.
+      dueDay: r.limitAt ? shipDateKey(shipDateOf(r.limitAt, r.timeZone)) : null,
       dueHours,
       daysOverdue: r.limitAt ? Math.max(0, Math.floor((now.getTime() - r.limitAt.getTime()) / DAY_MS)) : null,
       hoursOverdue: w.remainingHours !== null && w.remainingHours < 0 ? Math.round(-w.remainingHours * 10) / 10 : null,
       pendingDeferral: r.pendingDeferral,
       awaitingApproval: r.awaitingApproval,
-    };
+    });
   });
   return { generatedAt: now.toISOString(), vessels, items, truncated: rows.length > OVERDUE_LIMIT };
 }

@@ -47,6 +47,12 @@ describe("problemResponse when the database cannot be reached", () => {
     ["the server refuses connections", Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:5432"), { code: "ECONNREFUSED" })],
     ["the server is shutting down (57P01)", drizzleError({ code: "57P01", message: "terminating connection due to administrator command" })],
     ["a pooled connection ended", drizzleError(new Error("Connection terminated unexpectedly"))],
+    [
+      "the rollback after the connection died inside a transaction",
+      Object.assign(new Error("Failed query: rollback\nparams: "), {
+        cause: new Error("Client has encountered a connection error and is not queryable"),
+      }),
+    ],
   ])("is a 503 to retry, not a 500: %s", async (_label, error) => {
     const response = problemResponse(error);
     expect(response.status).toBe(503);

@@ -130,6 +130,11 @@ export function uniqueViolationProblem(error: unknown): AppError | null {
 
 /** Node's socket errors and PostgreSQL's connection and shutdown classes (08, 57P, 53300). */
 const UNREACHABLE = /^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|EPIPE|08\w{3}|57P0[1-3]|53300)$/;
+/**
+ * pg's words when a connection is gone without a code. The last one is the rollback a transaction
+ * tries after its connection died mid-way (found by the outage test: the request got a 500).
+ */
+const CONNECTION_GONE = /Connection terminated|connect ECONNREFUSED|terminating connection|not queryable/;
 
 /**
  * The database cannot be reached (stopped, restarting, out of connections): a 503 the client may
@@ -139,7 +144,7 @@ export function databaseUnavailableProblem(error: unknown): AppError | null {
   for (let e = error, depth = 0; e && typeof e === "object" && depth < 4; e = (e as { cause?: unknown }).cause, depth++) {
     const code = "code" in e ? String(e.code) : "";
     const message = e instanceof Error ? e.message : "";
-    if (UNREACHABLE.test(code) || /Connection terminated|connect ECONNREFUSED|terminating connection/.test(message)) {
+    if (UNREACHABLE.test(code) || CONNECTION_GONE.test(message)) {
       return new AppError("unavailable", "The database cannot be reached just now. Try again in a moment; if you were saving, check afterwards that it was saved.");
     }
   }

@@ -2,8 +2,10 @@
 // it holds only this company's late and out-of-tolerance work in the stated order, its filters,
 // bad filters refused by name, and the CSV carrying the same rows.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { eq } from "drizzle-orm";
 import * as s from "@/db/schema";
 import type { FleetOverdue } from "@/server/fleet/overdue-contract";
+import { instantOfShipTime, shipDay } from "@/server/format/hours";
 import type { Problem } from "@/server/http/problem";
 import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
 import { api, type Session, signIn } from "../support/http";
@@ -106,6 +108,47 @@ describe("GET /api/fleet/overdue", () => {
     // Another company's vessel id finds nothing here.
     const foreign = await api<FleetOverdue>(as.superintendent, "GET", `${LIST}?vesselId=${other.vesselA.id}`);
     expect(foreign.body.items).toEqual([]);
+  });
+
+  it("gives each limit's ship's day in its vessel's zone, and marks asked deferrals and completions awaiting approval", async () => {
+    const db = testDb();
+    const rows = await db.select().from(s.workOrder).where(eq(s.workOrder.companyId, f.companyId));
+    const byNumber = (n: string) => rows.find((r) => r.number === n)!;
+    // Vessel A keeps Asia/Singapore time (UTC+8): 00:10 on its day is 16:10 UTC the day before.
+    const singapore = shipDay(new Date(Date.now() - 3 * DAY), "Asia/Singapore");
+    const a1 = byNumber("WO-A-1");
+    await db
+      .update(s.workOrder)
+      .set({ dueDate: instantOfShipTime(singapore, "00:10", "Asia/Singapore") })
+      .where(eq(s.workOrder.id, a1.id));
+    const b2 = byNumber("WO-B-2");
+    await db.insert(s.deferral).values({
+      companyId: f.companyId,
+      vesselId: b2.vesselId,
+      workOrderId: b2.id,
+      reason: "Spares on order",
+      proposedDueHours: 500,
+      needsOffice: true,
+    });
+    await db.insert(s.completion).values({
+      companyId: f.companyId,
+      vesselId: a1.vesselId,
+      workOrderId: a1.id,
+      doneAt: new Date(),
+      manHours: 2,
+      status: "awaiting-approval",
+    });
+    const res = await api<FleetOverdue>(as.superintendent, "GET", LIST);
+    const item = (n: string) => res.body.items.find((i) => i.number === n)!;
+    expect(item("WO-A-1")).toMatchObject({ dueDay: singapore, pendingDeferral: false, awaitingApproval: true });
+    // Vessel B keeps UTC.
+    expect(item("WO-B-2")).toMatchObject({
+      dueDay: b2.dueDate!.toISOString().slice(0, 10),
+      pendingDeferral: true,
+      awaitingApproval: false,
+    });
+    expect(item("WO-A-3")).toMatchObject({ pendingDeferral: false, awaitingApproval: false });
+    expect(numbers(res.body)).toEqual(["WO-B-1", "WO-A-2", "WO-A-3", "WO-B-2", "WO-A-1"]);
   });
 
   it("refuses a filter it does not know, naming it", async () => {
