@@ -83,7 +83,7 @@ describe("the chief engineer plans a port stay on its timeline", () => {
       }
     }
     expect(moved.number).not.toBe("");
-    expect(await page.locator("[aria-live=polite]").textContent()).toMatch(/fits\.$/);
+    expect(await page.locator("[data-draft-status]").textContent()).toMatch(/fits\.$/);
     await screenshot(page, "port-stay-moved");
   });
 
@@ -103,7 +103,8 @@ describe("the chief engineer plans a port stay on its timeline", () => {
   it("prints the package sheet with times, people and cautions", async () => {
     await page.goto(`${stayUrl}/sheet`);
     await page.getByRole("heading", { name: /^Work package: Port Kelang/ }).waitFor();
-    expect(await page.getByText(moved.number, { exact: true }).count()).toBe(1);
+    // A job over two days is on both.
+    expect(await page.getByText(moved.number, { exact: true }).count()).toBeGreaterThan(0);
     expect(await page.getByText(/permit to work/).count()).toBeGreaterThan(0);
     await screenshot(page, "port-stay-sheet");
   });
