@@ -17,10 +17,12 @@ function RowError({ id, message }: { id: string; message: string | undefined }) 
   ) : null;
 }
 
-function RankSelect({ form, name, id, label, error }: { form: Form; name: `crew.${number}.rank` | `watches.${number}.rank`; id: string; label: string; error?: string }) {
+const SMALL_LABEL = "text-xs text-ink-600 dark:text-ink-300";
+
+function RankSelect({ form, name, id, label, error, visible = false }: { form: Form; name: `crew.${number}.rank` | `watches.${number}.rank`; id: string; label: string; error?: string; visible?: boolean }) {
   return (
-    <div>
-      <label htmlFor={id} className="sr-only">
+    <div className="min-w-0">
+      <label htmlFor={id} className={visible ? SMALL_LABEL : "sr-only"}>
         {label}
       </label>
       <select className="field" {...describedBy(id, error)} {...form.register(name)}>
@@ -93,26 +95,26 @@ export function WatchRows({ form }: { form: Form }) {
         const e = errors?.[i];
         const id = (k: string) => `watches-${i}-${k}`;
         return (
-          <div key={row.id} className="grid gap-2 rounded-md border border-ink-200 p-2 sm:grid-cols-[1fr_5rem_1fr] dark:border-ink-800">
-            <RankSelect form={form} name={`watches.${i}.rank`} id={id("rank")} label={`Watch ${i + 1}: rank`} error={e?.rank?.message} />
+          <div key={row.id} className="grid gap-2 rounded-md border border-ink-200 p-2 sm:grid-cols-[minmax(0,1fr)_6rem_minmax(0,1fr)] dark:border-ink-800">
+            <RankSelect form={form} name={`watches.${i}.rank`} id={id("rank")} label={`Watch ${i + 1}: rank`} error={e?.rank?.message} visible />
             <div>
-              <label htmlFor={id("person")} className="sr-only">
-                Watch {i + 1}: which person of the rank
+              <label htmlFor={id("person")} className={SMALL_LABEL}>
+                Watch {i + 1}: person no.
               </label>
               <input type="number" min={1} step={1} className="field" title="Which one of the rank: 1, 2…" {...describedBy(id("person"), e?.person?.message)} {...register(`watches.${i}.person`, { valueAsNumber: true })} />
               <RowError id={id("person")} message={e?.person?.message} />
             </div>
             <div>
-              <label htmlFor={id("label")} className="sr-only">
+              <label htmlFor={id("label")} className={SMALL_LABEL}>
                 Watch {i + 1}: what (cargo, bunkering…)
               </label>
               <input className="field" placeholder="cargo, bunkering…" {...describedBy(id("label"), e?.label?.message)} {...register(`watches.${i}.label`)} />
               <RowError id={id("label")} message={e?.label?.message} />
             </div>
-            <div className="sm:col-span-3 grid grid-cols-[1fr_1fr_auto] items-start gap-2">
+            <div className="grid grid-cols-[minmax(0,1fr)_minmax(0,1fr)_auto] items-start gap-2 sm:col-span-3">
               {(["from", "to"] as const).map((k) => (
                 <div key={k}>
-                  <label htmlFor={id(k)} className="text-xs text-ink-600 dark:text-ink-300">
+                  <label htmlFor={id(k)} className={SMALL_LABEL}>
                     Watch {i + 1} {k}
                   </label>
                   <input type="datetime-local" className="field" {...describedBy(id(k), e?.[k]?.message)} {...register(`watches.${i}.${k}`)} />

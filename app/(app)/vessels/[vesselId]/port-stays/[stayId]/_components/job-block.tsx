@@ -26,6 +26,9 @@ export function jobWords(job: PlacedView): string {
   return `${job.number} ${job.title}, ${shipClockLabel(job.startLocal)} for ${job.elapsedHours} h, ${people}${job.needsEngineStop ? ", engine stopped" : ""}`;
 }
 
+/** A narrow block shows the number's last part ("00104"); the whole is in its title and name. */
+const shown = (number: string, width: number) => (width < 96 ? (number.split("-").pop() ?? number) : number);
+
 export function JobBlock({ job, colour, places, problem, wanted, onKey }: Props) {
   const words = jobWords(job);
   const [first, ...rest] = places;
@@ -56,16 +59,16 @@ export function JobBlock({ job, colour, places, problem, wanted, onKey }: Props)
           {...facts}
         >
           {problem && <span aria-hidden="true">⚠ </span>}
-          {job.number}
+          {shown(job.number, first.width)}
         </button>
       ) : (
         <div role="img" className={shared} style={style(first)} title={words} aria-label={words} {...facts}>
-          {job.number}
+          {shown(job.number, first.width)}
         </div>
       )}
       {rest.map((p, i) => (
         <div key={i} aria-hidden="true" className={shared} style={style(p)} title={words}>
-          {job.number}
+          {shown(job.number, p.width)}
         </div>
       ))}
     </>

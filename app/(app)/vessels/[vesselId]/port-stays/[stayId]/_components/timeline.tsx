@@ -32,7 +32,7 @@ export function Timeline({ stay, timeZone, jobs, slotMinutes = 30, onMove, label
   return (
     <figure className="grid gap-2" aria-label={label}>
       <div className="flex overflow-hidden rounded-md border border-ink-200 dark:border-ink-800">
-        <ul className="w-40 shrink-0 border-r border-ink-200 bg-ink-50 text-sm dark:border-ink-800 dark:bg-ink-900" aria-label="People">
+        <ul className="w-48 shrink-0 border-r border-ink-200 bg-ink-50 text-sm dark:border-ink-800 dark:bg-ink-900" aria-label="People">
           <li style={{ height: HEAD_PX }} className="px-2 pt-2 text-xs text-ink-600 dark:text-ink-300">
             Ship’s time
           </li>
