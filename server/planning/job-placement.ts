@@ -28,7 +28,10 @@ const HOUR_MS = 3_600_000;
 const intersect = (a: [number, number], b: [number, number]): [number, number] => [Math.max(a[0], b[0]), Math.min(a[1], b[1])];
 
 export function boundsOf(job: PlanJob, grid: StayGrid, stay: PlanStay): JobBounds {
-  const days = dayRange(grid, job.planFrom, job.planUntil);
+  // Work already out of tolerance has no plannable days left by its window: it is due now, and any
+  // day of the stay is the soonest it can be done (never "do it before arrival" for what is overdue).
+  const overdue = job.state === "out-of-tolerance";
+  const days = overdue ? dayRange(grid, null, null) : dayRange(grid, job.planFrom, job.planUntil);
   let range = days;
   let engineStop: [number, number] | null = null;
   if (job.needsEngineStop) {

@@ -78,6 +78,15 @@ describe("a two-day overhaul by a team of three", () => {
   });
 });
 
+describe("work already out of tolerance", () => {
+  it("goes into the stay although its plannable days ended before it (it is due now)", () => {
+    const overdue = job("overdue", { state: "out-of-tolerance", needsEngineStop: true, planFrom: "2026-09-01", planUntil: "2026-09-26", elapsedHours: 4 });
+    const result = plan(stay(), [overdue]);
+    expect(result.placed).toMatchObject([{ number: "overdue", start: kl("2026-12-10T08:00"), end: kl("2026-12-10T12:00") }]);
+    expect(result.leftOut).toEqual([]);
+  });
+});
+
 describe("two engine-stop jobs in one slot", () => {
   it("overlap when the crew allows, both inside the stop", () => {
     const s = stay({ immobilisation: { from: kl("2026-12-10T08:00"), to: kl("2026-12-10T17:00") } });
