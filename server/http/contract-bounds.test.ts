@@ -50,6 +50,8 @@ const PAIRS: Pair[] = [
     lowest: [0, -1],
   },
   { column: s.routine.baselineHours, schema: RoutineInput, field: "baselineHours", max: 9_999_999.9, lowest: [0, -1] },
+  { column: s.routine.elapsedHours, schema: RoutineInput, field: "elapsedHours", max: 500, lowest: [0.1, 0] },
+  { column: s.routine.portEventHours, schema: RoutineInput, field: "portEventHours", max: 72, lowest: [0.1, 0] },
   {
     column: s.deferral.proposedDueHours,
     schema: DeferralRequestInput,
@@ -154,6 +156,8 @@ const EXEMPT: Record<string, string> = {
   "work_order.remainingHours": "computed by the due engine",
   "work_order.remainingDays": "computed by the due engine",
   "work_order.estimatedManHours": "copied from the routine's estimate (paired above)",
+  "work_order.elapsedHours": "copied from the routine's team (paired above)",
+  "work_order.portEventHours": "copied from the routine (paired above)",
 };
 
 const TABLES: PgTable[] = [

@@ -84,10 +84,10 @@ const FIELDS: DateField[] = [
   },
   {
     schema: PackageInput,
-    field: "items.0.date",
-    input: (d) => ({ items: [{ date: d }] }),
+    field: "items.0.start",
+    input: (d) => ({ items: [{ start: `${d}T08:00` }] }),
     kind: "planned",
-    words: "The job’s day in the stay",
+    words: "The job's start",
   },
   { schema: PortStayInput, field: "arrivesAt", input: stayTime("arrivesAt"), kind: "planned", words: "The arrival" },
   { schema: PortStayInput, field: "departsAt", input: stayTime("departsAt"), kind: "planned", words: "The departure" },

@@ -52,7 +52,7 @@ describe("the demo chief engineer keeps Corran Ness's routines", () => {
     vesselId = /\/vessels\/([0-9a-f-]+)\//.exec(page.url())![1]!;
 
     await rows().first().waitFor();
-    for (const header of ["Component", "Routine", "Interval", "Rank", "Man-hours", "Marks"]) {
+    for (const header of ["Component", "Routine", "Interval", "Team", "Man-hours", "Marks"]) {
       expect(await page.getByRole("columnheader", { name: header, exact: true }).count(), header).toBe(1);
     }
     const all = await rows().count();
@@ -99,7 +99,7 @@ describe("the demo chief engineer keeps Corran Ness's routines", () => {
     expect(await form.getByText("Nothing was saved: correct the marked field and save again.").count()).toBe(1);
     const message = form.locator("#routine-hours-error");
     expect(await message.textContent()).toBe(
-      "Give the routine an interval in running hours, a calendar rule, or both (whichever comes first).",
+      "Give the routine an interval in running hours, a calendar rule, both (whichever comes first), or tie it to every port stay.",
     );
     // The preview says the same in its own words.
     expect(await form.getByText("not yet: give running hours, a calendar rule, or both").count()).toBe(1);
@@ -122,8 +122,12 @@ describe("the demo chief engineer keeps Corran Ness's routines", () => {
     // The message about the missing interval goes once there is one.
     expect(await form.getByLabel("Running hours").getAttribute("aria-invalid")).toBeNull();
     await form.getByLabel("Baseline: at counter hours").fill(String(baseline));
-    await form.getByLabel("Estimated man-hours").fill("1.5");
-    await form.getByLabel("Done by").selectOption({ label: "Third engineer" });
+    // The team: a third engineer and a motorman for 1.5 h — the form says what that makes.
+    await form.getByLabel("Rank, row 1").selectOption({ label: "Third engineer" });
+    await form.getByRole("button", { name: "Add a rank" }).click();
+    await form.getByLabel("Rank, row 2").selectOption({ label: "Motorman" });
+    await form.getByLabel(/^Elapsed time/).fill("1.5");
+    await expect(form.getByTestId("routine-man-hours")).toHaveText("2 people × 1.5 h = 3 man-hours");
     await form.getByLabel("Isolation and lock-out before opening machinery").check();
     await screenshot(page, "routines-add-filled");
     await form.getByRole("button", { name: "Add routine" }).click();
@@ -176,7 +180,8 @@ describe("the demo chief engineer keeps Corran Ness's routines", () => {
     await expect.poll(() => form.getByLabel("Running hours").inputValue(), { timeout: 10_000 }).toBe("2000");
     expect(await form.getByLabel("Every", { exact: true }).inputValue()).toBe("3");
     expect(await form.getByLabel("Isolation and lock-out before opening machinery").isChecked()).toBe(true);
-    expect(await form.getByLabel("Done by").inputValue()).toBe("third-engineer");
+    expect(await form.getByLabel("Rank, row 1").inputValue()).toBe("third-engineer");
+    expect(await form.getByLabel("Rank, row 2").inputValue()).toBe("motorman");
 
     await form.getByLabel("Running hours").fill("1500");
     await form.getByRole("button", { name: "Save routine" }).click();

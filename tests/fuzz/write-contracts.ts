@@ -116,7 +116,11 @@ export const EXAMPLES: Record<string, (c: ExampleContext) => Example> = {
     body: {
       componentId: c.componentId,
       title: "Fuzz routine",
-      rank: "third-engineer",
+      team: [
+        { rank: "third-engineer", count: 1 },
+        { rank: "motorman", count: 2 },
+      ],
+      elapsedHours: 3,
       intervalHours: 2000,
       baselineAt: c.shipDay,
       baselineHours: 900,
