@@ -127,7 +127,7 @@ describe("the demo chief engineer keeps Corran Ness's routines", () => {
     await form.getByRole("button", { name: "Add a rank" }).click();
     await form.getByLabel("Rank, row 2").selectOption({ label: "Motorman" });
     await form.getByLabel(/^Elapsed time/).fill("1.5");
-    await expect(form.getByTestId("routine-man-hours")).toHaveText("2 people × 1.5 h = 3 man-hours");
+    await expect.poll(() => form.getByTestId("routine-man-hours").textContent()).toBe("2 people × 1.5 h = 3 man-hours");
     await form.getByLabel("Isolation and lock-out before opening machinery").check();
     await screenshot(page, "routines-add-filled");
     await form.getByRole("button", { name: "Add routine" }).click();
