@@ -29,7 +29,8 @@ const STAYS: Record<string, DemoStay[]> = {
       days: 2,
       arrive: "07:00",
       depart: "19:00",
-      engineStopHours: 24,
+      // The whole call: arrival to departure.
+      engineStopHours: 36,
       workday: ["07:00", "19:00"],
       remarks: "Discharge at the container terminal; main engine may be immobilised with the harbour master's consent.",
     },

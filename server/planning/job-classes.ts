@@ -14,11 +14,12 @@
 // earliest date, the work-order number, the id.
 //
 // The proposal's value is the priority-weighted work placed: Σ weight × man-hours over placed jobs
-// (a job of under half an hour counts as half an hour, so short tests are worth placing), with
-// weight 100 for out of tolerance and for event-tied work, 10 for going out of tolerance before the
-// next chance, 1 for falling due; doubled for critical or class-related work. The steps of 10 keep
-// the tiers apart in practice: ten man-hours of due work are worth one of work about to go out of
-// tolerance. Keelson's own definition, used by the heuristic and by the exact solver alike.
+// (a job of under half an hour counts as half an hour, so short tests are worth placing). The weight
+// follows the fill order: the group first — engine-stop work 100, other port-only work 10, sea work
+// 1, because port time and above all the engine stop are what the stay is for — times the urgency —
+// 8 out of tolerance or tied to the stay's event, 4 going out of tolerance before the next chance,
+// 1 falling due — doubled for critical or class-related work. Keelson's own definition, used by the
+// heuristic and by the exact solver alike.
 import { OPEN_STATES_BY_URGENCY, type OpenState } from "@/db/schema/work-order-states";
 import type { TeamNeed } from "./crew-ledger";
 
@@ -51,7 +52,8 @@ export type Classified = { job: PlanJob; group: Group; urgency: Urgency; weight:
 
 const GROUPS: readonly Group[] = ["engine-stop", "port-only", "sea"];
 const URGENCIES: readonly Urgency[] = ["out-of-tolerance", "event", "goes-out-of-tolerance", "falls-due"];
-const WEIGHT: Record<Urgency, number> = { "out-of-tolerance": 100, event: 100, "goes-out-of-tolerance": 10, "falls-due": 1 };
+const GROUP_WEIGHT: Record<Group, number> = { "engine-stop": 100, "port-only": 10, sea: 1 };
+const URGENCY_WEIGHT: Record<Urgency, number> = { "out-of-tolerance": 8, event: 8, "goes-out-of-tolerance": 4, "falls-due": 1 };
 const DAY_MS = 86_400_000;
 
 export const heads = (team: TeamNeed[]) => team.reduce((sum, t) => sum + t.count, 0);
@@ -81,8 +83,8 @@ export function urgencyOf(job: PlanJob, group: Group, chances: Chances): Urgency
   return null;
 }
 
-export function weightOf(job: PlanJob, urgency: Urgency): number {
-  return WEIGHT[urgency] * (job.critical || job.classRelated ? 2 : 1);
+export function weightOf(job: PlanJob, group: Group, urgency: Urgency): number {
+  return GROUP_WEIGHT[group] * URGENCY_WEIGHT[urgency] * (job.critical || job.classRelated ? 2 : 1);
 }
 
 /** What placing the job adds to the proposal's value. */
@@ -121,7 +123,7 @@ export function classify(jobs: PlanJob[], chances: Chances): Sorted {
     const urgency = urgencyOf(job, group, chances);
     if (urgency === null) continue;
     if (urgency === "at-sea") atSea.push(job);
-    else considered.push({ job, group, urgency, weight: weightOf(job, urgency), manHours: manHoursOf(job) });
+    else considered.push({ job, group, urgency, weight: weightOf(job, group, urgency), manHours: manHoursOf(job) });
   }
   considered.sort(byFillOrder);
   return { considered, atSea };

@@ -176,7 +176,8 @@ describe("the heuristic reaches the optimum on the hand-built cases", () => {
 it("takes the two 5 h jobs over the 6 h one that the fill order would take first", () => {
   const plan = planPortStay(HAND_CASES[1]!.input);
   expect(plan.placed.map((p) => p.workOrderId)).toEqual(["b", "c"]);
-  expect([plan.value, plan.order]).toEqual([100, "weight-short-first"]);
+  // Port-only (10) × going out of tolerance (4) × 5 h, twice.
+  expect([plan.value, plan.order]).toEqual([400, "weight-short-first"]);
 });
 
 const RANKS = ["second-engineer", "third-engineer", "motorman"] as const;

@@ -73,8 +73,8 @@ describe("a two-day overhaul by a team of three", () => {
     expect(placed?.reason).toContain("second engineer, motorman ×2 from 10 Dec 08:00 to 11 Dec 11:00");
     expect(placed?.reason).toContain("12 h of work over 2 days, 36 man-hours");
     expect(placed?.reason).toContain("inside the engine stop");
-    // Out of tolerance (100) × critical (2) × 36 man-hours.
-    expect(result.value).toBe(7200);
+    // Engine-stop work (100) × out of tolerance (8) × critical (2) × 36 man-hours.
+    expect(result.value).toBe(57_600);
   });
 });
 
@@ -233,13 +233,14 @@ describe("sea work", () => {
     expect(result.order).toBe("fill");
   });
 
-  it("displaces port work that is merely due when it would go out of tolerance (worth ten times more)", () => {
+  it("keeps port work that is merely due before sea work about to go out of tolerance: port time is what the stay is for", () => {
     const s = stay({ departsAt: kl("2026-12-10T11:00"), crew: [{ rank: "motorman", count: 1 }] });
     const port = job("port", { elapsedHours: 3 });
     const sea = job("sea", { needsPort: false, elapsedHours: 3, outOfToleranceAt: kl("2026-12-10T20:00") });
-    const result = plan(s, [port, sea]);
-    expect(result.placed.map((p) => p.number)).toEqual(["sea"]);
-    expect(result.leftOut).toMatchObject([{ number: "port", reason: "crew-taken" }]);
-    expect([result.value, result.possible]).toEqual([30, 33]);
+    const result = plan(s, [sea, port]);
+    expect(result.placed.map((p) => p.number)).toEqual(["port"]);
+    expect(result.leftOut).toMatchObject([{ number: "sea", reason: "crew-taken" }]);
+    // Port-only (10) × falls due (1) × 3 h, and sea (1) × going out of tolerance (4) × 3 h left out.
+    expect([result.value, result.possible]).toEqual([30, 42]);
   });
 });

@@ -123,9 +123,9 @@ describe("the demo chief engineer keeps Corran Ness's routines", () => {
     expect(await form.getByLabel("Running hours").getAttribute("aria-invalid")).toBeNull();
     await form.getByLabel("Baseline: at counter hours").fill(String(baseline));
     // The team: a third engineer and a motorman for 1.5 h — the form says what that makes.
-    await form.getByLabel("Rank, row 1").selectOption({ label: "Third engineer" });
+    await form.getByLabel("Rank, row 1", { exact: true }).selectOption({ label: "Third engineer" });
     await form.getByRole("button", { name: "Add a rank" }).click();
-    await form.getByLabel("Rank, row 2").selectOption({ label: "Motorman" });
+    await form.getByLabel("Rank, row 2", { exact: true }).selectOption({ label: "Motorman" });
     await form.getByLabel(/^Elapsed time/).fill("1.5");
     await expect.poll(() => form.getByTestId("routine-man-hours").textContent()).toBe("2 people × 1.5 h = 3 man-hours");
     await form.getByLabel("Isolation and lock-out before opening machinery").check();
@@ -180,8 +180,8 @@ describe("the demo chief engineer keeps Corran Ness's routines", () => {
     await expect.poll(() => form.getByLabel("Running hours").inputValue(), { timeout: 10_000 }).toBe("2000");
     expect(await form.getByLabel("Every", { exact: true }).inputValue()).toBe("3");
     expect(await form.getByLabel("Isolation and lock-out before opening machinery").isChecked()).toBe(true);
-    expect(await form.getByLabel("Rank, row 1").inputValue()).toBe("third-engineer");
-    expect(await form.getByLabel("Rank, row 2").inputValue()).toBe("motorman");
+    expect(await form.getByLabel("Rank, row 1", { exact: true }).inputValue()).toBe("third-engineer");
+    expect(await form.getByLabel("Rank, row 2", { exact: true }).inputValue()).toBe("motorman");
 
     await form.getByLabel("Running hours").fill("1500");
     await form.getByRole("button", { name: "Save routine" }).click();

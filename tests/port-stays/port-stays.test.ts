@@ -261,8 +261,10 @@ describe("the proposed work package", () => {
     expect(piston).toMatchObject({ urgency: "out-of-tolerance", group: "engine-stop", title: "Piston overhaul", componentCode: "ME", manHours: 30 });
     expect(piston.reason).toMatch(/inside the engine stop/);
     for (const item of [...proposal.items, ...proposal.leftOut]) expect(item.reason.length).toBeGreaterThan(5);
-    // Out of tolerance × critical × 30 man-hours, and the others by their weights: 6,000 + 8 + 6 + 12 + 10.
-    expect([proposal.value, proposal.possible]).toEqual([6036, 6040]);
+    // Weights (server/planning/job-classes.ts): WO-1 engine stop 100 × out of tolerance 8 × critical 2
+    // × 30 man-hours = 48,000; WO-8 100 × 1 × 8 = 800; WO-2 port 10 × 1 × 6 = 60; WO-6 10 × 1 × 12 =
+    // 120; WO-4 sea 1 × 4 × 1 = 4. Left out: WO-9 and WO-5, 10 × 1 × 2 = 20 each.
+    expect([proposal.value, proposal.possible]).toEqual([48_984, 49_024]);
     expect(proposal.nextStay).toBeNull();
     // Nothing is written by a proposal.
     expect(Object.values(await plannedDates()).every((d) => d === null)).toBe(true);

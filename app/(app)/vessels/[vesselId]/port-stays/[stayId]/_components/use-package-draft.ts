@@ -56,7 +56,12 @@ export function usePackageDraft(vesselId: string, stayId: string) {
     const entry = entries.find((e) => e.input.workOrderId === workOrderId);
     if (!entry) return;
     const startAt = shiftLocal(entry.input.start, minutes);
-    const next = entries.map((e) => (e === entry ? { ...e, input: { ...e.input, start: startAt } } : e));
+    // The moved job is fitted around the others: it goes last in the draft (the server checks in
+    // order) and the server picks whoever of its ranks is free then, so the jobs left where they
+    // were keep their people and a move fails only when nobody of the team is free.
+    const { people: _people, ...rest } = entry.input;
+    const moved = { ...entry, input: { ...rest, start: startAt } };
+    const next = [...entries.filter((e) => e !== entry), moved];
     void check(next, `${entry.job.number} to start ${startAt.replace("T", " ")}`);
   }
 
