@@ -2,17 +2,7 @@
 // machine's duty in it. Seeded, so a vessel always gets the same year of readings.
 import type { DemoCounter } from "./scenario";
 
-/** mulberry32: a small seeded generator, good enough for demo data. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4_294_967_296;
-  };
-}
+export { seededRandom } from "../../server/seeded-random";
 
 /** Fraction of each day spent at sea: passages of 4–13 days, port stays of 1–3 days. */
 export function voyagePattern(days: number, random: () => number): number[] {

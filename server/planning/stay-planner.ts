@@ -16,6 +16,7 @@
 // checks; tests compare the result with HiGHS's exact optimum (server/planning/optimum.test.ts).
 import { TZDate } from "@date-fns/tz";
 import { invalidInput } from "@/server/http/problem";
+import { seededRandom } from "@/server/seeded-random";
 import { buildCrewLedger, copyLedger, type CrewLedger, type PortWatch, type TeamNeed } from "./crew-ledger";
 import { classify, valueOf, type Classified, type Group, type PlanJob, type Urgency } from "./job-classes";
 import {
@@ -90,17 +91,6 @@ const MOVE_BUDGET = 100_000;
 /** Steps without a gain before the search starts again from a shaken best order. */
 const RESTART_AFTER = 150;
 
-/** mulberry32: a small seeded generator, so the search is the same on every run. */
-function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4_294_967_296;
-  };
-}
 const ORDERS: { name: StayPlan["order"]; sort: ((a: Classified, b: Classified) => number) | null }[] = [
   { name: "fill", sort: null },
   { name: "weight", sort: (a, b) => b.weight - a.weight },
