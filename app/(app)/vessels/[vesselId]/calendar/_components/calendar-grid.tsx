@@ -69,6 +69,9 @@ export function CalendarGrid({ data, today, canPlan, onRange, onOpen, onMove }: 
       viewHint="Show as $0"
       dayMaxEvents={4}
       moreLinkText={(n) => `${n} more`}
+      // FullCalendar draws "N more" as an <a> with aria-expanded but no role: a link cannot be
+      // expanded (axe, aria-allowed-attr). It opens a popover, so it is a button.
+      moreLinkDidMount={(arg) => arg.el.setAttribute("role", "button")}
       // The list's time column would say one word for every row; the row's own marks say whether
       // its day is the due day, a planned day or a projection.
       views={{ listMonth: { displayEventTime: false } }}
