@@ -1,24 +1,10 @@
-// The ranks in words, as every page shows them (routines, Backlog filters, port-stay crew).
-import type { Rank } from "@/server/routines/contract";
+// The ranks in words as Keelson writes them where no company's names apply (tests, the print of
+// a plain team). Pages inside the app take the company's words from `useRankWords()`.
+import { RANK_LABEL, rankWords } from "@/server/routines/rank-names";
 
-export const RANK_LABEL: Record<Rank, string> = {
-  "chief-engineer": "Chief engineer",
-  "second-engineer": "Second engineer",
-  "third-engineer": "Third engineer",
-  "fourth-engineer": "Fourth engineer",
-  "electro-technical-officer": "Electro-technical officer",
-  motorman: "Motorman",
-  oiler: "Oiler",
-};
+export { RANK_LABEL };
 
-export const rankLabel = (rank: string) => RANK_LABEL[rank as Rank] ?? rank;
-
+const plain = rankWords();
+export const rankLabel = plain.label;
 /** "Second engineer, motorman ×2": a team as pages write it. */
-export function teamLabel(team: readonly { rank: string; count: number }[]): string {
-  return team
-    .map(({ rank, count }, i) => {
-      const label = i === 0 ? rankLabel(rank) : rankLabel(rank).toLowerCase();
-      return count > 1 ? `${label} ×${count}` : label;
-    })
-    .join(", ");
-}
+export const teamLabel = plain.team;

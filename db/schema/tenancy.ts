@@ -1,6 +1,6 @@
 // The tenant (company), who belongs to it with which role, and its vessels.
 import { sql } from "drizzle-orm";
-import { boolean, check, index, integer, pgEnum, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 
 export const memberRole = pgEnum("member_role", ["admin", "superintendent", "chief-engineer", "engineer", "viewer"]);
@@ -16,6 +16,8 @@ export const company = pgTable("company", {
   /** Hours without a reading before the first missing-readings reminder, and between its steps. */
   missingReadingsHours: integer().notNull().default(36),
   missingReadingsStepHours: integer().notNull().default(24),
+  /** The company's own names for Keelson's ranks ("oiler" → "wiper"); a rank not named keeps Keelson's word. */
+  rankNames: jsonb().$type<Record<string, string>>().notNull().default({}),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
 

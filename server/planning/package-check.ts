@@ -8,6 +8,7 @@ import { TZDate } from "@date-fns/tz";
 import { format } from "date-fns";
 import { formatHours } from "@/server/format/hours";
 import { buildCrewLedger, keepsRest, type PortWatch, type TeamNeed } from "./crew-ledger";
+import type { RankNames } from "@/server/routines/rank-names";
 import type { PlanJob } from "./job-classes";
 import { boundsOf, commit, peopleByRank, segmentsOf, slotsFrom, teamFor, type PlanStay } from "./job-placement";
 import { buildStayGrid, slotsFor, type Workday } from "./stay-grid";
@@ -22,6 +23,7 @@ export function checkPackage(
   stay: CheckStay,
   items: PackageItem[],
   slotMinutes?: number,
+  rankNames?: RankNames,
 ): { placed: (CheckedItem | null)[]; problems: ItemProblem[] } {
   const grid = buildStayGrid(stay.arrivesAt, stay.departsAt, stay.timeZone, stay.workday, slotMinutes);
   const ledger = buildCrewLedger(grid, stay.crew, stay.watches);
@@ -76,7 +78,7 @@ export function checkPackage(
       for (const i of chosen) ranks.set(ledger.persons[i!]!.rank, (ranks.get(ledger.persons[i!]!.rank) ?? 0) + 1);
       const fits = job.team.length === ranks.size && job.team.every((t) => ranks.get(t.rank) === t.count);
       if (!fits || new Set(people).size !== people.length) {
-        return problem("people", `its team is ${teamWords(job.team)}; ${people.join(", ")} is not.`);
+        return problem("people", `its team is ${teamWords(job.team, rankNames)}; ${people.join(", ")} is not.`);
       }
       const ids = chosen as number[];
       const busy = ids.find((i) => slots.some((t) => ledger.work[i]![t] === 1));
@@ -86,7 +88,7 @@ export function checkPackage(
       team = ids;
     } else {
       team = teamFor(job, slots, ledger, byRank) ?? teamFor(job, slots, ledger, byRank, false);
-      if (!team) return problem("people", `not enough of its team (${teamWords(job.team)}) is free between ${clock(start.getTime())} and ${clock(end)}.`);
+      if (!team) return problem("people", `not enough of its team (${teamWords(job.team, rankNames)}) is free between ${clock(start.getTime())} and ${clock(end)}.`);
     }
     // Rest hours last, so that the message names the rule only when it is what bites.
     const tired = team.find((i) => !keepsRest(ledger, i, slots));

@@ -3,6 +3,7 @@
 import { TZDate } from "@date-fns/tz";
 import { format, parseISO } from "date-fns";
 import { formatHours, formatManHours } from "@/server/format/hours";
+import { lowerFirst, type RankNames } from "@/server/routines/rank-names";
 import type { Classified, PlanJob } from "./job-classes";
 import type { PlanStay } from "./job-placement";
 
@@ -27,10 +28,15 @@ export type PlanWordsContext = {
   stay: PlanStay;
   /** null when the horizon is the look-ahead, not a next port stay. */
   nextStay: Date | null;
+  /** The company's own names for its ranks. */
+  rankNames?: RankNames;
 };
 
 const DAY_MS = 86_400_000;
-const rankWords = (rank: string) => rank.replaceAll("-", " ");
+const rankWords = (rank: string, names?: RankNames) => {
+  const own = names?.[rank as keyof RankNames];
+  return own ? lowerFirst(own) : rank.replaceAll("-", " ");
+};
 
 function dayOf(instant: Date, ctx: PlanWordsContext): string {
   const local = new TZDate(instant, ctx.timeZone);
@@ -43,16 +49,18 @@ const shipDayWords = (day: string, ctx: PlanWordsContext) =>
   format(parseISO(day), Number(day.slice(0, 4)) === ctx.year ? "d MMM" : "d MMM yyyy");
 
 /** "second engineer, motorman ×2" from the people's keys ("rank#n") or a team. */
-export function teamWords(team: { rank: string; count: number }[]): string {
-  return team.map(({ rank, count }) => (count > 1 ? `${rankWords(rank)} ×${count}` : rankWords(rank))).join(", ");
+export function teamWords(team: { rank: string; count: number }[], names?: RankNames): string {
+  return team
+    .map(({ rank, count }) => (count > 1 ? `${rankWords(rank, names)} ×${count}` : rankWords(rank, names)))
+    .join(", ");
 }
-function teamOfPeople(people: string[]): string {
+function teamOfPeople(people: string[], names?: RankNames): string {
   const counts = new Map<string, number>();
   for (const key of people) {
     const rank = key.slice(0, key.lastIndexOf("#"));
     counts.set(rank, (counts.get(rank) ?? 0) + 1);
   }
-  return teamWords([...counts].map(([rank, count]) => ({ rank, count })));
+  return teamWords([...counts].map(([rank, count]) => ({ rank, count })), names);
 }
 
 function nextChance(c: Classified, ctx: PlanWordsContext): string {
@@ -109,7 +117,7 @@ export function placedWords(
     c.job.needsEngineStop && stop
       ? `, inside the engine stop (${clockOf(stop.from, ctx)} to ${clockOf(stop.to, ctx)})`
       : "";
-  return `${urgencyWords(c, ctx)}; ${teamOfPeople(people)} from ${clockOf(start, ctx)} to ${clockOf(end, ctx)} (${span}, ${formatManHours(c.manHours)})${inside}.`;
+  return `${urgencyWords(c, ctx)}; ${teamOfPeople(people, ctx.rankNames)} from ${clockOf(start, ctx)} to ${clockOf(end, ctx)} (${span}, ${formatManHours(c.manHours)})${inside}.`;
 }
 
 function problemWords(c: Classified, reason: LeftOutReason, ctx: PlanWordsContext): string {
@@ -117,7 +125,7 @@ function problemWords(c: Classified, reason: LeftOutReason, ctx: PlanWordsContex
   const takes = `it takes ${formatHours(job.elapsedHours)} of work`;
   switch (reason) {
     case "short-of-rank":
-      return `its team (${teamWords(job.team)}) is more than the crew on board for this stay`;
+      return `its team (${teamWords(job.team, ctx.rankNames)}) is more than the crew on board for this stay`;
     case "engine-stop-not-allowed":
       return "it needs the engine stopped, and the engine may not stop in this stay";
     case "window-not-open":
@@ -133,11 +141,11 @@ function problemWords(c: Classified, reason: LeftOutReason, ctx: PlanWordsContex
     case "longer-than-window":
       return `${takes}, more than the working hours on the days it may be planned`;
     case "watches":
-      return `its team (${teamWords(job.team)}) is on port watches whenever it could be done`;
+      return `its team (${teamWords(job.team, ctx.rankNames)}) is on port watches whenever it could be done`;
     case "rest-hours":
-      return `its team (${teamWords(job.team)}) would go under the rest-hour minimum (10 h in any 24 h, 77 h in any 7 days: MLC 2006 Standard A2.3)`;
+      return `its team (${teamWords(job.team, ctx.rankNames)}) would go under the rest-hour minimum (10 h in any 24 h, 77 h in any 7 days: MLC 2006 Standard A2.3)`;
     case "crew-taken":
-      return `its team (${teamWords(job.team)}) is busy with work ranked before it whenever it could be done`;
+      return `its team (${teamWords(job.team, ctx.rankNames)}) is busy with work ranked before it whenever it could be done`;
   }
 }
 

@@ -14,6 +14,7 @@
 // out) to earlier places in the order, keeping a move when the value grows (at most 200 passes, fewer
 // on big vessels: 20,000 / jobs). Each pass is at most jobs × starts × people
 // checks; tests compare the result with HiGHS's exact optimum (server/planning/optimum.test.ts).
+import type { RankNames } from "@/server/routines/rank-names";
 import { TZDate } from "@date-fns/tz";
 import { invalidInput } from "@/server/http/problem";
 import { seededRandom } from "@/server/seeded-random";
@@ -40,6 +41,8 @@ export type StayPlanInput = {
   lookAheadDays?: number;
   jobs: PlanJob[];
   slotMinutes?: number;
+  /** The company's own names for its ranks, for the reasons' words. */
+  rankNames?: RankNames;
 };
 
 export type PlacedJob = {
@@ -205,7 +208,7 @@ export function planPortStay(input: StayPlanInput): StayPlan {
 
   const pass = bestPass(considered, grid, stay, base, possible);
   const year = new TZDate(stay.arrivesAt, stay.timeZone).getFullYear();
-  const ctx = { timeZone: stay.timeZone, year, horizon, stay, nextStay: input.nextStayArrivesAt };
+  const ctx = { timeZone: stay.timeZone, year, horizon, stay, nextStay: input.nextStayArrivesAt, rankNames: input.rankNames };
 
   const placed: PlacedJob[] = [];
   const leftOut: LeftOutJob[] = [];

@@ -15,6 +15,7 @@ import type { PackageCheck, PackageInput, PackageProblem, PackageResult, PlacedV
 import { planJobOf, planStayOf } from "./plan-input";
 import { clearPlannedDates, findStay, jobColumns, packagedElsewhere, placedView, type StayRow, toJob } from "./queries";
 import { instantOfShipDateTime, shipDateTimeOf } from "./stay-days";
+import { loadRankNames } from "@/server/admin/rank-names";
 
 /** Said when the chief put a job in by hand, not from the proposal. */
 export const ADDED_BY_HAND = "Added to the package by the chief engineer.";
@@ -56,7 +57,12 @@ async function evaluate(
       item: { job: planJobOf(toJob(w), w.outOfToleranceAt), start: instantOfShipDateTime(item.start, vessel.timeZone), people: item.people },
     });
   });
-  const checked = checkPackage(planStayOf(stay, vessel.timeZone), checkable.map((c) => c.item));
+  const checked = checkPackage(
+    planStayOf(stay, vessel.timeZone),
+    checkable.map((c) => c.item),
+    undefined,
+    await loadRankNames(access.company.id),
+  );
   for (const p of checked.problems) problems.push({ ...p, item: checkable[p.item]!.n });
   problems.sort((a, b) => a.item - b.item);
 

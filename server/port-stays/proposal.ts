@@ -13,6 +13,7 @@ import { DEFAULT_LOOK_AHEAD_DAYS, planPortStay } from "@/server/planning/stay-pl
 import type { PackageJob, ProposalView } from "./contract";
 import { planJobOf, planStayOf } from "./plan-input";
 import { findStay, jobColumns, packagedElsewhere, placedView, toJob } from "./queries";
+import { loadRankNames } from "@/server/admin/rank-names";
 
 export async function proposePackage(
   access: Access,
@@ -66,6 +67,7 @@ export async function proposePackage(
     nextStayArrivesAt: next?.arrivesAt ?? null,
     lookAheadDays: DEFAULT_LOOK_AHEAD_DAYS,
     jobs: [...jobs.values()].map((j) => planJobOf(j, outOfTolerance.get(j.workOrderId) ?? null)),
+    rankNames: await loadRankNames(companyId),
   });
 
   const job = (id: string) => jobs.get(id)!;

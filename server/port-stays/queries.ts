@@ -24,6 +24,7 @@ import {
 } from "./contract";
 import { planJobOf, planStayOf } from "./plan-input";
 import { clockWords, instantOfShipDateTime, shipDateTimeOf, stayDays } from "./stay-days";
+import { loadRankNames } from "@/server/admin/rank-names";
 
 const PAST_LIMIT = 20;
 
@@ -346,6 +347,8 @@ export async function updatePortStay(
       const { problems } = checkPackage(
         planStayOf({ ...row, ...columns }, vessel.timeZone),
         items.map((i) => ({ job: planJobOf(toJob(i), i.outOfToleranceAt), start: i.startsAt ?? columns.arrivesAt, people: i.people })),
+        undefined,
+        await loadRankNames(access.company.id),
       );
       if (problems.length) {
         throw invalidInput([
@@ -399,10 +402,37 @@ export async function deletePortStay(
       );
     }
     const released = await clearPlannedDates(tx, access.company.id, items);
+    await dropTiedWorkOrders(tx, access.company.id, vessel.id, row);
     await tx.delete(portStay).where(and(eq(portStay.companyId, access.company.id), eq(portStay.id, row.id)));
     await requestRecompute(tx, access.company.id, vessel.id);
     return { deleted: row.id, released };
   });
+}
+
+/**
+ * The open work orders of routines tied to this stay's departure or arrival, not yet due and with
+ * nothing recorded on them (no completion, no deferral): their occurrence leaves with the stay, and
+ * the recompute gives the next stay its own. One already past its due point stays: a ship that
+ * sailed untested has a statutory miss to show, whatever becomes of the stay's record.
+ */
+async function dropTiedWorkOrders(
+  tx: Tx,
+  companyId: string,
+  vesselId: string,
+  stay: { arrivesAt: Date; departsAt: Date },
+): Promise<void> {
+  await tx.execute(sql`
+    delete from work_order w
+    using routine r
+    where w.company_id = ${companyId} and w.vessel_id = ${vesselId} and w.state <> 'done'
+      and r.id = w.routine_id and r.company_id = ${companyId} and r.port_event is not null
+      and w.due_date > now()
+      and w.due_date = case r.port_event
+        when 'departure' then ${stay.departsAt.toISOString()}::timestamptz
+        else least(${stay.arrivesAt.toISOString()}::timestamptz + r.port_event_hours * interval '1 hour', ${stay.departsAt.toISOString()}::timestamptz)
+      end
+      and not exists (select 1 from completion c where c.work_order_id = w.id)
+      and not exists (select 1 from deferral d where d.work_order_id = w.id)`);
 }
 
 /** Clears the planned date of open work orders still planned on the given day; returns how many. */

@@ -4,6 +4,7 @@ import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { component, routine, type RoutineCaution, workOrder, workPackageItem } from "@/db/schema";
+import type { HeadCount } from "@/db/schema/columns";
 import type { Access, VesselRef } from "@/server/auth/access";
 import type { PortStayView } from "./contract";
 import { findStay } from "./queries";
@@ -16,6 +17,9 @@ export type SheetJob = {
   componentCode: string;
   componentName: string;
   rank: string;
+  /** The routine's team (ranks × head count) and its elapsed hours. */
+  team: HeadCount[];
+  elapsedHours: number;
   manHours: number;
   needsEngineStop: boolean;
   critical: boolean;
@@ -50,6 +54,8 @@ export async function loadPackageSheet(access: Access, vessel: VesselRef, stayId
       componentCode: component.code,
       componentName: component.name,
       rank: workOrder.rank,
+      team: workOrder.team,
+      elapsedHours: workOrder.elapsedHours,
       manHours: workOrder.estimatedManHours,
       needsEngineStop: workOrder.needsEngineStop,
       critical: workOrder.critical,

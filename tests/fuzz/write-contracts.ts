@@ -89,6 +89,7 @@ export const EXAMPLES: Record<string, (c: ExampleContext) => Example> = {
   }),
   "PATCH /api/admin/users/[userId]": () => ({ body: { name: "Fuzz Viewer", rank: "Cadet" } }),
   "PATCH /api/admin/settings": () => ({ body: { chiefDecidesDeferrals: true } }),
+  "PUT /api/admin/rank-names": () => ({ body: { oiler: "Wiper" } }),
   // 9074729: the check digit of the contract's own example (7·9+6·0+5·7+4·4+3·7+2·2 = 139 → 9).
   "POST /api/admin/vessels": () => ({
     body: { name: "Fuzz Carrier", imoNumber: "IMO 9074729", code: "FZ", timeZone: "UTC" },

@@ -119,4 +119,36 @@ describe("a routine tied to the departure", () => {
     const [moved] = await openOrder();
     expect(moved).toMatchObject({ id: next!.id, planFrom: dayIn(12), planUntil: dayIn(12) });
   });
+
+  it("leaves with its stay when the stay is deleted, and comes back with the next stay entered", async () => {
+    const stays = await api<{ upcoming: PortStayView[] }>(chief, "GET", base());
+    const second = stays.body.upcoming.find((u) => u.port === "Second harbour")!;
+    expect((await api(chief, "DELETE", `${base()}/${second.id}`)).status).toBe(200);
+    // Gone in the same transaction as the stay: no work order due at a departure that will not be.
+    expect(await openOrder()).toEqual([]);
+    await recomputeVessel(testDb(), f.companyId, f.vesselA.id);
+    expect(await openOrder()).toEqual([]);
+
+    expect((await api(chief, "POST", base(), stayBody("Third harbour", 20, 21))).status).toBe(201);
+    await recomputeVessel(testDb(), f.companyId, f.vesselA.id);
+    const [again] = await openOrder();
+    expect(again).toMatchObject({ planFrom: dayIn(21), planUntil: dayIn(21), state: "scheduled" });
+  });
+
+  it("keeps a work order with a deferral asked on it when its stay is deleted", async () => {
+    const [order] = await openOrder();
+    await testDb().insert(s.deferral).values({
+      companyId: f.companyId,
+      vesselId: f.vesselA.id,
+      workOrderId: order!.id,
+      reason: "Steering gear pump on order; test after it is fitted.",
+      proposedDueDay: dayIn(30),
+      requestedBy: f.users["chief-engineer"].id,
+      needsOffice: true,
+    });
+    const stays = await api<{ upcoming: PortStayView[] }>(chief, "GET", base());
+    const third = stays.body.upcoming.find((u) => u.port === "Third harbour")!;
+    expect((await api(chief, "DELETE", `${base()}/${third.id}`)).status).toBe(200);
+    expect((await openOrder()).map((o) => o.id)).toEqual([order!.id]);
+  });
 });

@@ -4,7 +4,7 @@ import Link from "next/link";
 import { usePathname, useSearchParams } from "next/navigation";
 import { type DataColumn, DataTable } from "@/app/_components/data-table";
 import { LoadProblem } from "@/app/_components/notice";
-import { rankLabel } from "@/app/_components/rank-words";
+import { RankName } from "@/app/_components/rank-words-provider";
 import { StateBadge } from "@/app/_components/state-badge";
 import type { FleetOverdue, FleetOverdueItem } from "@/server/fleet/overdue-contract";
 import { formatHours } from "@/server/format/hours";
@@ -54,7 +54,7 @@ const COLUMNS: DataColumn<FleetOverdueItem>[] = [
     ),
   },
   { id: "overdue", header: "Overdue by", cellClassName: "whitespace-nowrap tabular-nums", cell: overdueWords },
-  { id: "rank", header: "Rank", cellClassName: "whitespace-nowrap", cell: (i) => rankLabel(i.rank) },
+  { id: "rank", header: "Rank", cellClassName: "whitespace-nowrap", cell: (i) => <RankName rank={i.rank} /> },
   {
     id: "notes",
     header: "Notes",

@@ -6,7 +6,7 @@ import { useParams } from "next/navigation";
 import { StateBadge } from "@/app/_components/state-badge";
 import type { BacklogItem } from "@/server/backlog/contract";
 import { formatHours, formatShipDate } from "@/server/format/hours";
-import { rankLabel } from "@/app/_components/rank-words";
+import { RankName } from "@/app/_components/rank-words-provider";
 
 const column = createColumnHelper<BacklogItem>();
 
@@ -82,7 +82,7 @@ export function backlogColumns(timeZone: string) {
     column.display({ id: "remaining", header: "Remaining", cell: ({ row }) => <Remaining item={row.original} /> }),
     column.accessor("rank", {
       header: "Rank",
-      cell: (c) => <span className="whitespace-nowrap">{rankLabel(c.getValue())}</span>,
+      cell: (c) => <span className="whitespace-nowrap"><RankName rank={c.getValue()} /></span>,
     }),
     column.accessor("estimatedManHours", {
       header: "Man-hours",

@@ -8,7 +8,7 @@ import {
   type BacklogState,
   OPEN_STATES,
 } from "@/server/backlog/contract";
-import { rankLabel } from "@/app/_components/rank-words";
+import { useRankWords } from "@/app/_components/rank-words-provider";
 
 /** The filters this bar sets, in the Backlog query's own shape (a value left out is no filter). */
 export type FilterValues = Pick<
@@ -25,6 +25,7 @@ type Props = {
 
 /** Controlled by the caller's filter values, which follow the URL (or the change just made). */
 export function BacklogFilters({ values, counts, ranks, onChange }: Props) {
+  const { label: rankLabel } = useRankWords();
   const toggleState = (s: BacklogState) => {
     const has = values.state.includes(s);
     const next = has ? values.state.filter((x) => x !== s) : [...values.state, s];

@@ -5,7 +5,7 @@ import { useFieldArray, useWatch, type UseFormReturn } from "react-hook-form";
 import { describedBy } from "@/app/_components/forms/field";
 import type { PortStayInput, PortStayValues } from "@/server/port-stays/contract";
 import { RANKS } from "@/server/routines/contract";
-import { rankLabel } from "./stay-words";
+import { useRankWords } from "@/app/_components/rank-words-provider";
 
 type Form = UseFormReturn<PortStayInput, unknown, PortStayValues>;
 
@@ -20,6 +20,7 @@ function RowError({ id, message }: { id: string; message: string | undefined }) 
 const SMALL_LABEL = "text-xs text-ink-600 dark:text-ink-300";
 
 function RankSelect({ form, name, id, label, error, visible = false }: { form: Form; name: `crew.${number}.rank` | `watches.${number}.rank`; id: string; label: string; error?: string; visible?: boolean }) {
+  const { label: rankLabel } = useRankWords();
   return (
     <div className="min-w-0">
       <label htmlFor={id} className={visible ? SMALL_LABEL : "sr-only"}>

@@ -3,9 +3,7 @@ import { format, parseISO } from "date-fns";
 import type { CrewOnBoard } from "@/db/schema/port-stays";
 import { formatShipTime } from "@/server/format/hours";
 import type { PortStayView } from "@/server/port-stays/contract";
-import { rankLabel } from "@/app/_components/rank-words";
-
-export { rankLabel };
+import type { RankWords } from "@/server/routines/rank-names";
 
 /** "4 Dec 2026 07:00 – 5 Dec 2026 19:00 (ship's time)" */
 export function stayPeriod(arrivesAt: string, departsAt: string, timeZone: string): string {
@@ -28,16 +26,16 @@ export function engineStopWords(stop: PortStayView["engineStop"]): string {
     : "on standby throughout (no engine-stop work)";
 }
 
-export function crewWords(crew: CrewOnBoard[]): string {
+export function crewWords(crew: CrewOnBoard[], { label }: RankWords): string {
   const on = crew.filter((c) => c.count > 0);
-  return on.length === 0 ? "none entered: nothing can be planned" : on.map((c) => `${c.count} × ${rankLabel(c.rank)}`).join(" · ");
+  return on.length === 0 ? "none entered: nothing can be planned" : on.map((c) => `${c.count} × ${label(c.rank)}`).join(" · ");
 }
 
 /** A person key "motorman#2" → "Motorman 2"; the only one of a rank keeps the bare rank. */
-export function personLabel(key: string, crew?: CrewOnBoard[]): string {
+export function personLabel(key: string, { label }: RankWords, crew?: CrewOnBoard[]): string {
   const [rank = key, n = "1"] = key.split("#");
   const heads = crew?.find((c) => c.rank === rank)?.count ?? 2;
-  return heads <= 1 ? rankLabel(rank) : `${rankLabel(rank)} ${n}`;
+  return heads <= 1 ? label(rank) : `${label(rank)} ${n}`;
 }
 
 /** The caution every engine-stop job carries, in the words of the routine cautions. */

@@ -1,7 +1,7 @@
 "use client";
 
 import type { RoutineList } from "@/server/routines/contract";
-import { teamLabel } from "@/app/_components/rank-words";
+import { TeamName } from "@/app/_components/rank-words-provider";
 import type { Sheet } from "./routines-view";
 
 type Props = { list: RoutineList; onAction: (sheet: Sheet) => void };
@@ -63,7 +63,7 @@ export function RoutinesTable({ list, onAction }: Props) {
                   </span>
                 )}
               </td>
-              <td className="px-3 py-1.5">{teamLabel(r.team)}</td>
+              <td className="px-3 py-1.5"><TeamName team={r.team} /></td>
               <td className="px-3 py-1.5 text-right tabular-nums">{r.estimatedManHours}</td>
               <td className="px-3 py-1.5">
                 <span className="flex flex-wrap gap-1 text-xs">

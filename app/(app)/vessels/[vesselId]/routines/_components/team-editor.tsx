@@ -2,7 +2,7 @@
 
 import { type Control, type FieldErrors, useFieldArray, type UseFormRegister, useWatch } from "react-hook-form";
 import { describedBy, Field } from "@/app/_components/forms/field";
-import { RANK_LABEL } from "@/app/_components/rank-words";
+import { useRankWords } from "@/app/_components/rank-words-provider";
 import { formatManHours } from "@/server/format/hours";
 import { MAX_TEAM_ROWS, RANKS } from "@/server/routines/contract";
 import type { RoutineFormValues } from "./routine-form-values";
@@ -24,6 +24,7 @@ export function manHoursWords(team: { count: string }[], elapsed: string): strin
 
 /** Who does the job — ranks with their number of people — and how long it takes; man-hours follow. */
 export function TeamEditor({ control, register, errors }: Props) {
+  const { label: rankLabel } = useRankWords();
   const { fields, append, remove } = useFieldArray({ control, name: "team" });
   const team = useWatch({ control, name: "team" });
   const elapsed = useWatch({ control, name: "elapsedHours" });
@@ -46,7 +47,7 @@ export function TeamEditor({ control, register, errors }: Props) {
                 >
                   {RANKS.map((r) => (
                     <option key={r} value={r}>
-                      {RANK_LABEL[r]}
+                      {rankLabel(r)}
                     </option>
                   ))}
                 </select>

@@ -1,4 +1,6 @@
 "use client";
+import { useRankWords } from "@/app/_components/rank-words-provider";
+import type { RankWords } from "@/server/routines/rank-names";
 // A job on the timeline: one block per working period in each of its people's lanes, the same colour
 // throughout. The first block is the job's control (a button the arrow keys move); the others repeat
 // it for the eye only.
@@ -21,8 +23,8 @@ type Props = {
   onKey?: (key: string, shift: boolean) => boolean;
 };
 
-export function jobWords(job: PlacedView): string {
-  const people = job.people.map((p) => personLabel(p)).join(", ");
+export function jobWords(job: PlacedView, ranks: RankWords): string {
+  const people = job.people.map((p) => personLabel(p, ranks)).join(", ");
   return `${job.number} ${job.title}, ${shipClockLabel(job.startLocal)} for ${job.elapsedHours} h, ${people}${job.needsEngineStop ? ", engine stopped" : ""}`;
 }
 
@@ -30,7 +32,7 @@ export function jobWords(job: PlacedView): string {
 const shown = (number: string, width: number) => (width < 96 ? (number.split("-").pop() ?? number) : number);
 
 export function JobBlock({ job, colour, places, problem, wanted, onKey }: Props) {
-  const words = jobWords(job);
+  const words = jobWords(job, useRankWords());
   const [first, ...rest] = places;
   if (!first) return null;
   const ring = problem ? "ring-2 ring-alarm-600 ring-offset-1 dark:ring-alarm-300" : "";

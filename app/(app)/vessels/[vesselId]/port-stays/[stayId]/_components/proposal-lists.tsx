@@ -1,4 +1,5 @@
 "use client";
+import { useRankWords } from "@/app/_components/rank-words-provider";
 // What the timeline stands on, in words: the jobs in order with the proposal's reasons, what was
 // left out and why, what waits for the voyage, each person's hours, and how much of the work fits.
 import { useState } from "react";
@@ -9,6 +10,7 @@ import type { DraftEntry, Outside } from "./use-package-draft";
 import { shiftLocal } from "./timeline-geometry";
 
 export function PlacedList({ entries, problems, onRemove }: { entries: DraftEntry[]; problems: Map<number, string>; onRemove?: (id: string) => void }) {
+  const ranks = useRankWords();
   const sorted = entries.map((e, i) => ({ e, i })).sort((a, b) => (a.e.placed?.start ?? "").localeCompare(b.e.placed?.start ?? ""));
   return (
     <section aria-labelledby="placed-jobs" className="grid gap-2">
@@ -24,7 +26,7 @@ export function PlacedList({ entries, problems, onRemove }: { entries: DraftEntr
                 {e.job.needsEngineStop && <span className="ml-2 text-brass-800 dark:text-brass-300">engine stopped</span>}
               </p>
               <p className="tabular-nums text-ink-600 dark:text-ink-300">
-                {e.placed ? `${shipClockLabel(e.placed.startLocal)}, ${formatHours(e.job.elapsedHours)} · ${e.placed.people.map((p) => personLabel(p)).join(", ")}` : `wanted from ${shipClockLabel(e.input.start)}`}
+                {e.placed ? `${shipClockLabel(e.placed.startLocal)}, ${formatHours(e.job.elapsedHours)} · ${e.placed.people.map((p) => personLabel(p, ranks)).join(", ")}` : `wanted from ${shipClockLabel(e.input.start)}`}
               </p>
               {e.placed?.reason && <p>{e.placed.reason}</p>}
               {problems.get(i) && <p className="field-error">⚠ {problems.get(i)}</p>}
@@ -107,6 +109,7 @@ function LeftOutRow({ item, starts, onAdd }: { item: Outside; starts: string[]; 
 }
 
 export function ProposalFacts({ proposal, crew }: { proposal: ProposalView; crew: PortStayView["crew"] }) {
+  const ranks = useRankWords();
   const share = proposal.possible > 0 ? Math.round((proposal.value / proposal.possible) * 100) : 100;
   return (
     <div className="grid gap-4 md:grid-cols-2">
@@ -126,7 +129,7 @@ export function ProposalFacts({ proposal, crew }: { proposal: ProposalView; crew
           <tbody className="tabular-nums">
             {proposal.people.map((p) => (
               <tr key={p.key}>
-                <td className="pr-4">{personLabel(p.key, crew)}</td>
+                <td className="pr-4">{personLabel(p.key, ranks, crew)}</td>
                 <td className="pr-4">{formatHours(p.jobHours)}</td>
                 <td>{formatHours(p.watchHours)}</td>
               </tr>

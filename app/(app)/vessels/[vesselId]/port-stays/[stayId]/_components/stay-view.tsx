@@ -1,4 +1,5 @@
 "use client";
+import { useRankWords } from "@/app/_components/rank-words-provider";
 
 import Link from "next/link";
 import { useRouter } from "next/navigation";
@@ -18,6 +19,7 @@ type Props = { vesselId: string; stayId: string };
 const LINK = "text-tide-700 underline-offset-2 hover:underline dark:text-tide-300";
 
 export function StayView({ vesselId, stayId }: Props) {
+  const ranks = useRankWords();
   const query = usePortStay(vesselId, stayId);
   const [open, setOpen] = useState<"edit" | "delete" | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
@@ -63,13 +65,13 @@ export function StayView({ vesselId, stayId }: Props) {
             {stay.workdayFrom}–{stay.workdayTo} on each of {stay.days.length} day{stay.days.length === 1 ? "" : "s"}
           </Fact>
           <Fact label="Main engine">{engineStopWords(stay.engineStop)}</Fact>
-          <Fact label="Crew on board">{crewWords(stay.crew)}</Fact>
+          <Fact label="Crew on board">{crewWords(stay.crew, ranks)}</Fact>
           <Fact label="Port watches">
             {stay.watches.length === 0
               ? "none"
               : stay.watches.map((w, i) => (
                   <span key={i} className="block">
-                    {personLabel(`${w.rank}#${w.person}`, stay.crew)}: {w.label}, {shipClockLabel(w.fromLocal)} – {shipClockLabel(w.toLocal)}
+                    {personLabel(`${w.rank}#${w.person}`, ranks, stay.crew)}: {w.label}, {shipClockLabel(w.fromLocal)} – {shipClockLabel(w.toLocal)}
                   </span>
                 ))}
           </Fact>

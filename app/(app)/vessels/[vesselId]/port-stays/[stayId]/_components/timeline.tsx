@@ -1,4 +1,5 @@
 "use client";
+import { useRankWords } from "@/app/_components/rank-words-provider";
 // The stay as a timeline: ship's days across (working hours wide, the rest narrow), one lane per
 // person, the engine-stop slot as a band over all lanes, port watches hatched, jobs as blocks.
 import type { PlacedView, PortStayView } from "@/server/port-stays/contract";
@@ -23,6 +24,7 @@ type Props = {
 };
 
 export function Timeline({ stay, timeZone, jobs, slotMinutes = 30, onMove, label }: Props) {
+  const ranks = useRankWords();
   const axis = buildAxis({ ...stay, timeZone });
   const lanes = laneKeys(stay.crew, jobs.flatMap((j) => j.job.people));
   const laneTop = (key: string) => HEAD_PX + Math.max(lanes.indexOf(key), 0) * LANE_PX;
@@ -38,7 +40,7 @@ export function Timeline({ stay, timeZone, jobs, slotMinutes = 30, onMove, label
           </li>
           {lanes.map((key) => (
             <li key={key} style={{ height: LANE_PX }} className="truncate border-t border-ink-200 px-2 leading-8 dark:border-ink-800">
-              {personLabel(key, stay.crew)}
+              {personLabel(key, ranks, stay.crew)}
             </li>
           ))}
         </ul>
@@ -82,7 +84,7 @@ export function Timeline({ stay, timeZone, jobs, slotMinutes = 30, onMove, label
                   style={{ left: s.left, width: s.width, top: laneTop(`${w.rank}#${w.person}`) + 4, height: LANE_PX - 8, backgroundImage: HATCH }}
                   title={`Port watch: ${w.label}`}
                   role="img"
-                  aria-label={`${personLabel(`${w.rank}#${w.person}`, stay.crew)} on port watch: ${w.label}`}
+                  aria-label={`${personLabel(`${w.rank}#${w.person}`, ranks, stay.crew)} on port watch: ${w.label}`}
                   data-watch=""
                 />
               );

@@ -1,5 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { loadRankNames } from "@/server/admin/rank-names";
+import { type RankWords, rankWords } from "@/server/routines/rank-names";
 import { notFound } from "next/navigation";
 import { requirePageParams, requirePageVessel } from "@/server/auth/access";
 import { PortStayParams } from "@/server/http/params";
@@ -22,6 +24,7 @@ export default async function PackageSheetPage({ params }: { params: Promise<{ v
     throw error;
   });
   const { stay } = sheet;
+  const ranks = rankWords(await loadRankNames(access.company.id));
   const jobs = sheet.days.reduce((n, d) => n + d.jobs.length, 0);
   return (
     <main className="grid gap-4 print:block print:text-[11pt] print:text-black">
@@ -59,7 +62,7 @@ export default async function PackageSheetPage({ params }: { params: Promise<{ v
           {jobs.length === 0 ? (
             <p className="text-ink-600 dark:text-ink-300 print:text-black">No work planned on this day.</p>
           ) : (
-            jobs.map((job) => <SheetJobCard key={job.workOrderId} job={job} />)
+            jobs.map((job) => <SheetJobCard key={job.workOrderId} job={job} ranks={ranks} />)
           )}
         </section>
       ))}
@@ -67,7 +70,7 @@ export default async function PackageSheetPage({ params }: { params: Promise<{ v
   );
 }
 
-function SheetJobCard({ job }: { job: SheetJob }) {
+function SheetJobCard({ job, ranks }: { job: SheetJob; ranks: RankWords }) {
   return (
     <article className="grid gap-3 panel p-4 print:mb-4 print:break-inside-avoid print:rounded-none print:border-black print:shadow-none">
       <header className="flex flex-wrap items-baseline justify-between gap-2">
@@ -88,7 +91,9 @@ function SheetJobCard({ job }: { job: SheetJob }) {
         <span className="font-semibold">When:</span>{" "}
         {job.segments.map((s) => `${dayLabel(s.from.slice(0, 10))} ${s.from.slice(11, 16)}–${s.to.slice(11, 16)}`).join(" · ")}
         <br />
-        <span className="font-semibold">Who:</span> {job.people.map((p) => personLabel(p)).join(", ") || "not named"}
+        <span className="font-semibold">Team:</span> {job.team.length ? `${ranks.team(job.team)}, ${formatHours(job.elapsedHours)}` : "not set"}
+        <br />
+        <span className="font-semibold">Who:</span> {job.people.map((p) => personLabel(p, ranks)).join(", ") || "not named"}
       </p>
       <p className="text-sm text-ink-600 dark:text-ink-300 print:text-black">{job.reason}</p>
       <div className="grid gap-4 sm:grid-cols-2 print:grid-cols-2">

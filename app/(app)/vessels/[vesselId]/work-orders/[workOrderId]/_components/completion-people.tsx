@@ -3,7 +3,7 @@
 import { useFieldArray, type UseFormReturn } from "react-hook-form";
 import type { z } from "zod";
 import { Field } from "@/app/_components/forms/field";
-import { rankLabel } from "@/app/_components/rank-words";
+import { useRankWords } from "@/app/_components/rank-words-provider";
 import type { CompletionInput, WorkOrderDetail } from "@/server/completions/contract";
 import { RANKS } from "@/server/routines/contract";
 
@@ -13,6 +13,7 @@ type Props = { form: UseFormReturn<Values, unknown, Output>; detail: WorkOrderDe
 
 /** Who answers for the job and who did it: two different things on board, kept apart (issue 11). */
 export function CompletionPeople({ form, detail }: Props) {
+  const { label: rankLabel } = useRankWords();
   const { register, control, formState } = form;
   const rows = useFieldArray({ control, name: "workedBy" });
   const errors = formState.errors;

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { Field } from "@/app/_components/forms/field";
 import { problemSentence } from "@/app/_components/forms/form-problem";
 import { Notice } from "@/app/_components/notice";
-import { rankLabel } from "@/app/_components/rank-words";
+import { useRankWords } from "@/app/_components/rank-words-provider";
 import type { CompletionRecord } from "@/server/completions/contract";
 import { formatHours, formatShipTime } from "@/server/format/hours";
 import { useDecideCompletion } from "./use-work-order";
@@ -19,6 +19,7 @@ type Props = { record: CompletionRecord; timeZone: string; counterName: string |
 
 /** What the engineer recorded, as the chief reads it before deciding. */
 export function CompletionRecordView({ record, timeZone, counterName }: Props) {
+  const { label: rankLabel } = useRankWords();
   const when = (iso: string) => formatShipTime(new Date(iso), timeZone);
   return (
     <section aria-labelledby="record-heading" className="panel p-4">

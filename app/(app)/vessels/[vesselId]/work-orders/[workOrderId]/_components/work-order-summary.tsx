@@ -1,5 +1,5 @@
 import { StateBadge } from "@/app/_components/state-badge";
-import { teamLabel } from "@/app/_components/rank-words";
+import { TeamName } from "@/app/_components/rank-words-provider";
 import type { WorkOrderDetail } from "@/server/completions/contract";
 import { formatHours, formatShipDate } from "@/server/format/hours";
 
@@ -50,7 +50,11 @@ export function WorkOrderSummary({ detail }: Props) {
         </Fact>
         <Fact label="Remaining">{w.state === "done" ? "done" : remaining.length ? remaining.join(" · ") : "—"}</Fact>
         <Fact label="Planned effort">
-          {w.team.length ? `${teamLabel(w.team)} · ${formatHours(w.elapsedHours)} · ` : ""}
+          {w.team.length ? (
+            <>
+              <TeamName team={w.team} /> · {formatHours(w.elapsedHours)} ·{" "}
+            </>
+          ) : null}
           {w.estimatedManHours} man-hours{w.needsEngineStop ? " · engine stopped" : ""}
           {w.needsPort ? " · in port" : ""}
         </Fact>

@@ -1,0 +1,1 @@
+ALTER TABLE "company" ADD COLUMN "rank_names" jsonb DEFAULT '{}'::jsonb NOT NULL;
