@@ -87,6 +87,42 @@ describe("the chief engineer plans a port stay on its timeline", () => {
     await screenshot(page, "port-stay-moved");
   });
 
+  it("drags the same job an hour later with the pointer, and the server checks the new start", async () => {
+    const block = () => page.locator(`[data-work-order="${moved.number}"][data-start]`);
+    const wanted = await attr(block(), "data-start-local");
+    await block().scrollIntoViewIfNeeded();
+    const box = (await block().boundingBox())!;
+    const y = box.y + box.height / 2;
+    await page.mouse.move(box.x + 8, y);
+    await page.mouse.down();
+    // HOUR_PX (timeline-geometry.ts): 44 px is an hour of the working day.
+    await page.mouse.move(box.x + 8 + 22, y, { steps: 4 });
+    await page.mouse.move(box.x + 8 + 44, y, { steps: 4 });
+    await page.mouse.up();
+    await expect.poll(() => attr(block(), "data-start-local"), { timeout: 15_000 }).not.toBe(wanted);
+    await settled();
+    const dragged = await attr(block(), "data-start-local");
+    await screenshot(page, "port-stay-dragged");
+    // Later by the hour, or, where the working day ends first, at the next working day's start.
+    expect(dragged > wanted).toBe(true);
+    if ((await attr(block(), "data-problem")) === "true") {
+      // Refused (the hour is taken or outside its limits): back where it was with the keyboard (an
+      // hour per Shift+←, a slot per ←), and the draft fits again.
+      let back = (Date.parse(`${dragged}:00Z`) - Date.parse(`${wanted}:00Z`)) / 60_000;
+      while (back > 0) {
+        await block().focus();
+        await page.keyboard.press(back >= 60 ? "Shift+ArrowLeft" : "ArrowLeft");
+        back -= back >= 60 ? 60 : 30;
+        await settled();
+      }
+      expect(await attr(block(), "data-start-local")).toBe(wanted);
+      expect(await attr(block(), "data-problem")).toBe("");
+    } else {
+      expect(await page.locator("[data-draft-status]").textContent()).toMatch(/fits\.$/);
+      moved = { number: moved.number, start: await attr(block(), "data-start") };
+    }
+  });
+
   it("accepts the package and finds it again after a reload", async () => {
     acceptedCount = await blocks().count();
     const accept = page.getByRole("button", { name: "Accept package" });

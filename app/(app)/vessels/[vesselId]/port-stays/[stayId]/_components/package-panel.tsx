@@ -114,7 +114,7 @@ export function PackagePanel({ detail, over }: Props) {
         </div>
       </div>
       <p className="text-sm text-ink-700 dark:text-ink-200">
-        Focus a job and move it with the arrow keys (Shift: an hour; Page Up/Down: a day); each move is checked against the working day,
+        Drag a job along its lane, or focus it and move it with the arrow keys (Shift: an hour; Page Up/Down: a day); each move is checked against the working day,
         the engine stop, the watches and who is free.
       </p>
       <p aria-live="polite" className="min-h-5 text-sm font-medium" data-draft-status={draft.checking ? "checking" : "checked"}>
@@ -124,7 +124,7 @@ export function PackagePanel({ detail, over }: Props) {
       {draft.entries.length === 0 ? (
         <p className="panel p-4">No job can be placed in this stay: see what was left out, and why, below.</p>
       ) : (
-        <Timeline stay={stay} timeZone={vessel.timeZone} label="The proposed package on the stay’s timeline" jobs={jobs} slotMinutes={proposal.slotMinutes} onMove={draft.move} />
+        <Timeline stay={stay} timeZone={vessel.timeZone} label="The proposed package on the stay’s timeline" jobs={jobs} slotMinutes={proposal.slotMinutes} onMove={draft.move} onMoveTo={draft.moveTo} />
       )}
       {caution}
       <PlacedList entries={draft.entries} problems={byItem} onRemove={draft.remove} />

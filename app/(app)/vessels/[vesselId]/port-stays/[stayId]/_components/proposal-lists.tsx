@@ -1,7 +1,7 @@
 "use client";
-import { useRankWords } from "@/app/_components/rank-words-provider";
 // What the timeline stands on, in words: the jobs in order with the proposal's reasons, what was
 // left out and why, what waits for the voyage, each person's hours, and how much of the work fits.
+import { useRankWords } from "@/app/_components/rank-words-provider";
 import { useState } from "react";
 import { formatHours } from "@/server/format/hours";
 import type { PackageJob, PortStayView, ProposalView } from "@/server/port-stays/contract";

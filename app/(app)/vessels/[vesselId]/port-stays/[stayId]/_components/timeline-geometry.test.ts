@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { buildAxis, laneKeys, moveMinutes, shiftLocal, spanOf, xOf } from "./timeline-geometry";
+import { buildAxis, dropStart, laneKeys, movedReason, moveMinutes, shiftLocal, spanOf, xOf } from "./timeline-geometry";
 
 // Two days in Port Kelang (UTC+8): arrival 06:00 on the 4th, departure 12:00 on the 5th.
 const stay = {
@@ -56,5 +56,37 @@ describe("lanes, moves", () => {
     expect(moveMinutes("ArrowLeft", true, 30)).toBe(-60);
     expect(moveMinutes("PageDown", false, 30)).toBe(1440);
     expect(moveMinutes("Enter", false, 30)).toBeNull();
+  });
+});
+
+describe("where a dragged job lands", () => {
+  const axis = buildAxis(stay, 10, 1);
+  const local = (ms: number | null) => (ms === null ? null : new Date(ms + 8 * 3_600_000).toISOString().slice(0, 16));
+
+  it("starts on the slot under the drop, within the working day", () => {
+    // Day 1's working day starts at x = 2 (10 px an hour): x = 27 is 10:30, x = 29 rounds to 10:30 (30-min slots).
+    expect(local(dropStart(axis, 27, 30))).toBe("2026-12-04T10:30");
+    expect(local(dropStart(axis, 29, 30))).toBe("2026-12-04T10:30");
+    expect(local(dropStart(axis, 30, 30))).toBe("2026-12-04T11:00");
+    // The end of day 1's working day keeps one slot: 16:30.
+    expect(local(dropStart(axis, 91.9, 30))).toBe("2026-12-04T16:30");
+  });
+
+  it("moves a drop on the hours outside the working day to the next working day's start", () => {
+    expect(local(dropStart(axis, 0.5, 30))).toBe("2026-12-04T08:00");
+    expect(local(dropStart(axis, 95, 30))).toBe("2026-12-05T08:00");
+    // Past the end: the last slot of the last working day (departure at noon).
+    expect(local(dropStart(axis, 500, 30))).toBe("2026-12-05T11:30");
+  });
+});
+
+describe("a moved job's reason", () => {
+  it("keeps why the job is in the package and drops the proposal's when and who, once", () => {
+    const proposed = "Out of tolerance since 26 Sep — critical; motorman from 9 Dec 11:00 to 9 Dec 11:30 (0.5 h of work, 0.5 man-hours).";
+    const once = movedReason(proposed);
+    expect(once).toBe("Out of tolerance since 26 Sep — critical; moved on the timeline by hand.");
+    expect(movedReason(once)).toBe(once);
+    expect(movedReason("Added to the package by hand.")).toBe("Added to the package by hand.");
+    expect(movedReason(undefined)).toBeUndefined();
   });
 });

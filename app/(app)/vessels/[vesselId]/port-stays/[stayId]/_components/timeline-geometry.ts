@@ -44,6 +44,27 @@ export function xOf(axis: Axis, instant: number): number {
   return axis.width;
 }
 
+/**
+ * Where a job dropped at `x` starts: the instant under it, on a slot boundary, and inside a working
+ * day — a drop on the narrow hours outside one goes to the start of the next working day (or the
+ * last slot of the one before, at the stay's end). Null when the stay has no working hours at all.
+ */
+export function dropStart(axis: Axis, x: number, slotMinutes: number): number | null {
+  const working = workingPieces(axis);
+  if (!working.length) return null;
+  const slot = slotMinutes * 60_000;
+  const piece = axis.pieces.find((p) => x < p.x + p.width) ?? axis.pieces.at(-1)!;
+  if (!piece.working) {
+    const next = working.find((p) => p.from >= piece.to);
+    if (next) return next.from;
+    const last = working.at(-1)!;
+    return Math.max(last.from, last.to - slot);
+  }
+  const instant = piece.from + ((Math.max(x, piece.x) - piece.x) / piece.width) * (piece.to - piece.from);
+  const snapped = piece.from + Math.round((instant - piece.from) / slot) * slot;
+  return Math.min(Math.max(snapped, piece.from), Math.max(piece.from, piece.to - slot));
+}
+
 /** Left and width of a period; at least 2 px so that a short job stays visible. */
 export function spanOf(axis: Axis, from: string, to: string): { left: number; width: number } {
   const left = xOf(axis, Date.parse(from));
@@ -97,4 +118,15 @@ export function moveMinutes(key: string, shift: boolean, slotMinutes: number): n
     default:
       return null;
   }
+}
+
+/**
+ * A moved job's reason: why it is in the package stays, when and by whom is the chief's choice now
+ * ("Out of tolerance since 26 Sep; motorman from 9 Dec 11:00 …" → "Out of tolerance since 26 Sep;
+ * moved on the timeline by hand.").
+ */
+export function movedReason(reason: string | undefined): string | undefined {
+  if (!reason) return reason;
+  const why = reason.split("; ")[0]!.replace(/\.$/, "");
+  return why.endsWith("by hand") ? `${why}.` : `${why}; moved on the timeline by hand.`;
 }

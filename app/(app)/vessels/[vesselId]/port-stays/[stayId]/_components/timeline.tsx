@@ -1,11 +1,12 @@
 "use client";
-import { useRankWords } from "@/app/_components/rank-words-provider";
 // The stay as a timeline: ship's days across (working hours wide, the rest narrow), one lane per
 // person, the engine-stop slot as a band over all lanes, port watches hatched, jobs as blocks.
+import { useRankWords } from "@/app/_components/rank-words-provider";
+import { shipClock, shipDay } from "@/server/format/hours";
 import type { PlacedView, PortStayView } from "@/server/port-stays/contract";
 import { dayLabel, personLabel } from "../../_components/stay-words";
 import { fillOf, JobBlock } from "./job-block";
-import { buildAxis, laneKeys, moveMinutes, spanOf, workingPieces } from "./timeline-geometry";
+import { buildAxis, dropStart, laneKeys, moveMinutes, spanOf, workingPieces } from "./timeline-geometry";
 
 const LANE_PX = 34;
 const HEAD_PX = 40;
@@ -20,10 +21,12 @@ type Props = {
   slotMinutes?: number;
   /** Absent for an accepted package: it is read-only until re-planned. */
   onMove?: (workOrderId: string, minutes: number) => void;
+  /** A job dragged to start at a ship's clock time. */
+  onMoveTo?: (workOrderId: string, startLocal: string) => void;
   label: string;
 };
 
-export function Timeline({ stay, timeZone, jobs, slotMinutes = 30, onMove, label }: Props) {
+export function Timeline({ stay, timeZone, jobs, slotMinutes = 30, onMove, onMoveTo, label }: Props) {
   const ranks = useRankWords();
   const axis = buildAxis({ ...stay, timeZone });
   const lanes = laneKeys(stay.crew, jobs.flatMap((j) => j.job.people));
@@ -99,6 +102,13 @@ export function Timeline({ stay, timeZone, jobs, slotMinutes = 30, onMove, label
                 places={job.people.flatMap((person) =>
                   job.segments.map((seg) => ({ ...spanOf(axis, seg.from, seg.to), top: laneTop(person) + 3, height: LANE_PX - 6 })),
                 )}
+                onDrop={
+                  onMoveTo &&
+                  ((left) => {
+                    const at = dropStart(axis, left, slotMinutes);
+                    if (at !== null) onMoveTo(job.workOrderId, `${shipDay(new Date(at), timeZone)}T${shipClock(new Date(at), timeZone)}`);
+                  })
+                }
                 onKey={
                   onMove &&
                   ((key, shift) => {

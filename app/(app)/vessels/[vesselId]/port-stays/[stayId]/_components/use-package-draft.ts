@@ -6,7 +6,7 @@ import { useRef, useState } from "react";
 import { ProblemError } from "@/app/_components/fetch-json";
 import type { PackageJob, PackageProblem, PlacedView, ProposalView } from "@/server/port-stays/contract";
 import { checkPackage } from "../../_components/use-port-stays";
-import { shiftLocal } from "./timeline-geometry";
+import { movedReason, shiftLocal } from "./timeline-geometry";
 
 export type DraftInput = { workOrderId: string; start: string; people?: string[]; reason?: string };
 /** One job of the draft: what is sent, and where the server last placed it (null until it has). */
@@ -54,13 +54,20 @@ export function usePackageDraft(vesselId: string, stayId: string) {
 
   function move(workOrderId: string, minutes: number) {
     const entry = entries.find((e) => e.input.workOrderId === workOrderId);
-    if (!entry) return;
-    const startAt = shiftLocal(entry.input.start, minutes);
+    if (entry) moveTo(workOrderId, shiftLocal(entry.input.start, minutes));
+  }
+
+  /** The job to start at a ship's clock time ("2026-12-10T08:00"): a drag ends here. */
+  function moveTo(workOrderId: string, startAt: string) {
+    const entry = entries.find((e) => e.input.workOrderId === workOrderId);
+    if (!entry || entry.input.start === startAt) return;
     // The moved job is fitted around the others: it goes last in the draft (the server checks in
     // order) and the server picks whoever of its ranks is free then, so the jobs left where they
     // were keep their people and a move fails only when nobody of the team is free.
-    const { people: _people, ...rest } = entry.input;
-    const moved = { ...entry, input: { ...rest, start: startAt } };
+    // Its reason keeps why the job is in the package; when and by whom is now the chief's choice
+    // (the proposal's "second engineer from 9 Dec 11:00 …" would be wrong on the printed sheet).
+    const { people: _people, reason, ...rest } = entry.input;
+    const moved = { ...entry, input: { ...rest, start: startAt, reason: movedReason(reason) } };
     const next = [...entries.filter((e) => e !== entry), moved];
     void check(next, `${entry.job.number} to start ${startAt.replace("T", " ")}`);
   }
@@ -94,7 +101,8 @@ export function usePackageDraft(vesselId: string, stayId: string) {
     return true;
   }
 
-  return { entries, outside, problems, said, checking, start, move, remove, add, refused, inputs: entries.map((e) => e.input) };
+  return { entries, outside, problems, said, checking, start, move, moveTo, remove, add, refused, inputs: entries.map((e) => e.input) };
 }
 
 export type PackageDraft = ReturnType<typeof usePackageDraft>;
+
