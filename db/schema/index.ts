@@ -10,3 +10,4 @@ export * from "./mail";
 export * from "./fleet";
 export * from "./plan-problems";
 export * from "./sign-in";
+export * from "./imports";

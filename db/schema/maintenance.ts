@@ -14,6 +14,7 @@ import {
   pgTable,
   text,
   unique,
+  uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
 import { type HeadCount, hours } from "./columns";
@@ -65,6 +66,8 @@ export const routine = pgTable(
     componentId: uuid()
       .notNull()
       .references(() => component.id, { onDelete: "restrict" }),
+    /** The routine's own code ("ME.CYL.3/OVERHAUL"), the key of an import; unique on the vessel. */
+    code: text(),
     title: text().notNull(),
     description: text().notNull().default(""),
     checklist: jsonb().$type<string[]>().notNull().default([]),
@@ -107,6 +110,8 @@ export const routine = pgTable(
   (t) => [
     index().on(t.companyId, t.vesselId),
     index().on(t.companyId, t.componentId),
+    uniqueIndex("routine_code_on_vessel").on(t.companyId, t.vesselId, t.code),
+    check("routine_code_format", sql`${t.code} is null or ${t.code} ~ '^[A-Z0-9][A-Z0-9._/-]{0,59}$'`),
     check(
       "routine_has_interval",
       sql`${t.intervalHours} is not null or ${t.calendarRule} is not null or ${t.portEvent} is not null`,

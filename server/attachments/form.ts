@@ -1,6 +1,7 @@
 // Reading an upload (multipart/form-data with `file` and an optional `caption`) without trusting
 // its size: the body is read up to a bound, so a huge request is refused before it fills memory.
 import "server-only";
+import { readBoundedBody } from "@/server/http/bounded-body";
 import { invalidInput } from "@/server/http/problem";
 import { formatBytes, MAX_ATTACHMENT_BYTES, UploadFields } from "./contract";
 import type { Upload } from "./queries";
@@ -19,7 +20,7 @@ export async function readUpload(request: Request): Promise<Upload> {
   }
   const declared = Number(request.headers.get("content-length") ?? NaN);
   if (Number.isFinite(declared) && declared > MAX_BODY_BYTES) throw tooLarge();
-  const body = await readBounded(request, MAX_BODY_BYTES);
+  const body = await readBoundedBody(request, MAX_BODY_BYTES, tooLarge);
 
   let form: FormData;
   try {
@@ -45,29 +46,4 @@ export async function readUpload(request: Request): Promise<Upload> {
     bytes: new Uint8Array(await file.arrayBuffer()),
     caption: parsed.data.caption,
   };
-}
-
-/** The request body, refused as too large once it passes `limit` bytes (chunked bodies too). */
-async function readBounded(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
-  if (!request.body) return new Uint8Array();
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limit) {
-      await reader.cancel().catch(() => undefined);
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  const all = new Uint8Array(total);
-  let at = 0;
-  for (const chunk of chunks) {
-    all.set(chunk, at);
-    at += chunk.byteLength;
-  }
-  return all;
 }

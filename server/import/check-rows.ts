@@ -59,9 +59,11 @@ export function checkImport(sheets: ImportSheet[], now: VesselNow): CheckedImpor
   const components = checkComponents(sheet("components"), now, counterNames, at);
   const componentCodes = new Set([...now.components.keys(), ...components.map((c) => c.code)]);
   const lastDone = readLastDone(sheet("last-done"), at);
-  const routines = checkRoutines(sheet("routines"), now, componentCodes, lastDone, at);
+  const listed = new Set<string>();
+  const routines = checkRoutines(sheet("routines"), now, componentCodes, lastDone, at, listed);
   for (const [code, done] of lastDone) {
-    if (!routines.some((r) => r.code === code)) {
+    // A routine whose own row has a problem is still listed: its last-done row is not blamed too.
+    if (!listed.has(code)) {
       problems.push({ file: done.source, row: done.line, column: "routine", message: `${code}: no such routine in the routines file; a last-done row gives the baseline of a routine imported with it.` });
     }
   }
@@ -190,8 +192,11 @@ function readLastDone(s: ImportSheet | undefined, at: At): Map<string, LastDone>
   return latest;
 }
 
-/** Where a routine contract's field is in the files. */
-const ROUTINE_COLUMN: Record<string, string> = {
+/** Where a routine's field is in the files (the contract's names and the table's). */
+export const ROUTINE_COLUMN: Record<string, string> = {
+  componentId: "component",
+  baselineAt: "last-done done_on",
+  baselineHours: "last-done counter_hours",
   title: "title",
   description: "description",
   checklist: "checklist",
@@ -223,6 +228,7 @@ function checkRoutines(
   componentCodes: Set<string>,
   lastDone: Map<string, LastDone>,
   at: At,
+  listed: Set<string>,
 ): RoutineCandidate[] {
   if (!s) return [];
   const out: RoutineCandidate[] = [];
@@ -240,6 +246,7 @@ function checkRoutines(
       continue;
     }
     seen.set(code, row.line);
+    listed.add(code);
     const componentCode = (v.component ?? "").trim().toUpperCase();
     let ok = true;
     const fail = (column: string) => (message: string) => {

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, count, eq, ilike, isNull, ne, notExists, or, type SQL, sql } from "drizzle-orm";
+import { and, asc, count, eq, ilike, inArray, isNull, ne, notExists, or, type SQL, sql } from "drizzle-orm";
 import { type Db, getDb, type Tx } from "@/db/client";
 import { completion, component, routine, routinePlanProblem, toleranceRule, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
@@ -284,6 +284,27 @@ export async function updateRoutine(
  * Takes a routine out of use. Its open work order leaves the Backlog unless work was already
  * recorded on it; done work orders and their completions stay as the maintenance history.
  */
+/** The open work orders of retired routines, unless a completion is recorded on one; how many went. */
+export async function dropOpenWorkOrders(tx: Tx, companyId: string, routineIds: string[]): Promise<number> {
+  const gone = await tx
+    .delete(workOrder)
+    .where(
+      and(
+        eq(workOrder.companyId, companyId),
+        inArray(workOrder.routineId, routineIds),
+        ne(workOrder.state, "done"),
+        notExists(
+          tx
+            .select({ one: sql`1` })
+            .from(completion)
+            .where(eq(completion.workOrderId, workOrder.id)),
+        ),
+      ),
+    )
+    .returning({ id: workOrder.id });
+  return gone.length;
+}
+
 export async function retireRoutine(
   access: Access,
   vessel: VesselRef,
@@ -298,24 +319,9 @@ export async function retireRoutine(
       .update(routine)
       .set({ retiredAt: now, updatedAt: now, revision: sql`${routine.revision} + 1` })
       .where(eq(routine.id, found.r.id));
-    const gone = await tx
-      .delete(workOrder)
-      .where(
-        and(
-          eq(workOrder.companyId, access.company.id),
-          eq(workOrder.routineId, found.r.id),
-          ne(workOrder.state, "done"),
-          notExists(
-            tx
-              .select({ one: sql`1` })
-              .from(completion)
-              .where(eq(completion.workOrderId, workOrder.id)),
-          ),
-        ),
-      )
-      .returning({ id: workOrder.id });
+    const gone = await dropOpenWorkOrders(tx, access.company.id, [found.r.id]);
     await requestRecompute(tx, access.company.id, vessel.id);
-    return gone.length;
+    return gone;
   });
   return { id: routineId, retiredAt: now.toISOString(), openWorkOrdersRemoved: removed };
 }

@@ -48,6 +48,7 @@ export const PAGES: Record<string, PageEntry> = {
   "/vessels/[vesselId]/calendar": section("calendar", ".fc-daygrid"),
   "/vessels/[vesselId]/routines": section("routines"),
   "/vessels/[vesselId]/register": section("register"),
+  "/vessels/[vesselId]/register/import": section("register/import"),
   "/vessels/[vesselId]/port-stays": section("port-stays"),
   "/vessels/[vesselId]/port-stays/[stayId]": onVessel((ids) => `/port-stays/${ids.stayId}`),
   "/vessels/[vesselId]/port-stays/[stayId]/sheet": onVessel((ids) => `/port-stays/${ids.stayId}/sheet`),

@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { useState } from "react";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
@@ -51,6 +52,11 @@ export function MachineryRegister({ vesselId }: { vesselId: string }) {
           The vessel’s machinery as a tree of components; a component without a counter of its own runs on the nearest
           counter above it.
         </p>
+        {data.canEdit && (
+          <Link href={`/vessels/${vesselId}/register/import`} className="btn-quiet">
+            Import from files
+          </Link>
+        )}
         {data.canEdit && data.components.length > 0 && (
           <button type="button" className="btn-primary" onClick={() => open({ kind: "add-component", parentId: null })}>
             Add component

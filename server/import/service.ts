@@ -1,0 +1,174 @@
+// The import of a vessel's plan: preview (read, check, compare; writes nothing) and apply (the same
+// checks again, then everything in one transaction, all or nothing, and one recompute after it).
+// The files are kept in object storage with the import's record.
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { eq, inArray, sql } from "drizzle-orm";
+import { getDb, type Tx } from "@/db/client";
+import { component, counter, counterSegment, routine, vesselImport } from "@/db/schema";
+import type { ImportCounts } from "@/db/schema/imports";
+import type { Access, VesselRef } from "@/server/auth/access";
+import { invalidInput } from "@/server/http/problem";
+import { requestRecompute } from "@/server/jobs/recompute-vessel";
+import { lockRegister } from "@/server/register/register-scope";
+import { dropOpenWorkOrders, routineColumns } from "@/server/routines/queries";
+import { putObject } from "@/server/storage/s3";
+import { type CheckedImport, checkImport } from "./check-rows";
+import { diffImport, type ImportChange, type ImportDiff } from "./diff";
+import { type ImportProblem, problemLine } from "./problems";
+import { readImportFiles } from "./read-file";
+import type { ImportUpload } from "./upload";
+import { loadVesselRows, type VesselRows } from "./vessel-now";
+
+/** The preview's list of changes is cut here; the counts are always whole. */
+export const PREVIEW_CHANGES = 500;
+
+export type ImportPreview = ImportDiff & {
+  files: string[];
+  problems: ImportProblem[];
+  /** More problems than are listed (the list stops at 500). */
+  moreProblems: number;
+  moreChanges: number;
+  retire: boolean;
+};
+export type ImportResult = { importId: string; counts: ImportCounts; files: string[] };
+
+async function prepare(tx: Tx, access: Access, vessel: VesselRef, upload: ImportUpload) {
+  const read = await readImportFiles(upload.files);
+  const rows = await loadVesselRows(tx, access, vessel);
+  const checked = checkImport(read.sheets, rows.now);
+  const problems = [...read.problems, ...checked.problems];
+  if (!problems.length && !read.sheets.some((s) => s.rows.length)) {
+    problems.push({ file: upload.files.map((f) => f.name).join(", "), row: null, column: null, message: "The files hold no rows to import." });
+  }
+  return { checked, rows, problems, diff: diffImport(checked, rows, vessel.timeZone, upload.retire) };
+}
+
+export async function previewImport(access: Access, vessel: VesselRef, upload: ImportUpload): Promise<ImportPreview> {
+  const { problems, diff } = await getDb().transaction((tx) => prepare(tx, access, vessel, upload), { accessMode: "read only" });
+  return {
+    ...diff,
+    changes: diff.changes.slice(0, PREVIEW_CHANGES),
+    moreChanges: Math.max(diff.changes.length - PREVIEW_CHANGES, 0),
+    problems: problems.slice(0, PREVIEW_CHANGES),
+    moreProblems: Math.max(problems.length - PREVIEW_CHANGES, 0),
+    files: upload.files.map((f) => f.name),
+    retire: upload.retire,
+  };
+}
+
+export async function applyImport(access: Access, vessel: VesselRef, upload: ImportUpload): Promise<ImportResult> {
+  const importId = randomUUID();
+  const keys = upload.files.map((f, i) => `${access.company.id}/${vessel.id}/imports/${importId}/${i + 1}-${f.name.replace(/[^\w.-]+/g, "_").slice(0, 80)}`);
+  return getDb().transaction(async (tx) => {
+    await lockRegister(tx, vessel);
+    const { checked, rows, problems, diff } = await prepare(tx, access, vessel, upload);
+    if (problems.length) {
+      throw invalidInput(
+        problems.slice(0, 200).map((p) => ({ field: "file", message: problemLine(p) })),
+        `The import was refused: ${problems.length} problem${problems.length === 1 ? "" : "s"} in the files. Nothing was written.`,
+      );
+    }
+    await write(tx, access, vessel, checked, rows, diff.changes);
+    const counts = countsOf(diff);
+    for (const [i, f] of upload.files.entries()) await putObject(keys[i]!, f.bytes, contentType(f.name));
+    await tx.insert(vesselImport).values({
+      id: importId,
+      companyId: access.company.id,
+      vesselId: vessel.id,
+      importedBy: access.user.id,
+      fileNames: upload.files.map((f) => f.name),
+      objectKeys: keys,
+      counts,
+    });
+    await requestRecompute(tx, access.company.id, vessel.id);
+    return { importId, counts, files: upload.files.map((f) => f.name) };
+  });
+}
+
+function contentType(name: string): string {
+  return /\.xlsx$/i.test(name) ? "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" : "text/csv";
+}
+
+function countsOf(diff: ImportDiff): ImportCounts {
+  const of = (k: keyof ImportDiff["counts"]) => ({ created: diff.counts[k].create, changed: diff.counts[k].change, retired: diff.counts[k].retire });
+  return { counters: of("counters"), components: of("components"), routines: of("routines") };
+}
+
+const CHUNK = 500;
+async function inChunks<T>(items: T[], run: (chunk: T[]) => Promise<unknown>): Promise<void> {
+  for (let i = 0; i < items.length; i += CHUNK) await run(items.slice(i, i + CHUNK));
+}
+
+async function write(tx: Tx, access: Access, vessel: VesselRef, checked: CheckedImport, rows: VesselRows, changes: ImportChange[]) {
+  const companyId = access.company.id;
+  const now = new Date();
+  const acts = new Map(changes.map((c) => [`${c.kind}:${c.key}`, c.action]));
+  const act = (kind: ImportChange["kind"], key: string) => acts.get(`${kind}:${key}`);
+
+  // Counters: new ones with their first meter; a changed planned rate.
+  const counterId = new Map(rows.counters.map((c) => [c.name.toLowerCase(), c.id]));
+  let order = rows.counters.reduce((m, c) => Math.max(m, c.sortOrder), -1);
+  for (const c of checked.counters) {
+    const action = act("counters", c.name);
+    if (action === "create") {
+      const [row] = await tx
+        .insert(counter)
+        .values({ companyId, vesselId: vessel.id, name: c.name, plannedHoursPerDay: c.plannedHoursPerDay, sortOrder: (order += 1) })
+        .returning({ id: counter.id });
+      await tx.insert(counterSegment).values({ companyId, counterId: row!.id, segment: 1, startedAt: now, startMeter: 0, offsetHours: 0, createdBy: access.user.id });
+      counterId.set(c.name.toLowerCase(), row!.id);
+    } else if (action === "change") {
+      await tx.update(counter).set({ plannedHoursPerDay: c.plannedHoursPerDay }).where(eq(counter.id, counterId.get(c.name.toLowerCase())!));
+    }
+  }
+
+  // Components: the new ones first without parents (a parent may be new too), then every parent set.
+  const componentId = new Map(rows.components.map((c) => [c.code, c.id]));
+  const fields = (c: CheckedImport["components"][number]) => ({
+    name: c.name,
+    critical: c.critical,
+    classItemRef: c.classItemRef,
+    counterId: c.counterName ? (counterId.get(c.counterName.toLowerCase()) ?? null) : null,
+    maker: c.maker,
+    model: c.model,
+  });
+  const created = checked.components.filter((c) => act("components", c.code) === "create");
+  await inChunks(created, async (chunk) => {
+    const ids = await tx
+      .insert(component)
+      .values(chunk.map((c) => ({ companyId, vesselId: vessel.id, code: c.code, sortOrder: c.line, ...fields(c) })))
+      .returning({ id: component.id, code: component.code });
+    for (const r of ids) componentId.set(r.code, r.id);
+  });
+  for (const c of checked.components) {
+    const action = act("components", c.code);
+    if (!action) continue;
+    const parentId = c.parentCode ? componentId.get(c.parentCode)! : null;
+    await tx
+      .update(component)
+      .set(action === "create" ? { parentId } : { ...fields(c), parentId, updatedAt: now })
+      .where(eq(component.id, componentId.get(c.code)!));
+  }
+
+  // Routines: new ones in chunks, changed ones one by one (a new revision), retired ones last.
+  const routineId = new Map(rows.routines.map((r) => [r.code!, r.id]));
+  const columns = (r: CheckedImport["routines"][number]) =>
+    routineColumns({ ...r.routine, componentId: componentId.get(r.componentCode)! }, vessel.timeZone);
+  const newRoutines = checked.routines.filter((r) => act("routines", r.code) === "create");
+  await inChunks(newRoutines, (chunk) =>
+    tx.insert(routine).values(chunk.map((r) => ({ companyId, vesselId: vessel.id, code: r.code, ...columns(r) }))),
+  );
+  for (const r of checked.routines) {
+    if (act("routines", r.code) !== "change") continue;
+    await tx
+      .update(routine)
+      .set({ ...columns(r), updatedAt: now, revision: sql`${routine.revision} + 1` })
+      .where(eq(routine.id, routineId.get(r.code)!));
+  }
+  const retired = changes.filter((c) => c.kind === "routines" && c.action === "retire").map((c) => routineId.get(c.key)!);
+  if (retired.length) {
+    await tx.update(routine).set({ retiredAt: now, updatedAt: now, revision: sql`${routine.revision} + 1` }).where(inArray(routine.id, retired));
+    await dropOpenWorkOrders(tx, companyId, retired);
+  }
+}

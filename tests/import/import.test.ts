@@ -1,0 +1,200 @@
+// Importing a vessel's plan over HTTP against the real database and the S3 fake: a file with bad
+// rows is refused whole with each row's message and nothing written; a good plan applied once and
+// again gives the same database; a changed file changes what changed and says so; retiring what the
+// file no longer lists only when asked; roles and company isolation.
+import { and, eq, isNull } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as s from "@/db/schema";
+import type { Problem } from "@/server/http/problem";
+import type { ImportRecord } from "@/server/import/history";
+import type { ImportPreview, ImportResult } from "@/server/import/service";
+import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
+import { BASE_URL, type Session, signIn } from "../support/http";
+
+let f: Fixture;
+let other: Fixture;
+let chief: Session;
+
+const COMPONENTS = [
+  "code,name,parent,critical,class_item,counter",
+  "ME,Main engine,,yes,ME-1,Main engine",
+  "ME.CYL.1,Cylinder unit 1,ME,yes,,",
+  "ME.CYL.2,Cylinder unit 2,ME,yes,,",
+  "AE.1,Generator set 1,,no,,Generator 1",
+].join("\n");
+const COUNTERS = "counter,planned_hours_per_day\nMain engine,18\nGenerator 1,12\nEmergency generator,0.5\n";
+const ROUTINES = [
+  "code,component,title,every_hours,every,team,elapsed_hours,engine_stop,critical,checklist",
+  'ME.CYL.1/OVH,ME.CYL.1,Piston overhaul,16000,,"second engineer; motorman x2",12,yes,yes,Isolate | Open doors',
+  'ME.CYL.2/OVH,ME.CYL.2,Piston overhaul,16000,,"second engineer; motorman x2",12,yes,yes,Isolate | Open doors',
+  "AE.1/OIL,AE.1,Lube oil change,1000,,fourth engineer,3,no,no,",
+  "ME/CRANK,ME,Crankcase inspection,,every 6 months,second engineer,2,yes,yes,",
+].join("\n");
+const CHANGED_ROUTINES = ROUTINES.replace("AE.1/OIL,AE.1,Lube oil change,1000,", "AE.1/OIL,AE.1,Lube oil and filter change,1500,");
+const LAST_DONE = "routine,done_on,counter_hours\nME.CYL.1/OVH,2025-11-20,900\nME.CYL.2/OVH,2025-11-20,900\nAE.1/OIL,2026-10-01,450\nME/CRANK,2026-09-01,\n";
+
+type Named = { name: string; text: string };
+const files = (...list: Named[]) => list;
+const plan = (routines = ROUTINES) =>
+  files({ name: "components.csv", text: COMPONENTS }, { name: "counters.csv", text: COUNTERS }, { name: "routines.csv", text: routines }, { name: "last-done.csv", text: LAST_DONE });
+
+async function send<T>(session: Session | null, path: string, list: Named[], retire = false, vesselId = f.vesselA.id) {
+  const form = new FormData();
+  for (const x of list) form.append("file", new Blob([x.text], { type: "text/csv" }), x.name);
+  if (retire) form.append("retire", "on");
+  const response = await fetch(`${BASE_URL}/api/vessels/${vesselId}/import${path}`, {
+    method: "POST",
+    headers: { origin: BASE_URL, ...(session ? { cookie: session.cookie } : {}) },
+    body: form,
+  });
+  const text = await response.text();
+  return { status: response.status, body: (text ? JSON.parse(text) : null) as T };
+}
+const preview = (list: Named[], retire = false) => send<ImportPreview & Problem>(chief, "/preview", list, retire);
+const apply = (list: Named[], retire = false) => send<ImportResult & Problem>(chief, "", list, retire);
+
+/** The vessel's register and plan as rows without ids or times, for comparing two states. */
+async function vesselState(vesselId = f.vesselA.id) {
+  const db = testDb();
+  const components = await db
+    .select({ code: s.component.code, name: s.component.name, parent: s.component.parentId, critical: s.component.critical, counter: s.component.counterId })
+    .from(s.component)
+    .where(eq(s.component.vesselId, vesselId))
+    .orderBy(s.component.code);
+  const counters = await db.select({ name: s.counter.name, rate: s.counter.plannedHoursPerDay }).from(s.counter).where(eq(s.counter.vesselId, vesselId)).orderBy(s.counter.name);
+  const routines = await db
+    .select({ code: s.routine.code, title: s.routine.title, hours: s.routine.intervalHours, rule: s.routine.calendarRule, team: s.routine.team, revision: s.routine.revision, retired: s.routine.retiredAt, baselineHours: s.routine.baselineHours })
+    .from(s.routine)
+    .where(eq(s.routine.vesselId, vesselId))
+    .orderBy(s.routine.code);
+  return { components, counters, routines };
+}
+
+beforeAll(async () => {
+  [f, other] = await Promise.all([createCompany("import"), createCompany("import-other")]);
+  chief = await signIn(f.users["chief-engineer"].email, PASSWORD);
+});
+afterAll(closeTestDb);
+
+describe("a plan with bad rows", () => {
+  it("is previewed with each problem by file, row and column", async () => {
+    const bad = ROUTINES.replace("every 6 months", "every 6 mnths").replace("AE.1/OIL,AE.1,", "AE.1/OIL,AE.9,");
+    const res = await preview(files({ name: "components.csv", text: COMPONENTS }, { name: "counters.csv", text: COUNTERS }, { name: "routines.csv", text: bad }, { name: "last-done.csv", text: LAST_DONE }));
+    expect(res.status).toBe(200);
+    expect(res.body.problems).toEqual([
+      { file: "routines.csv", row: 4, column: "component", message: "AE.9: no such component in the components file or on the vessel." },
+      { file: "routines.csv", row: 5, column: "every", message: "“every 6 mnths” is not a rule Keelson reads — try “every 6 months”." },
+    ]);
+  });
+
+  it("is refused whole when applied, naming the rows, and nothing is written", async () => {
+    const before = await vesselState();
+    const bad = ROUTINES.replace("every 6 months", "every 6 mnths");
+    const res = await apply(files({ name: "components.csv", text: COMPONENTS }, { name: "counters.csv", text: COUNTERS }, { name: "routines.csv", text: bad }, { name: "last-done.csv", text: LAST_DONE }));
+    expect(res.status).toBe(422);
+    expect(res.body.detail).toMatch(/^The import was refused: 1 problem in the files\. Nothing was written\.$/);
+    expect(res.body.errors?.map((e) => e.message)).toContain("routines.csv, row 5, every: “every 6 mnths” is not a rule Keelson reads — try “every 6 months”.");
+    expect(await vesselState()).toEqual(before);
+    expect(await testDb().select().from(s.vesselImport).where(eq(s.vesselImport.vesselId, f.vesselA.id))).toEqual([]);
+  });
+});
+
+describe("a good plan", () => {
+  it("is previewed as what it would create, and the known counters as the same", async () => {
+    const res = await preview(plan());
+    expect(res.status).toBe(200);
+    expect(res.body.problems).toEqual([]);
+    expect(res.body.counts).toEqual({
+      counters: { create: 1, change: 1, same: 1, retire: 0 },
+      components: { create: 4, change: 0, same: 0, retire: 0 },
+      routines: { create: 4, change: 0, same: 0, retire: 0 },
+    });
+    // The fixture's main engine is planned at 12 h a day; the file says 18.
+    expect(res.body.changes).toContainEqual({ kind: "counters", key: "Main engine", action: "change", fields: ["planned_hours_per_day"] });
+  });
+
+  it("is applied in one step, its files kept with the record, and applying it again changes nothing", async () => {
+    const res = await apply(plan());
+    expect(res.status).toBe(201);
+    expect(res.body.counts.routines).toEqual({ created: 4, changed: 0, retired: 0 });
+    const first = await vesselState();
+    expect(first.components.map((c) => c.code)).toEqual(["AE.1", "ME", "ME.CYL.1", "ME.CYL.2"]);
+    const me = first.components.find((c) => c.code === "ME")!;
+    const meId = (await testDb().select({ id: s.component.id }).from(s.component).where(and(eq(s.component.vesselId, f.vesselA.id), eq(s.component.code, "ME"))))[0]!.id;
+    expect(first.components.filter((c) => c.parent === meId).map((c) => c.code)).toEqual(["ME.CYL.1", "ME.CYL.2"]);
+    expect(me.counter).toBe(f.counters.main.id);
+    expect(first.counters).toEqual([
+      { name: "Emergency generator", rate: 0.5 },
+      { name: "Generator 1", rate: 12 },
+      { name: "Main engine", rate: 18 },
+    ]);
+    expect(first.routines.find((r) => r.code === "ME/CRANK")).toMatchObject({ rule: "FREQ=MONTHLY;INTERVAL=6", hours: null });
+    expect(first.routines.find((r) => r.code === "ME.CYL.1/OVH")).toMatchObject({ hours: 16000, baselineHours: 900 });
+
+    const history = await fetch(`${BASE_URL}/api/vessels/${f.vesselA.id}/import`, { headers: { cookie: chief.cookie } });
+    const { imports } = (await history.json()) as { imports: ImportRecord[] };
+    expect(imports[0]).toMatchObject({ files: ["components.csv", "counters.csv", "routines.csv", "last-done.csv"], importedBy: expect.stringMatching(/^chief-engineer /) });
+    const [record] = await testDb().select().from(s.vesselImport).where(eq(s.vesselImport.id, res.body.importId));
+    expect(record!.objectKeys).toHaveLength(4);
+
+    const again = await preview(plan());
+    expect(again.body.counts.routines).toEqual({ create: 0, change: 0, same: 4, retire: 0 });
+    expect(again.body.changes).toEqual([]);
+    expect((await apply(plan())).status).toBe(201);
+    expect(await vesselState()).toEqual(first);
+  });
+
+  it("updates what a changed file changed, and says so in the preview", async () => {
+    const changed = CHANGED_ROUTINES;
+    const res = await preview(plan(changed));
+    expect(res.body.changes).toEqual([{ kind: "routines", key: "AE.1/OIL", action: "change", fields: ["title", "every_hours"] }]);
+    expect((await apply(plan(changed))).status).toBe(201);
+    const oil = (await vesselState()).routines.find((r) => r.code === "AE.1/OIL")!;
+    expect(oil).toMatchObject({ title: "Lube oil and filter change", hours: 1500, revision: 2 });
+  });
+
+  it("retires the routines the file no longer lists only when asked", async () => {
+    const fewer = CHANGED_ROUTINES.split("\n").filter((l) => !l.startsWith("ME/CRANK")).join("\n");
+    const lastDone = LAST_DONE.split("\n").filter((l) => !l.startsWith("ME/CRANK")).join("\n");
+    const list = files({ name: "routines.csv", text: fewer }, { name: "last-done.csv", text: lastDone });
+    const kept = await preview(list);
+    expect(kept.body.counts.routines).toMatchObject({ retire: 0 });
+    const asked = await preview(list, true);
+    expect(asked.body.changes).toEqual([{ kind: "routines", key: "ME/CRANK", action: "retire", fields: [] }]);
+    expect((await apply(list, true)).status).toBe(201);
+    const open = await testDb()
+      .select({ code: s.routine.code })
+      .from(s.routine)
+      .where(and(eq(s.routine.vesselId, f.vesselA.id), isNull(s.routine.retiredAt)));
+    expect(open.map((r) => r.code).sort()).toEqual(["AE.1/OIL", "ME.CYL.1/OVH", "ME.CYL.2/OVH"]);
+  });
+});
+
+describe("who may import", () => {
+  it("is the chief engineer of the vessel and the administrator; others are refused and nothing is written", async () => {
+    const admin = await signIn(f.users.admin.email, PASSWORD);
+    expect((await send(admin, "/preview", plan(), false, f.vesselB.id)).status).toBe(200);
+    for (const role of ["superintendent", "engineer", "viewer"] as const) {
+      const session = await signIn(f.users[role].email, PASSWORD);
+      expect((await send(session, "", plan())).status).toBe(403);
+    }
+    expect((await send(null, "", plan())).status).toBe(401);
+    // Another company's chief engineer, and our chief on a vessel he is not assigned to.
+    const outsider = await signIn(other.users["chief-engineer"].email, PASSWORD);
+    expect((await send(outsider, "", plan())).status).toBe(404);
+    expect((await send(chief, "", plan(), false, f.vesselB.id)).status).toBe(404);
+    expect(await vesselState(f.vesselB.id)).toMatchObject({ components: [], routines: [] });
+  });
+
+  it("refuses a request without files, or not a form, with the field named", async () => {
+    const empty = await send<Problem>(chief, "/preview", []);
+    expect(empty.status).toBe(422);
+    expect(empty.body.errors).toEqual([{ field: "file", message: "Choose the plan's files: CSV files or an Excel workbook." }]);
+    const json = await fetch(`${BASE_URL}/api/vessels/${f.vesselA.id}/import/preview`, {
+      method: "POST",
+      headers: { origin: BASE_URL, cookie: chief.cookie, "content-type": "application/json" },
+      body: "{}",
+    });
+    expect(json.status).toBe(422);
+  });
+});
