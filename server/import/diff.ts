@@ -1,6 +1,6 @@
 // What an import would do to the vessel: each counter, component and routine of the files is new,
-// changed (and which of its fields) or the same; with "retire" ticked, the coded routines the file
-// no longer lists are retired. Over the rows loaded by vessel-now.ts; it reads nothing itself.
+// changed (and which of its fields) or the same; with "retire" ticked, the routines the file no
+// longer lists are retired. Over the rows loaded by vessel-now.ts; it reads nothing itself.
 import "server-only";
 import { routineColumns } from "@/server/routines/queries";
 import { type CheckedImport, ROUTINE_COLUMN } from "./check-rows";
@@ -65,7 +65,7 @@ export function diffImport(checked: CheckedImport, rows: VesselRows, timeZone: s
     note("components", c.code, fields);
   }
 
-  const routineByCode = new Map(rows.routines.map((r) => [r.code!, r]));
+  const routineByCode = new Map(rows.routines.map((r) => [r.key, r]));
   const componentIdOf = (code: string) => componentByCode.get(code)?.id ?? `new:${code}`;
   for (const r of checked.routines) {
     const was = routineByCode.get(r.code);
@@ -80,9 +80,9 @@ export function diffImport(checked: CheckedImport, rows: VesselRows, timeZone: s
   if (retire && checked.routines.length) {
     const listed = new Set(checked.routines.map((r) => r.code));
     for (const r of rows.routines) {
-      if (listed.has(r.code!)) continue;
+      if (listed.has(r.key)) continue;
       counts.routines.retire += 1;
-      changes.push({ kind: "routines", key: r.code!, action: "retire", fields: [] });
+      changes.push({ kind: "routines", key: r.key, action: "retire", fields: [] });
     }
   }
   return { counts, changes };

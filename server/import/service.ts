@@ -152,7 +152,7 @@ async function write(tx: Tx, access: Access, vessel: VesselRef, checked: Checked
   }
 
   // Routines: new ones in chunks, changed ones one by one (a new revision), retired ones last.
-  const routineId = new Map(rows.routines.map((r) => [r.code!, r.id]));
+  const routineId = new Map(rows.routines.map((r) => [r.key, r.id]));
   const columns = (r: CheckedImport["routines"][number]) =>
     routineColumns({ ...r.routine, componentId: componentId.get(r.componentCode)! }, vessel.timeZone);
   const newRoutines = checked.routines.filter((r) => act("routines", r.code) === "create");
@@ -163,7 +163,8 @@ async function write(tx: Tx, access: Access, vessel: VesselRef, checked: Checked
     if (act("routines", r.code) !== "change") continue;
     await tx
       .update(routine)
-      .set({ ...columns(r), updatedAt: now, revision: sql`${routine.revision} + 1` })
+      // A routine made in the app takes its key as its code from now on.
+      .set({ ...columns(r), code: r.code, updatedAt: now, revision: sql`${routine.revision} + 1` })
       .where(eq(routine.id, routineId.get(r.code)!));
   }
   const retired = changes.filter((c) => c.kind === "routines" && c.action === "retire").map((c) => routineId.get(c.key)!);

@@ -16,3 +16,7 @@ export function templateCsv(kind: ImportKind, example: boolean): string {
   const rows = example ? [Object.fromEntries(LAYOUT[kind].columns.map((c) => [c.name, c.example]))] : [];
   return toCsv(columns, rows);
 }
+
+export const ExportQuery = z.object({
+  kind: z.enum(IMPORT_KINDS, { message: `kind must be one of ${IMPORT_KINDS.join(", ")}.` }).optional(),
+});

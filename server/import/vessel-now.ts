@@ -1,7 +1,7 @@
 // What the vessel holds now, read once for an import: its components, counters and coded routines
 // with the columns an import compares, and the company's tolerance rules and rank names.
 import "server-only";
-import { and, eq, isNotNull, isNull } from "drizzle-orm";
+import { and, eq, isNull } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { component, counter, routine, toleranceRule } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
@@ -12,7 +12,8 @@ export type VesselRows = {
   now: VesselNow;
   components: (typeof component.$inferSelect)[];
   counters: (typeof counter.$inferSelect)[];
-  routines: (typeof routine.$inferSelect)[];
+  /** The vessel's live routines, each with its key: its code, or one derived for a routine without. */
+  routines: (typeof routine.$inferSelect & { key: string })[];
 };
 
 export async function loadVesselRows(tx: Tx, access: Access, vessel: VesselRef): Promise<VesselRows> {
@@ -23,21 +24,48 @@ export async function loadVesselRows(tx: Tx, access: Access, vessel: VesselRef):
     tx
       .select()
       .from(routine)
-      .where(and(eq(routine.companyId, companyId), eq(routine.vesselId, vessel.id), isNull(routine.retiredAt), isNotNull(routine.code))),
+      .where(and(eq(routine.companyId, companyId), eq(routine.vesselId, vessel.id), isNull(routine.retiredAt))),
     tx.select({ id: toleranceRule.id, name: toleranceRule.name }).from(toleranceRule).where(eq(toleranceRule.companyId, companyId)),
     loadRankNames(companyId),
   ]);
   const codeOf = new Map(components.map((c) => [c.id, c.code]));
+  const keyed = withKeys(routines, codeOf);
   return {
     components,
     counters,
-    routines,
+    routines: keyed,
     now: {
       components: new Map(components.map((c) => [c.code, { id: c.id, parentCode: c.parentId ? (codeOf.get(c.parentId) ?? null) : null }])),
       counters: new Map(counters.map((c) => [c.name.toLowerCase(), { id: c.id, name: c.name }])),
-      routines: new Map(routines.map((r) => [r.code!, { id: r.id }])),
+      routines: new Map(keyed.map((r) => [r.key, { id: r.id }])),
       toleranceRules: new Map(rules.map((r) => [r.name.toLowerCase(), r.id])),
       rankNames,
     },
   };
+}
+
+/**
+ * A routine made in the app has no code: its key is its component's code and its place among that
+ * component's uncoded routines, oldest first ("ME.CYL.3/2"), skipping any code already taken. The
+ * export writes these keys, so exporting and importing again finds the same routines.
+ */
+export function withKeys<R extends { id: string; code: string | null; componentId: string; createdAt: Date }>(
+  routines: R[],
+  componentCode: Map<string, string>,
+): (R & { key: string })[] {
+  const taken = new Set(routines.flatMap((r) => (r.code ? [r.code] : [])));
+  const next = new Map<string, number>();
+  const uncoded = routines
+    .filter((r) => !r.code)
+    .sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || a.id.localeCompare(b.id));
+  const keys = new Map<string, string>();
+  for (const r of uncoded) {
+    const prefix = componentCode.get(r.componentId) ?? "ROUTINE";
+    let n = next.get(prefix) ?? 1;
+    while (taken.has(`${prefix}/${n}`)) n += 1;
+    keys.set(r.id, `${prefix}/${n}`);
+    taken.add(`${prefix}/${n}`);
+    next.set(prefix, n + 1);
+  }
+  return routines.map((r) => ({ ...r, key: r.code ?? keys.get(r.id)! }));
 }

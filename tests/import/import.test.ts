@@ -8,6 +8,7 @@ import * as s from "@/db/schema";
 import type { Problem } from "@/server/http/problem";
 import type { ImportRecord } from "@/server/import/history";
 import type { ImportPreview, ImportResult } from "@/server/import/service";
+import { shipDay } from "@/server/format/hours";
 import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
 import { BASE_URL, type Session, signIn } from "../support/http";
 
@@ -196,5 +197,59 @@ describe("who may import", () => {
       body: "{}",
     });
     expect(json.status).toBe(422);
+  });
+});
+
+describe("export and import again", () => {
+  /** The plan as a chief engineer reads it, without ids, times or the vessel's zone. */
+  async function planOf(vesselId: string, timeZone: string) {
+    const db = testDb();
+    const components = await db.select().from(s.component).where(eq(s.component.vesselId, vesselId));
+    const counters = await db.select().from(s.counter).where(and(eq(s.counter.vesselId, vesselId), isNull(s.counter.retiredAt)));
+    const routines = await db.select().from(s.routine).where(and(eq(s.routine.vesselId, vesselId), isNull(s.routine.retiredAt)));
+    const code = new Map(components.map((c) => [c.id, c.code]));
+    const counter = new Map(counters.map((c) => [c.id, c.name]));
+    return {
+      components: components
+        .map((c) => ({ code: c.code, name: c.name, parent: c.parentId ? code.get(c.parentId) : null, critical: c.critical, counter: c.counterId ? counter.get(c.counterId) : null }))
+        .sort((a, b) => a.code.localeCompare(b.code)),
+      counters: counters.map((c) => ({ name: c.name, rate: c.plannedHoursPerDay })).sort((a, b) => a.name.localeCompare(b.name)),
+      routines: routines
+        .map((r) => ({
+          code: r.code,
+          component: code.get(r.componentId),
+          title: r.title,
+          hours: r.intervalHours,
+          rule: r.calendarRule,
+          team: r.team,
+          elapsed: r.elapsedHours,
+          checklist: r.checklist,
+          flags: [r.critical, r.classRelated, r.needsEngineStop, r.needsPort],
+          baselineDay: r.baselineAt ? shipDay(r.baselineAt, timeZone) : null,
+          baselineHours: r.baselineHours,
+        }))
+        .sort((a, b) => (a.code ?? "").localeCompare(b.code ?? "")),
+    };
+  }
+
+  it("exports the plan as one workbook and as CSV per kind, and the workbook imported into an empty vessel reproduces it", async () => {
+    const csv = await fetch(`${BASE_URL}/api/vessels/${f.vesselA.id}/export?kind=routines`, { headers: { cookie: chief.cookie } });
+    expect(csv.status).toBe(200);
+    // fetch drops the byte-order mark as it decodes; the header row follows it.
+    expect((await csv.text()).split("\r\n")[0]).toBe("code,component,title,every_hours,every,rrule,anniversary,tolerance_rule,team,elapsed_hours,engine_stop,needs_port,port_event,port_event_hours,critical,class_related,class_item,checklist,measurements,spare_parts,cautions,description");
+
+    const book = await fetch(`${BASE_URL}/api/vessels/${f.vesselA.id}/export`, { headers: { cookie: chief.cookie } });
+    expect(book.status).toBe(200);
+    const bytes = new Uint8Array(await book.arrayBuffer());
+    const admin = await signIn(f.users.admin.email, PASSWORD);
+    const form = new FormData();
+    form.append("file", new Blob([bytes]), "alpha-plan.xlsx");
+    const res = await fetch(`${BASE_URL}/api/vessels/${f.vesselB.id}/import`, { method: "POST", headers: { origin: BASE_URL, cookie: admin.cookie }, body: form });
+    expect(res.status).toBe(201);
+
+    const a = await planOf(f.vesselA.id, f.vesselA.timeZone);
+    const b = await planOf(f.vesselB.id, f.vesselB.timeZone);
+    expect(a.routines).toHaveLength(3);
+    expect(b).toEqual(a);
   });
 });

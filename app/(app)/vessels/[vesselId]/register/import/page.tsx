@@ -31,6 +31,25 @@ export default async function ImportPage({ params }: { params: Promise<{ vesselI
       ) : (
         <p className="panel p-4">Only the vessel’s chief engineer and the company administrator import a plan.</p>
       )}
+      <section aria-labelledby="export-heading" className="panel grid gap-2 p-4">
+        <h2 id="export-heading" className="font-semibold">
+          Take the plan out
+        </h2>
+        <p className="max-w-prose text-sm text-ink-700 dark:text-ink-200">
+          {vessel.name}’s register, counters, routines and last-done days in the same layout: imported into an empty
+          vessel, they give the same plan. A routine made in Keelson gets its component’s code and a number as its code.
+        </p>
+        <p className="flex flex-wrap gap-4 text-sm">
+          <a className="text-tide-700 underline underline-offset-2 dark:text-tide-300" href={`/api/vessels/${vessel.id}/export`} download>
+            The whole plan as a workbook (.xlsx)
+          </a>
+          {IMPORT_KINDS.map((kind) => (
+            <a key={kind} className="text-tide-700 underline underline-offset-2 dark:text-tide-300" href={`/api/vessels/${vessel.id}/export?kind=${kind}`} download>
+              {kind}.csv
+            </a>
+          ))}
+        </p>
+      </section>
       <section aria-labelledby="layout-heading" className="panel grid gap-3 p-4">
         <h2 id="layout-heading" className="font-semibold">
           The files’ layout

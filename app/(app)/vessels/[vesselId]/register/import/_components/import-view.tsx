@@ -99,7 +99,7 @@ export function ImportView({ vesselId }: { vesselId: string }) {
           <span>
             Retire the routines the file no longer lists
             <span className="block text-sm text-ink-500 dark:text-ink-400">
-              Off: an import only adds and changes. On: coded routines of this vessel missing from the routines file are
+              Off: an import only adds and changes. On: the routines of this vessel missing from the routines file are
               retired, and their open work orders with nothing recorded on them go.
             </span>
           </span>

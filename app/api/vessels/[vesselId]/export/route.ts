@@ -1,0 +1,21 @@
+import { csvResponse } from "@/server/export/csv";
+import { withAccess } from "@/server/http/with-access";
+import { exportRows, kindCsv, workbookOf } from "@/server/import/export";
+import { ExportQuery } from "@/server/import/template";
+
+/**
+ * The vessel's plan in the import layout: `?kind=routines` (or components, counters, last-done) as
+ * one CSV, or without a kind one workbook with a worksheet per kind.
+ */
+export const GET = withAccess({ permission: "vessel:read", vessel: true, query: ExportQuery }, async ({ access, vessel, query }) => {
+  const rows = await exportRows(access, vessel);
+  const name = `${vessel.code}-${new Date().toISOString().slice(0, 10)}`;
+  if (query.kind) return csvResponse(kindCsv(query.kind, rows[query.kind]), `${name}-${query.kind}.csv`);
+  return new Response(Buffer.from(await workbookOf(rows)), {
+    headers: {
+      "content-type": "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet",
+      "content-disposition": `attachment; filename="${name.replace(/[^\w.-]/g, "-")}-plan.xlsx"`,
+      "cache-control": "no-store",
+    },
+  });
+});
