@@ -35,8 +35,8 @@ export const LAYOUT: Record<ImportKind, { title: string; key: string; columns: I
       col("critical", false, "Critical equipment: yes or no", "yes"),
       col("class_item", false, "The class society's item reference", "ME-CU-3"),
       col("counter", false, "The counter (by name) its running hours come from; empty: its parent's", "Main engine"),
-      col("maker", false, "Maker", "Wärtsilä"),
-      col("model", false, "Model or type", "6RT-flex50"),
+      col("maker", false, "Maker", "Hansen & Vik"),
+      col("model", false, "Model or type", "HV 6L50"),
     ],
   },
   counters: {
