@@ -1,0 +1,148 @@
+// Importing a vessel's plan (issue 12): the bench vessel's register, counters, 3,000 routines and a
+// last-done row per routine, as four CSV files and as one workbook, previewed and applied over HTTP
+// into empty vessels, beside a floor measured in the same run: one INSERT … SELECT FROM unnest of
+// the same component and routine rows into temporary tables (what the database needs at least).
+import { writeFileSync } from "node:fs";
+import { performance } from "node:perf_hooks";
+import ExcelJS from "exceljs";
+import { sql } from "drizzle-orm";
+import * as s from "@/db/schema";
+import { closeTestDb, createCompany, PASSWORD, testDb } from "@/tests/support/fixtures";
+import { BASE_URL, signIn } from "@/tests/support/http";
+import { seededRandom } from "@/server/seeded-random";
+
+const COUNTERS = 30;
+const COMPONENTS = 612;
+const ROUTINES = 3_000;
+const RUNS = 3;
+const rnd = seededRandom(12);
+
+const counters = Array.from({ length: COUNTERS }, (_, i) => ({ counter: `Counter ${i + 1}`, planned_hours_per_day: String(6 + (i % 18)) }));
+const components = Array.from({ length: COMPONENTS }, (_, i) => {
+  const system = i % COUNTERS;
+  const top = i < COUNTERS;
+  return {
+    code: top ? `SYS${system + 1}` : `SYS${system + 1}.P${Math.floor(i / COUNTERS)}`,
+    name: top ? `System ${system + 1}` : `Part ${Math.floor(i / COUNTERS)} of system ${system + 1}`,
+    parent: top ? "" : `SYS${system + 1}`,
+    critical: i % 7 === 0 ? "yes" : "no",
+    counter: top ? `Counter ${system + 1}` : "",
+  };
+});
+const teams = ["second engineer", "third engineer; motorman", "second engineer; motorman x2", "fourth engineer", "electro-technical officer"];
+const routines = Array.from({ length: ROUTINES }, (_, i) => {
+  const c = components[i % COMPONENTS]!;
+  const kind = i % 5; // 0,1 hours; 2,3 calendar; 4 both
+  return {
+    code: `${c.code}/R${i + 1}`,
+    component: c.code,
+    title: `Routine ${i + 1} on ${c.name}`,
+    every_hours: kind < 2 || kind === 4 ? String([500, 1000, 2000, 4000, 8000][i % 5]) : "",
+    every: kind >= 2 ? ["every month", "every 3 months", "every 6 months", "every year", "every 2 weeks on Monday"][i % 5]! : "",
+    team: teams[i % teams.length]!,
+    elapsed_hours: String(1 + (i % 8)),
+    engine_stop: i % 11 === 0 ? "yes" : "no",
+    critical: i % 9 === 0 ? "yes" : "no",
+    checklist: "Isolate | Inspect | Record",
+  };
+});
+const lastDone = routines.map((r, i) => ({
+  routine: r.code,
+  done_on: `2026-${String(1 + (i % 10)).padStart(2, "0")}-${String(1 + Math.floor(rnd() * 27)).padStart(2, "0")}`,
+  counter_hours: r.every_hours ? String(1000 + (i % 500)) : "",
+}));
+const kinds = { components, counters, routines, "last-done": lastDone } as const;
+
+const csvOf = (rows: Record<string, string>[]) => {
+  const head = Object.keys(rows[0]!);
+  const q = (v: string) => (/[",\n]/.test(v) ? `"${v.replaceAll('"', '""')}"` : v);
+  return [head.join(","), ...rows.map((r) => head.map((h) => q(r[h] ?? "")).join(","))].join("\n");
+};
+const csvFiles = Object.entries(kinds).map(([kind, rows]) => ({ name: `${kind}.csv`, bytes: new TextEncoder().encode(csvOf(rows as Record<string, string>[])) }));
+const book = new ExcelJS.Workbook();
+for (const [kind, rows] of Object.entries(kinds)) {
+  const head = Object.keys((rows as Record<string, string>[])[0]!);
+  const ws = book.addWorksheet(kind);
+  ws.addRow(head);
+  for (const r of rows as Record<string, string>[]) ws.addRow(head.map((h) => r[h] ?? ""));
+}
+const xlsx = [{ name: "bench-plan.xlsx", bytes: new Uint8Array(await book.xlsx.writeBuffer()) }];
+
+const f = await createCompany("bench-import");
+const admin = await signIn(f.users.admin.email, PASSWORD);
+const db = testDb();
+let n = 0;
+/** A valid IMO number: six digits and their check digit (7·d1 + 6·d2 + … + 2·d6, last digit). */
+function imo(seed: number): string {
+  const six = String(300000 + ((seed * 7919 + Math.floor(rnd() * 1000)) % 600000)).slice(0, 6);
+  const sum = [7, 6, 5, 4, 3, 2].reduce((acc, w, i) => acc + w * Number(six[i]), 0);
+  return `${six}${sum % 10}`;
+}
+async function emptyVessel(): Promise<string> {
+  n += 1;
+  const [v] = await db
+    .insert(s.vessel)
+    .values({ companyId: f.companyId, name: `Import bench ${n}`, code: `IB${n}`, imoNumber: imo(n), timeZone: "UTC" })
+    .returning();
+  return v!.id;
+}
+
+async function post(vesselId: string, path: string, files: { name: string; bytes: Uint8Array }[]) {
+  const form = new FormData();
+  for (const x of files) form.append("file", new Blob([x.bytes as Uint8Array<ArrayBuffer>]), x.name);
+  const start = performance.now();
+  const res = await fetch(`${BASE_URL}/api/vessels/${vesselId}/import${path}`, { method: "POST", headers: { origin: BASE_URL, cookie: admin.cookie }, body: form });
+  const body = (await res.json()) as { problems?: unknown[]; counts?: unknown; detail?: string };
+  const ms = performance.now() - start;
+  if (res.status >= 300 || (body.problems && body.problems.length)) throw new Error(`${path || "apply"} ${res.status}: ${JSON.stringify(body).slice(0, 400)}`);
+  return ms;
+}
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+const secs = (ms: number) => (ms / 1000).toFixed(2);
+
+async function timeFormat(label: string, files: { name: string; bytes: Uint8Array }[]) {
+  const previews: number[] = [];
+  const applies: number[] = [];
+  const again: number[] = [];
+  for (let i = 0; i < RUNS; i += 1) {
+    const vesselId = await emptyVessel();
+    previews.push(await post(vesselId, "/preview", files));
+    applies.push(await post(vesselId, "", files));
+    again.push(await post(vesselId, "", files));
+  }
+  return { label, preview: median(previews), apply: median(applies), again: median(again) };
+}
+
+async function floor(): Promise<number> {
+  const times: number[] = [];
+  for (let i = 0; i < RUNS; i += 1) {
+    const start = performance.now();
+    await db.transaction(async (tx) => {
+      await tx.execute(sql`create temporary table bench_component (code text, name text, parent text) on commit drop`);
+      await tx.execute(sql`create temporary table bench_routine (code text, component text, title text, team text) on commit drop`);
+      await tx.execute(sql`insert into bench_component select * from unnest(${components.map((c) => c.code)}::text[], ${components.map((c) => c.name)}::text[], ${components.map((c) => c.parent)}::text[])`);
+      await tx.execute(
+        sql`insert into bench_routine select * from unnest(${routines.map((r) => r.code)}::text[], ${routines.map((r) => r.component)}::text[], ${routines.map((r) => r.title)}::text[], ${routines.map((r) => r.team)}::text[])`,
+      );
+    });
+    times.push(performance.now() - start);
+  }
+  return median(times);
+}
+
+await post(await emptyVessel(), "/preview", csvFiles); // warm-up: compiled routes, pool connections
+const bare = await floor();
+const results = [await timeFormat("four CSV files", csvFiles), await timeFormat("one workbook (.xlsx)", xlsx)];
+await closeTestDb();
+
+const size = (files: { bytes: Uint8Array }[]) => `${Math.round(files.reduce((t, x) => t + x.bytes.byteLength, 0) / 1024)} kB`;
+const md = [
+  `| import of ${COMPONENTS} components, ${COUNTERS} counters, ${ROUTINES.toLocaleString("en")} routines and ${ROUTINES.toLocaleString("en")} last-done rows (median of ${RUNS}) | preview (s) | apply into an empty vessel (s) | the same files again (s) | apply ÷ floor |`,
+  "| --- | --- | --- | --- | --- |",
+  ...results.map((r) => `| ${r.label} (${size(r.label.startsWith("four") ? csvFiles : xlsx)}) | ${secs(r.preview)} | ${secs(r.apply)} | ${secs(r.again)} | ${(r.apply / bare).toFixed(0)}× |`),
+  `| floor: one INSERT … SELECT FROM unnest of the same component and routine rows into temporary tables | — | ${secs(bare)} | — | 1× |`,
+].join("\n");
+writeFileSync("bench-output/import.md", md + "\n");
+writeFileSync("bench-output/import.json", JSON.stringify({ bare, results }, null, 2));
+console.log(md);
