@@ -16,7 +16,7 @@ import { putObject } from "@/server/storage/s3";
 import { type CheckedImport, checkImport } from "./check-rows";
 import { diffImport, type ImportChange, type ImportDiff } from "./diff";
 import { type ImportProblem, problemLine } from "./problems";
-import { readImportFiles } from "./read-file";
+import { type ImportFile, readImportFiles, type ReadResult } from "./read-file";
 import type { ImportUpload } from "./upload";
 import { loadVesselRows, type VesselRows } from "./vessel-now";
 
@@ -33,36 +33,53 @@ export type ImportPreview = ImportDiff & {
 };
 export type ImportResult = { importId: string; counts: ImportCounts; files: string[] };
 
-async function prepare(tx: Tx, access: Access, vessel: VesselRef, upload: ImportUpload) {
-  const read = await readImportFiles(upload.files);
+/** Where an import's rows come from: files read, or another vessel's plan (a copy). */
+export type ImportSource = {
+  /** The names the preview and the record show. */
+  names: string[];
+  retire: boolean;
+  read: (tx: Tx) => Promise<ReadResult>;
+  /** Files to keep with the record (none for a copy). */
+  files: ImportFile[];
+};
+
+export const fileSource = (upload: ImportUpload): ImportSource => ({
+  names: upload.files.map((f) => f.name),
+  retire: upload.retire,
+  read: () => readImportFiles(upload.files),
+  files: upload.files,
+});
+
+async function prepare(tx: Tx, access: Access, vessel: VesselRef, source: ImportSource) {
+  const read = await source.read(tx);
   const rows = await loadVesselRows(tx, access, vessel);
   const checked = checkImport(read.sheets, rows.now);
   const problems = [...read.problems, ...checked.problems];
   if (!problems.length && !read.sheets.some((s) => s.rows.length)) {
-    problems.push({ file: upload.files.map((f) => f.name).join(", "), row: null, column: null, message: "The files hold no rows to import." });
+    problems.push({ file: source.names.join(", "), row: null, column: null, message: "There are no rows to import." });
   }
-  return { checked, rows, problems, diff: diffImport(checked, rows, vessel.timeZone, upload.retire) };
+  return { checked, rows, problems, diff: diffImport(checked, rows, vessel.timeZone, source.retire) };
 }
 
-export async function previewImport(access: Access, vessel: VesselRef, upload: ImportUpload): Promise<ImportPreview> {
-  const { problems, diff } = await getDb().transaction((tx) => prepare(tx, access, vessel, upload), { accessMode: "read only" });
+export async function previewImport(access: Access, vessel: VesselRef, source: ImportSource): Promise<ImportPreview> {
+  const { problems, diff } = await getDb().transaction((tx) => prepare(tx, access, vessel, source), { accessMode: "read only" });
   return {
     ...diff,
     changes: diff.changes.slice(0, PREVIEW_CHANGES),
     moreChanges: Math.max(diff.changes.length - PREVIEW_CHANGES, 0),
     problems: problems.slice(0, PREVIEW_CHANGES),
     moreProblems: Math.max(problems.length - PREVIEW_CHANGES, 0),
-    files: upload.files.map((f) => f.name),
-    retire: upload.retire,
+    files: source.names,
+    retire: source.retire,
   };
 }
 
-export async function applyImport(access: Access, vessel: VesselRef, upload: ImportUpload): Promise<ImportResult> {
+export async function applyImport(access: Access, vessel: VesselRef, source: ImportSource): Promise<ImportResult> {
   const importId = randomUUID();
-  const keys = upload.files.map((f, i) => `${access.company.id}/${vessel.id}/imports/${importId}/${i + 1}-${f.name.replace(/[^\w.-]+/g, "_").slice(0, 80)}`);
+  const keys = source.files.map((f, i) => `${access.company.id}/${vessel.id}/imports/${importId}/${i + 1}-${f.name.replace(/[^\w.-]+/g, "_").slice(0, 80)}`);
   return getDb().transaction(async (tx) => {
     await lockRegister(tx, vessel);
-    const { checked, rows, problems, diff } = await prepare(tx, access, vessel, upload);
+    const { checked, rows, problems, diff } = await prepare(tx, access, vessel, source);
     if (problems.length) {
       throw invalidInput(
         problems.slice(0, 200).map((p) => ({ field: "file", message: problemLine(p) })),
@@ -71,18 +88,18 @@ export async function applyImport(access: Access, vessel: VesselRef, upload: Imp
     }
     await write(tx, access, vessel, checked, rows, diff.changes);
     const counts = countsOf(diff);
-    for (const [i, f] of upload.files.entries()) await putObject(keys[i]!, f.bytes, contentType(f.name));
+    for (const [i, f] of source.files.entries()) await putObject(keys[i]!, f.bytes, contentType(f.name));
     await tx.insert(vesselImport).values({
       id: importId,
       companyId: access.company.id,
       vesselId: vessel.id,
       importedBy: access.user.id,
-      fileNames: upload.files.map((f) => f.name),
+      fileNames: source.names,
       objectKeys: keys,
       counts,
     });
     await requestRecompute(tx, access.company.id, vessel.id);
-    return { importId, counts, files: upload.files.map((f) => f.name) };
+    return { importId, counts, files: source.names };
   });
 }
 

@@ -63,7 +63,7 @@ describe("the chief engineer imports a plan from files", () => {
       asFile("last-done.csv", lastDone),
     ]);
     await page.getByRole("button", { name: "Check the files" }).click();
-    await page.getByRole("heading", { name: "What the import would do" }).waitFor({ timeout: 30_000 });
+    await page.getByRole("heading", { name: "What it would do" }).waitFor({ timeout: 30_000 });
     const problem = page.locator("[data-import-problem]");
     await expect.poll(() => problem.count()).toBe(1);
     expect((await problem.locator("td").allTextContents()).map((t) => t.trim())).toEqual([

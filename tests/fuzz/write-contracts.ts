@@ -100,6 +100,8 @@ export const EXAMPLES: Record<string, (c: ExampleContext) => Example> = {
   "PUT /api/account/mail-preferences": () => ({ body: { receive: { "due-digest": false } } }),
   // The token is forged: the route must refuse it (422 on query.t), so it never writes.
   "POST /api/unsubscribe": (c) => ({ body: {}, query: { u: c.userId, c: c.companyId, k: "due-digest", t: "forged" } }),
+  // A uuid that is no vessel: the contract takes it and the copy refuses it (422), so nothing is written.
+  "POST /api/vessels/[vesselId]/import/copy": (c) => ({ body: { fromVesselId: c.componentId } }),
   "POST /api/vessels/[vesselId]/components": (c) => ({ body: { code: `FZ.${c.tag.slice(0, 6)}`, name: "Fuzz pump" } }),
   "PATCH /api/vessels/[vesselId]/components/[componentId]": () => ({ body: { name: "Fuzz pump renamed" } }),
   "POST /api/vessels/[vesselId]/counters": (c) => ({ body: { name: `Fuzz meter ${c.tag}`, plannedHoursPerDay: 12 } }),

@@ -200,38 +200,39 @@ describe("who may import", () => {
   });
 });
 
-describe("export and import again", () => {
-  /** The plan as a chief engineer reads it, without ids, times or the vessel's zone. */
-  async function planOf(vesselId: string, timeZone: string) {
-    const db = testDb();
-    const components = await db.select().from(s.component).where(eq(s.component.vesselId, vesselId));
-    const counters = await db.select().from(s.counter).where(and(eq(s.counter.vesselId, vesselId), isNull(s.counter.retiredAt)));
-    const routines = await db.select().from(s.routine).where(and(eq(s.routine.vesselId, vesselId), isNull(s.routine.retiredAt)));
-    const code = new Map(components.map((c) => [c.id, c.code]));
-    const counter = new Map(counters.map((c) => [c.id, c.name]));
-    return {
-      components: components
-        .map((c) => ({ code: c.code, name: c.name, parent: c.parentId ? code.get(c.parentId) : null, critical: c.critical, counter: c.counterId ? counter.get(c.counterId) : null }))
-        .sort((a, b) => a.code.localeCompare(b.code)),
-      counters: counters.map((c) => ({ name: c.name, rate: c.plannedHoursPerDay })).sort((a, b) => a.name.localeCompare(b.name)),
-      routines: routines
-        .map((r) => ({
-          code: r.code,
-          component: code.get(r.componentId),
-          title: r.title,
-          hours: r.intervalHours,
-          rule: r.calendarRule,
-          team: r.team,
-          elapsed: r.elapsedHours,
-          checklist: r.checklist,
-          flags: [r.critical, r.classRelated, r.needsEngineStop, r.needsPort],
-          baselineDay: r.baselineAt ? shipDay(r.baselineAt, timeZone) : null,
-          baselineHours: r.baselineHours,
-        }))
-        .sort((a, b) => (a.code ?? "").localeCompare(b.code ?? "")),
-    };
-  }
+/** The plan as a chief engineer reads it, without ids, times or the vessel's zone. */
+async function planOf(vesselId: string, timeZone: string) {
+  const db = testDb();
+  const components = await db.select().from(s.component).where(eq(s.component.vesselId, vesselId));
+  const counters = await db.select().from(s.counter).where(and(eq(s.counter.vesselId, vesselId), isNull(s.counter.retiredAt)));
+  const routines = await db.select().from(s.routine).where(and(eq(s.routine.vesselId, vesselId), isNull(s.routine.retiredAt)));
+  const code = new Map(components.map((c) => [c.id, c.code]));
+  const counter = new Map(counters.map((c) => [c.id, c.name]));
+  return {
+    components: components
+      .map((c) => ({ code: c.code, name: c.name, parent: c.parentId ? code.get(c.parentId) : null, critical: c.critical, counter: c.counterId ? counter.get(c.counterId) : null }))
+      .sort((a, b) => a.code.localeCompare(b.code)),
+    counters: counters.map((c) => ({ name: c.name, rate: c.plannedHoursPerDay })).sort((a, b) => a.name.localeCompare(b.name)),
+    routines: routines
+      .map((r) => ({
+        code: r.code,
+        component: code.get(r.componentId),
+        title: r.title,
+        hours: r.intervalHours,
+        rule: r.calendarRule,
+        team: r.team,
+        elapsed: r.elapsedHours,
+        checklist: r.checklist,
+        flags: [r.critical, r.classRelated, r.needsEngineStop, r.needsPort],
+        baselineDay: r.baselineAt ? shipDay(r.baselineAt, timeZone) : null,
+        baselineHours: r.baselineHours,
+      }))
+      .sort((a, b) => (a.code ?? "").localeCompare(b.code ?? "")),
+  };
+}
 
+
+describe("export and import again", () => {
   it("exports the plan as one workbook and as CSV per kind, and the workbook imported into an empty vessel reproduces it", async () => {
     const csv = await fetch(`${BASE_URL}/api/vessels/${f.vesselA.id}/export?kind=routines`, { headers: { cookie: chief.cookie } });
     expect(csv.status).toBe(200);
@@ -251,5 +252,51 @@ describe("export and import again", () => {
     const b = await planOf(f.vesselB.id, f.vesselB.timeZone);
     expect(a.routines).toHaveLength(3);
     expect(b).toEqual(a);
+  });
+});
+
+describe("copy the plan to a sister ship", () => {
+  it("previews and copies register, counters and routines; the routines count from today at 0 h", async () => {
+    const admin = await signIn(f.users.admin.email, PASSWORD);
+    const [sister] = await testDb()
+      .insert(s.vessel)
+      .values({ companyId: f.companyId, name: "Charlie sister", code: "CHAR", imoNumber: "9074729", timeZone: "UTC" })
+      .returning();
+    const copy = (apply: boolean, fromVesselId = f.vesselA.id, session = admin, to = sister!.id) =>
+      fetch(`${BASE_URL}/api/vessels/${to}/import/copy`, {
+        method: "POST",
+        headers: { origin: BASE_URL, cookie: session.cookie, "content-type": "application/json" },
+        body: JSON.stringify({ fromVesselId, apply }),
+      });
+    const preview = (await (await copy(false)).json()) as ImportPreview;
+    expect(preview.problems).toEqual([]);
+    expect(preview.counts.routines).toEqual({ create: 3, change: 0, same: 0, retire: 0 });
+    expect(await vesselState(sister!.id)).toMatchObject({ components: [], counters: [], routines: [] });
+
+    expect((await copy(true)).status).toBe(201);
+    const a = await planOf(f.vesselA.id, f.vesselA.timeZone);
+    const c = await planOf(sister!.id, "UTC");
+    const today = shipDay(new Date(), "UTC");
+    expect(c.components).toEqual(a.components);
+    expect(c.counters.map((x) => x.name)).toEqual(a.counters.map((x) => x.name));
+    expect(c.routines).toEqual(
+      a.routines.map((r) => ({ ...r, baselineDay: today, baselineHours: r.hours === null ? null : 0 })),
+    );
+  });
+
+  it("refuses a vessel the user may not open, and the vessel itself, naming the field", async () => {
+    const res = await fetch(`${BASE_URL}/api/vessels/${f.vesselA.id}/import/copy`, {
+      method: "POST",
+      headers: { origin: BASE_URL, cookie: chief.cookie, "content-type": "application/json" },
+      body: JSON.stringify({ fromVesselId: f.vesselB.id }),
+    });
+    expect(res.status).toBe(422);
+    expect(((await res.json()) as Problem).errors).toEqual([{ field: "fromVesselId", message: "There is no such vessel of yours to copy from." }]);
+    const self = await fetch(`${BASE_URL}/api/vessels/${f.vesselA.id}/import/copy`, {
+      method: "POST",
+      headers: { origin: BASE_URL, cookie: chief.cookie, "content-type": "application/json" },
+      body: JSON.stringify({ fromVesselId: f.vesselA.id }),
+    });
+    expect(((await self.json()) as Problem).errors?.[0]?.field).toBe("fromVesselId");
   });
 });

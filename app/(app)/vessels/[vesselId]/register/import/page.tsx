@@ -3,6 +3,7 @@ import Link from "next/link";
 import { requirePageVessel } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { IMPORT_KINDS, LAYOUT } from "@/server/import/layout";
+import { listAccessibleVessels } from "@/server/vessels/queries";
 import { ImportView } from "./_components/import-view";
 
 export const metadata: Metadata = { title: "Import the plan · Machinery register" };
@@ -27,7 +28,10 @@ export default async function ImportPage({ params }: { params: Promise<{ vesselI
         apply, and then all or nothing. Importing the same files again changes nothing.
       </p>
       {can(access.role, "register:edit") ? (
-        <ImportView vesselId={vessel.id} />
+        <ImportView
+          vesselId={vessel.id}
+          sisters={(await listAccessibleVessels(access)).filter((v) => v.id !== vessel.id).map(({ id, name }) => ({ id, name }))}
+        />
       ) : (
         <p className="panel p-4">Only the vessel’s chief engineer and the company administrator import a plan.</p>
       )}

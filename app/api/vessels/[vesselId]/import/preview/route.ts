@@ -1,5 +1,5 @@
 import { withAccess } from "@/server/http/with-access";
-import { previewImport } from "@/server/import/service";
+import { fileSource, previewImport } from "@/server/import/service";
 import { readImportUpload } from "@/server/import/upload";
 
 /**
@@ -7,5 +7,5 @@ import { readImportUpload } from "@/server/import/upload";
  * row and column. Writes nothing. multipart/form-data: `file` (one or more), optional `retire`.
  */
 export const POST = withAccess({ permission: "register:edit", vessel: true }, async ({ request, access, vessel }) =>
-  previewImport(access, vessel, await readImportUpload(request)),
+  previewImport(access, vessel, fileSource(await readImportUpload(request))),
 );

@@ -10,15 +10,17 @@ const KINDS = [
 ] as const;
 const ACTION = { create: "new", change: "changed", retire: "retired" } as const;
 
-export function PreviewView({ preview, onApply, busy }: { preview: ImportPreview; onApply: () => void; busy: boolean }) {
+type Props = { preview: ImportPreview; onApply: () => void; busy: boolean; applyLabel?: string };
+
+export function PreviewView({ preview, onApply, busy, applyLabel = "Apply the import" }: Props) {
   const problems = preview.problems.length + preview.moreProblems;
   const changes = preview.changes.length + preview.moreChanges;
   return (
     <section aria-labelledby="preview-heading" className="panel grid gap-4 p-4">
       <h2 id="preview-heading" className="font-semibold">
-        What the import would do
+        What it would do
       </h2>
-      <p className="text-sm text-ink-600 dark:text-ink-300">Files: {preview.files.join(", ")}</p>
+      <p className="text-sm text-ink-600 dark:text-ink-300">From: {preview.files.join(", ")}</p>
       <table className="w-full max-w-xl text-left text-sm tabular-nums">
         <thead>
           <tr className="text-ink-600 dark:text-ink-300">
@@ -97,7 +99,7 @@ export function PreviewView({ preview, onApply, busy }: { preview: ImportPreview
               </details>
               <div>
                 <button type="button" className="btn-primary" disabled={busy} onClick={onApply}>
-                  Apply the import
+                  {applyLabel}
                 </button>
               </div>
             </>

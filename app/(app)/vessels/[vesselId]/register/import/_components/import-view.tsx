@@ -8,12 +8,13 @@ import { problemSentence } from "@/app/_components/forms/form-problem";
 import { Notice } from "@/app/_components/notice";
 import { uploadWithProgress } from "@/app/_components/upload-with-progress";
 import type { ImportPreview, ImportResult } from "@/server/import/service";
+import { CopyFromVessel } from "./copy-from-vessel";
 import { ImportHistory } from "./import-history";
 import { PreviewView } from "./import-preview";
 
 type Step = { kind: "idle" } | { kind: "sending"; what: "check" | "apply"; share: number } | { kind: "previewed"; preview: ImportPreview };
 
-export function ImportView({ vesselId }: { vesselId: string }) {
+export function ImportView({ vesselId, sisters }: { vesselId: string; sisters: { id: string; name: string }[] }) {
   const [files, setFiles] = useState<File[]>([]);
   const [retire, setRetire] = useState(false);
   const [step, setStep] = useState<Step>({ kind: "idle" });
@@ -132,6 +133,7 @@ export function ImportView({ vesselId }: { vesselId: string }) {
         )}
       </section>
       {step.kind === "previewed" && <PreviewView preview={step.preview} onApply={apply} busy={busy} />}
+      <CopyFromVessel vesselId={vesselId} vessels={sisters} onCopied={() => setHistoryKey((k) => k + 1)} />
       <ImportHistory vesselId={vesselId} refresh={historyKey} />
     </div>
   );
