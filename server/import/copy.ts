@@ -1,7 +1,7 @@
 // Copying a whole vessel's plan to a sister ship: its register, counters (new, with empty meters)
 // and routines with their settings, through the import's own checks, preview and apply. The copied
-// routines count from the day of the copy at 0 h on the sister ship's new meters; the source's
-// history stays where it was done.
+// routines count from the day of the copy at 0 h on the sister ship's new meters (a routine the
+// ship already has keeps its own baseline); the source's history stays where it was done.
 import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { z } from "zod";
@@ -43,6 +43,7 @@ export async function copySource(access: Access, target: VesselRef, input: z.out
     names: [`the plan of ${from.name}`],
     retire: false,
     files: [],
+    keepBaselines: true,
     read: async () => {
       const rows = await exportRows(access, from);
       // The sister ship's meters are new: every routine counts from today at 0 h.

@@ -8,6 +8,7 @@ import { getDb, type Tx } from "@/db/client";
 import { component, counter, counterSegment, routine, vesselImport } from "@/db/schema";
 import type { ImportCounts } from "@/db/schema/imports";
 import type { Access, VesselRef } from "@/server/auth/access";
+import { shipDay } from "@/server/format/hours";
 import { invalidInput } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { lockRegister } from "@/server/register/register-scope";
@@ -41,6 +42,8 @@ export type ImportSource = {
   read: (tx: Tx) => Promise<ReadResult>;
   /** Files to keep with the record (none for a copy). */
   files: ImportFile[];
+  /** A copy: routines the vessel already has keep their own baselines. */
+  keepBaselines?: boolean;
 };
 
 export const fileSource = (upload: ImportUpload): ImportSource => ({
@@ -54,6 +57,13 @@ async function prepare(tx: Tx, access: Access, vessel: VesselRef, source: Import
   const read = await source.read(tx);
   const rows = await loadVesselRows(tx, access, vessel);
   const checked = checkImport(read.sheets, rows.now);
+  if (source.keepBaselines) {
+    const held = new Map(rows.routines.map((r) => [r.key, r]));
+    for (const r of checked.routines) {
+      const was = held.get(r.code);
+      if (was) r.routine = { ...r.routine, baselineAt: was.baselineAt ? shipDay(was.baselineAt, vessel.timeZone) : null, baselineHours: was.baselineHours };
+    }
+  }
   const problems = [...read.problems, ...checked.problems];
   if (!problems.length && !read.sheets.some((s) => s.rows.length)) {
     problems.push({ file: source.names.join(", "), row: null, column: null, message: "There are no rows to import." });

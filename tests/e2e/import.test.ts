@@ -63,7 +63,7 @@ describe("the chief engineer imports a plan from files", () => {
       asFile("last-done.csv", lastDone),
     ]);
     await page.getByRole("button", { name: "Check the files" }).click();
-    await page.getByRole("heading", { name: "What it would do" }).waitFor({ timeout: 30_000 });
+    await page.getByRole("heading", { name: "What the import would do" }).waitFor({ timeout: 30_000 });
     const problem = page.locator("[data-import-problem]");
     await expect.poll(() => problem.count()).toBe(1);
     expect((await problem.locator("td").allTextContents()).map((t) => t.trim())).toEqual([
@@ -76,6 +76,19 @@ describe("the chief engineer imports a plan from files", () => {
     await screenshot(page, "import-problem");
   });
 
+  it("checks what copying the sister ship's plan would do, without copying it", async () => {
+    const copy = page.getByRole("region", { name: "Copy the plan of a sister ship" });
+    await copy.getByLabel("Copy from").selectOption({ label: "Corran Ness" });
+    await copy.getByRole("button", { name: "Check the copy" }).click();
+    await copy.getByRole("heading", { name: "What the copy would do" }).waitFor({ timeout: 30_000 });
+    expect(await copy.getByText("From: the plan of Corran Ness").count()).toBe(1);
+    // Corran Ness's routines are all new here; nothing is written until "Copy the plan".
+    const routinesNew = Number((await copy.getByRole("row", { name: /^Routines/ }).locator("td").first().textContent()) ?? "0");
+    expect(routinesNew).toBeGreaterThan(0);
+    expect(await copy.getByRole("button", { name: "Copy the plan" }).count()).toBeLessThanOrEqual(1);
+    await screenshot(page, "import-copy-preview");
+  });
+
   it("fixes the file, sees what would be created, applies it, and finds the work in the Backlog", async () => {
     await page.getByLabel(/The plan’s files/).setInputFiles([
       asFile("components.csv", components),
@@ -83,12 +96,13 @@ describe("the chief engineer imports a plan from files", () => {
       asFile("last-done.csv", lastDone),
     ]);
     await page.getByRole("button", { name: "Check the files" }).click();
-    await page.getByText("No problems: every row reads.").waitFor({ timeout: 30_000 });
-    const row = (kind: string) => page.getByRole("row", { name: new RegExp(`^${kind}`) }).locator("td");
+    const preview = page.getByRole("region", { name: "What the import would do" });
+    await preview.getByText("No problems: every row reads.").waitFor({ timeout: 30_000 });
+    const row = (kind: string) => preview.getByRole("row", { name: new RegExp(`^${kind}`) }).locator("td");
     expect((await row("Components").allTextContents()).slice(0, 2)).toEqual(["2", "0"]);
     expect((await row("Routines").allTextContents()).slice(0, 2)).toEqual(["1", "0"]);
     await screenshot(page, "import-preview");
-    await page.getByRole("button", { name: "Apply the import" }).click();
+    await preview.getByRole("button", { name: "Apply the import" }).click();
     await page.getByText(/^Imported: 2 components, 0 counters and 1 routine created/).waitFor({ timeout: 30_000 });
     await page.getByRole("heading", { name: "Earlier imports" }).waitFor();
     await screenshot(page, "import-applied");

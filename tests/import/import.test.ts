@@ -282,6 +282,9 @@ describe("copy the plan to a sister ship", () => {
     expect(c.routines).toEqual(
       a.routines.map((r) => ({ ...r, baselineDay: today, baselineHours: r.hours === null ? null : 0 })),
     );
+    // Copied again, nothing changes: the routines the ship already has keep their own baselines.
+    const again = (await (await copy(false)).json()) as ImportPreview;
+    expect(again.counts.routines).toEqual({ create: 0, change: 0, same: 3, retire: 0 });
   });
 
   it("refuses a vessel the user may not open, and the vessel itself, naming the field", async () => {

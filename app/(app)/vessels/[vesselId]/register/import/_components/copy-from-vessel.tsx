@@ -78,7 +78,7 @@ export function CopyFromVessel({ vesselId, vessels, onCopied }: Props) {
       </div>
       <Notice tone="problem" message={problem} />
       <Notice message={done} />
-      {preview && <PreviewView preview={preview} onApply={copy} busy={busy} applyLabel="Copy the plan" />}
+      {preview && <PreviewView preview={preview} onApply={copy} busy={busy} what="copy" />}
     </section>
   );
 }

@@ -10,15 +10,16 @@ const KINDS = [
 ] as const;
 const ACTION = { create: "new", change: "changed", retire: "retired" } as const;
 
-type Props = { preview: ImportPreview; onApply: () => void; busy: boolean; applyLabel?: string };
+type Props = { preview: ImportPreview; onApply: () => void; busy: boolean; what?: "import" | "copy" };
 
-export function PreviewView({ preview, onApply, busy, applyLabel = "Apply the import" }: Props) {
+export function PreviewView({ preview, onApply, busy, what = "import" }: Props) {
+  const headingId = `${what}-preview-heading`;
   const problems = preview.problems.length + preview.moreProblems;
   const changes = preview.changes.length + preview.moreChanges;
   return (
-    <section aria-labelledby="preview-heading" className="panel grid gap-4 p-4">
-      <h2 id="preview-heading" className="font-semibold">
-        What it would do
+    <section aria-labelledby={headingId} className="panel grid gap-4 p-4">
+      <h2 id={headingId} className="font-semibold">
+        What the {what} would do
       </h2>
       <p className="text-sm text-ink-600 dark:text-ink-300">From: {preview.files.join(", ")}</p>
       <table className="w-full max-w-xl text-left text-sm tabular-nums">
@@ -99,7 +100,7 @@ export function PreviewView({ preview, onApply, busy, applyLabel = "Apply the im
               </details>
               <div>
                 <button type="button" className="btn-primary" disabled={busy} onClick={onApply}>
-                  {applyLabel}
+                  {what === "import" ? "Apply the import" : "Copy the plan"}
                 </button>
               </div>
             </>
