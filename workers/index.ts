@@ -3,6 +3,7 @@
 import PgBoss from "pg-boss";
 import { closeDb, getDb } from "@/db/client";
 import { envOrExit } from "@/server/env";
+import { databaseUnavailableProblem } from "@/server/http/problem";
 import { closeMailTransport } from "@/server/mail/transport";
 import { mailSendJob } from "@/server/jobs/mail-send";
 import { createJobQueues } from "@/server/jobs/queues";
@@ -17,6 +18,18 @@ const boss = new PgBoss({
   cronMonitorIntervalSeconds: env.KEELSON_CRON_MONITOR_SECONDS,
 });
 boss.on("error", (error) => console.error("[worker] pg-boss error", error));
+// pg-boss marks a job failed after its handler threw; when the database went away meanwhile, that
+// write fails too and its promise is left unhandled inside pg-boss (found by the outage test: the
+// worker died with 57P01 while PostgreSQL restarted). Such a rejection is the outage, which pg-boss
+// rides out by retrying; anything else is a bug and still ends the process.
+process.on("unhandledRejection", (reason) => {
+  if (databaseUnavailableProblem(reason)) {
+    console.error("[worker] the database went away under a job; carrying on:", reason instanceof Error ? reason.message : reason);
+    return;
+  }
+  console.error("[worker] unhandled rejection", reason);
+  process.exit(1);
+});
 
 await boss.start();
 await createJobQueues(boss);
