@@ -76,8 +76,19 @@ describe("the company names its ranks", () => {
 
   it("gives the rank back Keelson's word when the name is cleared", async () => {
     await page.goto(`${BASE_URL}/admin/settings`);
-    await section().getByLabel("Motorman").fill("");
-    await section().getByRole("button", { name: "Save names" }).click();
+    // A field emptied before the form has hydrated is set back to the stored name when it does;
+    // empty it until the form knows it was changed.
+    const save = section().getByRole("button", { name: "Save names" });
+    await expect
+      .poll(
+        async () => {
+          await section().getByLabel("Motorman").fill("");
+          return save.count();
+        },
+        { timeout: 15_000 },
+      )
+      .toBe(1);
+    await save.click();
     await expect
       .poll(() => section().getByText("Saved: every rank under Keelson’s word.").count(), { timeout: 15_000 })
       .toBe(1);
