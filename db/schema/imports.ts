@@ -4,7 +4,9 @@ import { index, jsonb, pgTable, text, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { companyRef, nowStamp, vesselRef } from "./refs";
 
-export type ImportCounts = Record<"counters" | "components" | "routines", { created: number; changed: number; retired: number }>;
+type KindCounts = { created: number; changed: number; retired: number };
+/** Readings are only ever created; imports recorded before readings could be imported have none. */
+export type ImportCounts = Record<"counters" | "components" | "routines", KindCounts> & { readings?: KindCounts };
 
 export const vesselImport = pgTable(
   "vessel_import",

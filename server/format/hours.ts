@@ -40,6 +40,11 @@ export function instantOfShipTime(day: string, clock: string, timeZone: string):
   return new Date(new TZDate(y, m - 1, d, hh, mm, 0, timeZone).getTime());
 }
 
+/** The ship's time with its UTC offset, as a file states it without doubt: "2026-03-13T09:00+08:00". */
+export function shipTimeWithOffset(instant: Date, timeZone: string): string {
+  return format(new TZDate(instant, timeZone), "yyyy-MM-dd'T'HH:mmxxx");
+}
+
 /** "UTC+08:00" for an instant in a time zone. */
 export function utcOffsetLabel(instant: Date, timeZone: string): string {
   return `UTC${format(new TZDate(instant, timeZone), "xxx")}`;

@@ -5,6 +5,7 @@ import { TRUSTED_ORIGINS } from "@/server/auth/auth";
 import { resolveAccess } from "@/server/auth/resolve-access";
 import { can, type Permission } from "@/server/auth/roles";
 import { formatShipDate } from "@/server/format/hours";
+import { readBoundedBody } from "./bounded-body";
 import { isUuid } from "./ids";
 import { AppError, fieldErrorsFromZod, invalidInput, problemResponse } from "./problem";
 
@@ -216,21 +217,7 @@ async function readAnyBody(request: Request): Promise<unknown> {
 async function readBounded(request: Request, limit: number): Promise<string> {
   const tooLarge = () => new AppError("too-large", `The request body is larger than ${Math.round(limit / 1024)} kB.`);
   if (Number(request.headers.get("content-length") ?? 0) > limit) throw tooLarge();
-  if (!request.body) return "";
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.byteLength;
-    if (size > limit) {
-      await reader.cancel();
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  return new TextDecoder().decode(Buffer.concat(chunks));
+  return new TextDecoder().decode(await readBoundedBody(request, limit, tooLarge));
 }
 
 /**

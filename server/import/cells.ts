@@ -4,6 +4,7 @@ import { RANKS, type Rank } from "@/server/routines/ranks";
 import { RANK_LABEL, type RankNames } from "@/server/routines/rank-names";
 import { CAUTIONS } from "@/server/routines/contract";
 import type { RoutineCaution, RoutineMeasurement } from "@/db/schema/maintenance";
+import { instantOfShipTime } from "@/server/format/hours";
 
 export type Cell<T> = { value: T } | { problem: string };
 const ok = <T>(value: T): Cell<T> => ({ value });
@@ -91,4 +92,29 @@ export function cautionsCell(raw: string | undefined): Cell<RoutineCaution[]> {
   const unknown = words.filter((w) => !(CAUTIONS as readonly string[]).includes(w));
   if (unknown.length) return no(`${unknown.map((u) => `“${u}”`).join(", ")}: cautions are ${CAUTIONS.join(", ")}.`);
   return ok(CAUTIONS.filter((c) => words.includes(c)));
+}
+
+const pad2 = (n: string) => n.padStart(2, "0");
+const INSTANT = /^(\d{4})-(\d{1,2})-(\d{1,2})[T\s]+(\d{1,2}):(\d{2})(?::\d{2}(?:\.\d+)?)?\s*(Z|[+-]\d{2}(?::?\d{2})?)?$/i;
+
+/**
+ * An instant: on the ship's clock ("2025-03-13 08:00", in the vessel's zone), or with its UTC
+ * offset ("2025-03-13T08:00+04:00", "…Z") as another system exports it.
+ */
+export function instantCell(raw: string | undefined, timeZone: string): Cell<Date> {
+  const t = (raw ?? "").trim();
+  const words = `“${t}” is not a time Keelson reads: write the ship's time as YYYY-MM-DD HH:MM (e.g. 2025-03-13 08:00), or add its UTC offset (2025-03-13T08:00+04:00).`;
+  if (!t) return no("Enter when it was read: the ship's time as YYYY-MM-DD HH:MM.");
+  const m = INSTANT.exec(t);
+  if (!m) return no(words);
+  const [, y = "", mo = "", d = "", hh = "", mm = "", offset] = m;
+  const day = `${y}-${pad2(mo)}-${pad2(d)}`;
+  const date = new Date(`${day}T00:00:00Z`);
+  if (Number.isNaN(date.getTime()) || !date.toISOString().startsWith(day)) return no(`“${t}”: ${day} is not a day of the calendar.`);
+  if (Number(hh) > 23 || Number(mm) > 59) return no(`“${t}”: the time of day runs from 00:00 to 23:59.`);
+  const clock = `${pad2(hh)}:${mm}`;
+  if (!offset) return ok(instantOfShipTime(day, clock, timeZone));
+  const zone = offset.toUpperCase() === "Z" ? "Z" : offset.length === 3 ? `${offset}:00` : `${offset.slice(0, 3)}:${offset.slice(-2)}`;
+  const at = new Date(`${day}T${clock}:00${zone}`);
+  return Number.isNaN(at.getTime()) ? no(words) : ok(at);
 }

@@ -10,6 +10,7 @@ import type { ImportKind } from "./layout";
 import type { ImportProblem } from "./problems";
 import type { ImportRow, ImportSheet } from "./read-file";
 import { readRuleWords } from "./rule-words";
+import { type CounterReadings, type CounterReadingsImport, checkReadings } from "./check-readings";
 
 export type VesselNow = {
   /** Component code → its id and its parent's code. */
@@ -21,6 +22,11 @@ export type VesselNow = {
   /** Tolerance rule name in lower case → id. */
   toleranceRules: Map<string, string>;
   rankNames: RankNames;
+  /** The vessel's zone and the instant of the check: readings are read on the ship's clock, none in the future. */
+  timeZone: string;
+  clock: Date;
+  /** Each counter's meters and readings, by name in lower case (loaded only when the import has readings). */
+  readings: Map<string, CounterReadings & { name: string }>;
 };
 
 export type CounterCandidate = { line: number; name: string; plannedHoursPerDay: number };
@@ -40,6 +46,7 @@ export type CheckedImport = {
   counters: CounterCandidate[];
   components: ComponentCandidate[];
   routines: RoutineCandidate[];
+  readings: CounterReadingsImport[];
   problems: ImportProblem[];
 };
 
@@ -67,7 +74,13 @@ export function checkImport(sheets: ImportSheet[], now: VesselNow): CheckedImpor
       problems.push({ file: done.source, row: done.line, column: "routine", message: `${code}: no such routine in the routines file; a last-done row gives the baseline of a routine imported with it.` });
     }
   }
-  return { counters, components, routines, problems };
+  const readings = checkReadings(
+    sheet("readings"),
+    { fromFile: new Map(counters.map((c) => [c.name.toLowerCase(), c.name])), onVessel: now.readings },
+    now,
+    at,
+  );
+  return { counters, components, routines, readings, problems };
 }
 
 type At = (s: ImportSheet, row: ImportRow, column: string | null) => (message: string) => void;

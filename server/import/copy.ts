@@ -1,5 +1,5 @@
 // Copying a whole vessel's plan to a sister ship: its register, counters (new, with empty meters)
-// and routines with their settings, through the import's own checks, preview and apply. The copied
+// and routines with their settings (not the readings: the sister ship has its own meters), through the import's own checks, preview and apply. The copied
 // routines count from the day of the copy at 0 h on the sister ship's new meters (a routine the
 // ship already has keeps its own baseline); the source's history stays where it was done.
 import "server-only";
@@ -47,6 +47,7 @@ export async function copySource(access: Access, target: VesselRef, input: z.out
     read: async () => {
       const rows = await exportRows(access, from);
       // The sister ship's meters are new: every routine counts from today at 0 h.
+      rows.readings = [];
       rows["last-done"] = rows.routines.map((r) => ({ routine: r.code ?? "", done_on: today, counter_hours: r.every_hours ? "0" : "", remarks: "" }));
       const sheets: ImportSheet[] = (Object.keys(rows) as ImportKind[]).map((kind) => ({
         kind,

@@ -2,12 +2,13 @@
 // changed (and which of its fields) or the same; with "retire" ticked, the routines the file no
 // longer lists are retired. Over the rows loaded by vessel-now.ts; it reads nothing itself.
 import "server-only";
+import { shipDay } from "@/server/format/hours";
 import { routineColumns } from "@/server/routines/queries";
 import { type CheckedImport, ROUTINE_COLUMN } from "./check-rows";
 import type { VesselRows } from "./vessel-now";
 
 export type ImportKindCounts = { create: number; change: number; same: number; retire: number };
-export type ImportChange = { kind: "counters" | "components" | "routines"; key: string; action: "create" | "change" | "retire"; fields: string[] };
+export type ImportChange = { kind: "counters" | "components" | "routines" | "readings"; key: string; action: "create" | "change" | "retire"; fields: string[] };
 export type ImportDiff = {
   counts: Record<ImportChange["kind"], ImportKindCounts>;
   changes: ImportChange[];
@@ -25,6 +26,7 @@ export function diffImport(checked: CheckedImport, rows: VesselRows, timeZone: s
     counters: { create: 0, change: 0, same: 0, retire: 0 },
     components: { create: 0, change: 0, same: 0, retire: 0 },
     routines: { create: 0, change: 0, same: 0, retire: 0 },
+    readings: { create: 0, change: 0, same: 0, retire: 0 },
   };
   const changes: ImportChange[] = [];
   const note = (kind: ImportChange["kind"], key: string, fields: string[] | null) => {
@@ -84,6 +86,16 @@ export function diffImport(checked: CheckedImport, rows: VesselRows, timeZone: s
       counts.routines.retire += 1;
       changes.push({ kind: "routines", key: r.key, action: "retire", fields: [] });
     }
+  }
+  for (const c of checked.readings) {
+    counts.readings.create += c.readings.length;
+    counts.readings.same += c.same;
+    if (!c.readings.length) continue;
+    const first = c.readings[0]!.readAt;
+    const last = c.readings.at(-1)!.readAt;
+    const span = `${shipDay(first, timeZone)}${last > first ? ` to ${shipDay(last, timeZone)}` : ""}`;
+    const meters = c.segments.length ? `, ${c.segments.length + 1} meters` : "";
+    changes.push({ kind: "readings", key: c.counterName, action: "create", fields: [`${c.readings.length} reading${c.readings.length === 1 ? "" : "s"}, ${span}${meters}`] });
   }
   return { counts, changes };
 }

@@ -2,13 +2,13 @@
 // vessel reproduces its register, counters, routines and baselines. The last-done row of a routine
 // is its last approved completion (day and counter hours), or its baseline when never done.
 import "server-only";
-import { and, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import ExcelJS from "exceljs";
 import { getDb } from "@/db/client";
-import { completion, toleranceRule, workOrder } from "@/db/schema";
+import { completion, counter, reading, toleranceRule, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { toCsv } from "@/server/export/csv";
-import { shipDay } from "@/server/format/hours";
+import { shipDay, shipTimeWithOffset } from "@/server/format/hours";
 import { rankWords } from "@/server/routines/rank-names";
 import { IMPORT_KINDS, type ImportKind, LAYOUT } from "./layout";
 import { loadVesselRows } from "./vessel-now";
@@ -39,6 +39,12 @@ export async function exportRows(access: Access, vessel: VesselRef): Promise<Rec
         .orderBy(workOrder.routineId, desc(completion.doneAt))
     : [];
   const lastDone = new Map(done.map((d) => [d.routineId!, d]));
+  const readings = await db
+    .select({ counterId: reading.counterId, readAt: reading.readAt, meterValue: reading.meterValue, segment: reading.segment, remark: reading.remark })
+    .from(reading)
+    .innerJoin(counter, eq(counter.id, reading.counterId))
+    .where(and(eq(reading.companyId, access.company.id), eq(reading.vesselId, vessel.id)))
+    .orderBy(asc(counter.sortOrder), asc(reading.readAt));
 
   return {
     components: [...rows.components]
@@ -83,6 +89,12 @@ export async function exportRows(access: Access, vessel: VesselRef): Promise<Rec
       const at = d?.doneAt ?? r.baselineAt;
       if (!at) return [];
       return [{ routine: r.key, done_on: shipDay(at, vessel.timeZone), counter_hours: text(d ? d.counterHours : r.baselineHours), remarks: "" }];
+    }),
+    // With the UTC offset: the ship's clock alone is ambiguous in the hour a zone turns its clocks back.
+    readings: readings.flatMap((r) => {
+      const name = counterName.get(r.counterId);
+      if (!name) return [];
+      return [{ counter: name, read_at: shipTimeWithOffset(r.readAt, vessel.timeZone), value: String(r.meterValue), meter: String(r.segment), remark: text(r.remark) }];
     }),
   };
 }

@@ -16,6 +16,9 @@ const empty = (): VesselNow => ({
   routines: new Map(),
   toleranceRules: new Map([["annual: 3 months either side of the anniversary", "rule-1"]]),
   rankNames: {},
+  timeZone: "Asia/Singapore",
+  clock: new Date("2026-12-01T00:00:00Z"),
+  readings: new Map(),
 });
 
 const COUNTERS = "counter,planned_hours_per_day\nMain engine,18\nGenerator 1,12\n";
@@ -82,7 +85,7 @@ describe("files Keelson cannot read", () => {
     expect(r.lines).toEqual([
       "components.csv: The file is not UTF-8 text: in the spreadsheet program, save it as “CSV UTF-8 (comma delimited)”.",
       "plan.pdf: Keelson reads CSV files (.csv) and Excel workbooks (.xlsx); save the file as one of those.",
-      "notes.csv: Keelson cannot tell what this file holds: name it components, counters, routines or last-done (e.g. routines.csv), with the header row of its layout.",
+      "notes.csv: Keelson cannot tell what this file holds: name it components, counters, routines, last-done or readings (e.g. routines.csv), with the header row of its layout.",
     ]);
   });
 
@@ -211,5 +214,113 @@ describe("calendar rules in words", () => {
     expect(form("3 monhts")).toBe("“3 monhts” is not a rule Keelson reads — try “every 3 months”.");
     expect(form("every month on Monday")).toBe("Weekdays go with a rule that repeats by weeks, e.g. “every 2 weeks on Monday”.");
     expect(form("when needed")).toMatch(/^“when needed” is not a rule Keelson reads: write e\.g\./);
+  });
+});
+
+describe("readings history", () => {
+  // Asia/Singapore is UTC+8 all year: 09:00 on the ship is 01:00 UTC.
+  const READINGS_HEAD = "counter,read_at,value,meter,remark";
+  const readings = (...rows: string[]) => file("readings.csv", [READINGS_HEAD, ...rows].join("\n"));
+
+  it("reads a counter's series on the ship's clock or with an offset, and fits a replaced meter after the old one", async () => {
+    const r = await checked([
+      file("counters.csv", COUNTERS),
+      readings(
+        "Main engine,2026-11-01 09:00,61000,,",
+        "Main engine,2026-11-02T01:00Z,61020.5,,after the passage",
+        "Main engine,2026-11-03 09:00,61040,1,",
+        "Main engine,2026-11-04 09:00,10.5,2,new meter",
+        "Main engine,2026-11-05 09:00,30,2,",
+      ),
+    ]);
+    expect(r.lines).toEqual([]);
+    const [me] = r.readings;
+    expect(me!.readings.map((x) => [x.readAt.toISOString(), x.meterValue, x.segment])).toEqual([
+      ["2026-11-01T01:00:00.000Z", 61000, 1],
+      ["2026-11-02T01:00:00.000Z", 61020.5, 1],
+      ["2026-11-03T01:00:00.000Z", 61040, 1],
+      ["2026-11-04T01:00:00.000Z", 10.5, 2],
+      ["2026-11-05T01:00:00.000Z", 30, 2],
+    ]);
+    // The new meter counts from 0 h just after the old one's last reading: the total goes on from 61,040 h.
+    expect(me!.segments).toEqual([{ segment: 2, startedAt: new Date("2026-11-03T01:00:01.000Z"), startMeter: 0, offsetHours: 61040 }]);
+  });
+
+  it("names each reading that breaks the Hour log's rules, and leaves the good ones", async () => {
+    const r = await checked([
+      file("counters.csv", COUNTERS),
+      readings(
+        "Main engine,2026-11-01 09:00,61000,,",
+        "Main engine,2026-11-02 09:00,60990,,", // backwards
+        "Main engine,2026-11-03 09:00,61060,,", // 60 h in 48 h
+        "Main engine,2026-11-03 09:00,61030,,", // same instant as row 4
+        "Main engine,2026-11-04 09:00,61040,,",
+        "Generator 7,2026-11-04 09:00,100,,",
+        "Main engine,4.11.2026,61050,,",
+        "Main engine,2026-12-24 09:00,61100,,",
+        "Main engine,2026-11-06 09:00,twelve,,",
+        "Main engine,2026-11-07 09:00,61080,0,",
+        "Main engine,2026-11-08 09:00,61090,3,",
+      ),
+    ]);
+    expect(r.lines).toEqual([
+      "readings.csv, row 7, counter: “Generator 7”: no such counter in the counters file or on the vessel.",
+      "readings.csv, row 8, read_at: “4.11.2026” is not a time Keelson reads: write the ship's time as YYYY-MM-DD HH:MM (e.g. 2025-03-13 08:00), or add its UTC offset (2025-03-13T08:00+04:00).",
+      "readings.csv, row 9, read_at: 24 Dec 2026 09:00 is still to come on the ship's clock.",
+      "readings.csv, row 10, value: Enter the meter value in hours, with at most one decimal (e.g. 12431.5).",
+      "readings.csv, row 11, meter: “0”: the meter is a whole number, 1 for the first meter fitted, 2 after one replacement…",
+      "readings.csv, row 5, read_at: Main engine already has a reading at 3 Nov 2026 09:00 (row 4).",
+      "readings.csv, row 3, value: Reading is lower than the previous one (61,000 h on 1 Nov 2026 09:00) — row 2.",
+      "readings.csv, row 4, value: Reading advances 60 h but only 48 h passed since the previous reading (61,000 h on 1 Nov 2026 09:00) — row 2.",
+      "readings.csv, row 12, meter: Meter 3 follows meter 1 (row 6): number the meters one after another.",
+    ]);
+    expect(r.readings[0]!.readings.map((x) => x.meterValue)).toEqual([61000, 61040]);
+  });
+
+  it("leaves alone what the vessel already has, refuses another value at the same instant, and checks against the vessel's neighbours", async () => {
+    const now = empty();
+    const at = (day: string) => new Date(`${day}T01:00:00Z`);
+    now.counters.set("main engine", { id: "c-1", name: "Main engine" });
+    now.readings.set("main engine", {
+      name: "Main engine",
+      currentSegment: 1,
+      segments: [{ segment: 1, startedAt: at("2026-01-01"), offsetHours: 0 }],
+      readings: [
+        { readAt: at("2026-11-01"), meterValue: 61000, segment: 1 },
+        { readAt: at("2026-11-03"), meterValue: 61040, segment: 1 },
+      ],
+    });
+    const r = await checked(
+      [
+        readings(
+          "Main engine,2026-11-01 09:00,61000,,",
+          "Main engine,2026-11-03 09:00,61045,,",
+          "Main engine,2026-11-02 09:00,61050,,", // 50 h after the vessel's reading of the day before
+          "Main engine,2026-11-04 09:00,61060,,",
+          "Main engine,2026-11-05 09:00,61070,2,",
+        ),
+      ],
+      now,
+    );
+    expect(r.lines).toEqual([
+      "readings.csv, row 3, value: Main engine already shows 61040 h at 3 Nov 2026 09:00 on the vessel: correct it in the Hour log, not by import.",
+      "readings.csv, row 6, meter: Main engine has no meter 2 (it has 1): fit a new meter in the Hour log first.",
+      "readings.csv, row 4, value: Reading advances 50 h but only 24 h passed since the previous reading (61,000 h on 1 Nov 2026 09:00).",
+    ]);
+    expect(r.readings[0]).toMatchObject({ same: 1, readings: [{ meterValue: 61060, segment: 1 }] });
+  });
+});
+
+describe("cells Keelson's own CSV export guarded against formulas", () => {
+  it("come back as they were: the apostrophe before = + - @ is dropped, any other stays", async () => {
+    const { toCsv } = await import("@/server/export/csv");
+    const row = { counter: "=Main engine", planned_hours_per_day: "12", note: "'quoted" };
+    const csv = toCsv(
+      (["counter", "planned_hours_per_day"] as const).map((c) => ({ header: c, value: (r: typeof row) => r[c] })),
+      [row, { ...row, counter: "-Aux", note: "" }, { ...row, counter: "'O'Brien pump" }],
+    );
+    expect(csv).toContain(`"'=Main engine"`);
+    const r = await readImportFiles([file("counters.csv", csv)]);
+    expect(r.sheets[0]!.rows.map((x) => x.values.counter)).toEqual(["=Main engine", "-Aux", "'O'Brien pump"]);
   });
 });

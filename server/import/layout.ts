@@ -6,7 +6,7 @@
 // The routine code is a column of its own (not the component code and title run together): titles
 // get reworded, and a routine keeps its history only if its key does not move with its wording.
 
-export const IMPORT_KINDS = ["components", "counters", "routines", "last-done"] as const;
+export const IMPORT_KINDS = ["components", "counters", "routines", "last-done", "readings"] as const;
 export type ImportKind = (typeof IMPORT_KINDS)[number];
 
 export type ImportColumn = {
@@ -83,6 +83,17 @@ export const LAYOUT: Record<ImportKind, { title: string; key: string; columns: I
       col("done_on", true, "The ship's day it was last done (YYYY-MM-DD), or when the count starts", "2025-11-20"),
       col("counter_hours", false, "The counter's reading then (needed for routines by running hours)", "61250"),
       col("remarks", false, "What was done, for the record", "Rings renewed, liner within limits"),
+    ],
+  },
+  readings: {
+    title: "Readings history: what each hour meter showed, and when (the Hour log's rules apply)",
+    key: "counter + read_at",
+    columns: [
+      col("counter", true, "The counter's name", "Main engine"),
+      col("read_at", true, "When it was read: the ship's time YYYY-MM-DD HH:MM, or with its UTC offset", "2026-03-13 09:00"),
+      col("value", true, "What the meter showed, in hours (one decimal at most)", "62431.5"),
+      col("meter", false, "Which meter: 1 for the first fitted, 2 after one replacement…; empty: the one fitted now", "1"),
+      col("remark", false, "A remark on the reading", "Read after the sea passage"),
     ],
   },
 };

@@ -5,7 +5,7 @@
 // throw.
 import ExcelJS from "exceljs";
 import Papa from "papaparse";
-import { headerKey, type ImportKind, kindOf, LAYOUT } from "./layout";
+import { headerKey, IMPORT_KINDS, type ImportKind, kindOf, LAYOUT } from "./layout";
 import type { ImportProblem } from "./problems";
 
 export const MAX_IMPORT_BYTES = 20 * 1024 * 1024;
@@ -70,7 +70,15 @@ export function readCsv(file: ImportFile): ReadResult {
   const problems: ImportProblem[] = parsed.errors
     .slice(0, 20)
     .map((e) => ({ file: file.name, row: typeof e.row === "number" ? e.row + 1 : null, column: null, message: csvMessage(e) }));
-  return withProblems(toSheet(file.name, file.name, parsed.data, delimiter === ";"), problems);
+  return withProblems(toSheet(file.name, file.name, parsed.data.map((row) => row.map(unguarded)), delimiter === ";"), problems);
+}
+
+/**
+ * A cell as it was before a CSV writer guarded it: Keelson's export (and other careful writers) put
+ * an apostrophe before a cell starting with = + - @ so that no spreadsheet runs it as a formula.
+ */
+export function unguarded(cell: string): string {
+  return /^'[=+\-@\t\r]/.test(cell) ? cell.slice(1) : cell;
 }
 
 function csvMessage(e: Papa.ParseError): string {
@@ -131,7 +139,7 @@ function toSheet(source: string, nameForKind: string, data: string[][], decimalC
   if (!kind) {
     return {
       sheets: [],
-      problems: [{ file: source, row: null, column: null, message: `Keelson cannot tell what this file holds: name it components, counters, routines or last-done (e.g. routines.csv), with the header row of its layout.` }],
+      problems: [{ file: source, row: null, column: null, message: `Keelson cannot tell what this file holds: name it ${IMPORT_KINDS.slice(0, -1).join(", ")} or ${IMPORT_KINDS.at(-1)} (e.g. routines.csv), with the header row of its layout.` }],
     };
   }
   const problems: ImportProblem[] = [];

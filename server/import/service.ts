@@ -5,7 +5,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { eq, inArray, sql } from "drizzle-orm";
 import { getDb, type Tx } from "@/db/client";
-import { component, counter, counterSegment, routine, vesselImport } from "@/db/schema";
+import { component, counter, counterSegment, reading, routine, vesselImport } from "@/db/schema";
 import type { ImportCounts } from "@/db/schema/imports";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { shipDay } from "@/server/format/hours";
@@ -55,7 +55,7 @@ export const fileSource = (upload: ImportUpload): ImportSource => ({
 
 async function prepare(tx: Tx, access: Access, vessel: VesselRef, source: ImportSource) {
   const read = await source.read(tx);
-  const rows = await loadVesselRows(tx, access, vessel);
+  const rows = await loadVesselRows(tx, access, vessel, { readings: read.sheets.some((s) => s.kind === "readings" && s.rows.length > 0) });
   const checked = checkImport(read.sheets, rows.now);
   if (source.keepBaselines) {
     const held = new Map(rows.routines.map((r) => [r.key, r]));
@@ -119,7 +119,7 @@ function contentType(name: string): string {
 
 function countsOf(diff: ImportDiff): ImportCounts {
   const of = (k: keyof ImportDiff["counts"]) => ({ created: diff.counts[k].create, changed: diff.counts[k].change, retired: diff.counts[k].retire });
-  return { counters: of("counters"), components: of("components"), routines: of("routines") };
+  return { counters: of("counters"), components: of("components"), routines: of("routines"), readings: of("readings") };
 }
 
 const CHUNK = 500;
@@ -136,14 +136,28 @@ async function write(tx: Tx, access: Access, vessel: VesselRef, checked: Checked
   // Counters: new ones with their first meter; a changed planned rate.
   const counterId = new Map(rows.counters.map((c) => [c.name.toLowerCase(), c.id]));
   let order = rows.counters.reduce((m, c) => Math.max(m, c.sortOrder), -1);
+  const history = new Map(checked.readings.map((r) => [r.counterName.toLowerCase(), r]));
   for (const c of checked.counters) {
     const action = act("counters", c.name);
     if (action === "create") {
+      const own = history.get(c.name.toLowerCase());
       const [row] = await tx
         .insert(counter)
-        .values({ companyId, vesselId: vessel.id, name: c.name, plannedHoursPerDay: c.plannedHoursPerDay, sortOrder: (order += 1) })
+        .values({
+          companyId,
+          vesselId: vessel.id,
+          name: c.name,
+          plannedHoursPerDay: c.plannedHoursPerDay,
+          sortOrder: (order += 1),
+          currentSegment: 1 + (own?.segments.length ?? 0),
+        })
         .returning({ id: counter.id });
-      await tx.insert(counterSegment).values({ companyId, counterId: row!.id, segment: 1, startedAt: now, startMeter: 0, offsetHours: 0, createdBy: access.user.id });
+      // The first meter from its first reading in the file, or from now at 0 h; later meters as the file has them.
+      const first = own?.readings[0];
+      await tx.insert(counterSegment).values([
+        { companyId, counterId: row!.id, segment: 1, startedAt: first?.readAt ?? now, startMeter: first?.meterValue ?? 0, offsetHours: 0, createdBy: access.user.id },
+        ...(own?.segments ?? []).map((m) => ({ companyId, counterId: row!.id, ...m, reason: "Meter replacement, from the imported readings", createdBy: access.user.id })),
+      ]);
       counterId.set(c.name.toLowerCase(), row!.id);
     } else if (action === "change") {
       await tx.update(counter).set({ plannedHoursPerDay: c.plannedHoursPerDay }).where(eq(counter.id, counterId.get(c.name.toLowerCase())!));
@@ -177,6 +191,30 @@ async function write(tx: Tx, access: Access, vessel: VesselRef, checked: Checked
       .set(action === "create" ? { parentId } : { ...fields(c), parentId, updatedAt: now })
       .where(eq(component.id, componentId.get(c.code)!));
   }
+
+  // Readings: the total is the meter's value and its meter's offset.
+  const offsets = new Map<string, Map<number, number>>();
+  for (const [name, held] of rows.now.readings) offsets.set(name, new Map(held.segments.map((m) => [m.segment, m.offsetHours])));
+  for (const c of checked.readings) {
+    if (offsets.has(c.counterName.toLowerCase())) continue;
+    offsets.set(c.counterName.toLowerCase(), new Map([[1, 0], ...c.segments.map((m) => [m.segment, m.offsetHours] as const)]));
+  }
+  const readingRows = checked.readings.flatMap((c) => {
+    const id = counterId.get(c.counterName.toLowerCase())!;
+    const offset = offsets.get(c.counterName.toLowerCase())!;
+    return c.readings.map((r) => ({
+      companyId,
+      vesselId: vessel.id,
+      counterId: id,
+      readAt: r.readAt,
+      segment: r.segment,
+      meterValue: r.meterValue,
+      totalHours: Math.round((r.meterValue + (offset.get(r.segment) ?? 0)) * 10) / 10,
+      enteredBy: access.user.id,
+      remark: r.remark,
+    }));
+  });
+  await inChunks(readingRows, (chunk) => tx.insert(reading).values(chunk));
 
   // Routines: new ones in chunks, changed ones one by one (a new revision), retired ones last.
   const routineId = new Map(rows.routines.map((r) => [r.key, r.id]));

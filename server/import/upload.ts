@@ -1,7 +1,7 @@
 // Reading an import upload: multipart/form-data with up to ten `file` fields (CSV files or a
 // workbook) and an optional `retire` box. The body is read up to a bound before it is parsed.
 import "server-only";
-import { readBoundedBody } from "@/server/http/bounded-body";
+import { readMultipart } from "@/server/http/bounded-body";
 import { invalidInput } from "@/server/http/problem";
 import { MAX_IMPORT_BYTES, type ImportFile } from "./read-file";
 
@@ -14,19 +14,7 @@ const tooLarge = () =>
   invalidInput([{ field: "file", message: `The files come to more than ${MAX_IMPORT_BYTES / 1024 / 1024} MB, the most one import takes. Split the plan into several imports.` }]);
 
 export async function readImportUpload(request: Request): Promise<ImportUpload> {
-  const type = request.headers.get("content-type") ?? "";
-  if (!type.startsWith("multipart/form-data")) {
-    throw invalidInput([{ field: "file", message: "Send the files as multipart/form-data, each in a field named “file”." }]);
-  }
-  const declared = Number(request.headers.get("content-length") ?? NaN);
-  if (Number.isFinite(declared) && declared > MAX_BODY_BYTES) throw tooLarge();
-  const body = await readBoundedBody(request, MAX_BODY_BYTES, tooLarge);
-  let form: FormData;
-  try {
-    form = await new Response(body, { headers: { "content-type": type } }).formData();
-  } catch {
-    throw invalidInput([{ field: "file", message: "The upload could not be read as a form; choose the files again." }]);
-  }
+  const form = await readMultipart(request, MAX_BODY_BYTES, tooLarge, "the files");
   const entries = form.getAll("file");
   if (entries.length === 0) throw invalidInput([{ field: "file", message: "Choose the plan's files: CSV files or an Excel workbook." }]);
   if (entries.length > MAX_IMPORT_FILES) throw invalidInput([{ field: "file", message: `Send at most ${MAX_IMPORT_FILES} files at once.` }]);

@@ -1,11 +1,12 @@
 // What the vessel holds now, read once for an import: its components, counters and coded routines
 // with the columns an import compares, and the company's tolerance rules and rank names.
 import "server-only";
-import { and, eq, isNull } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import type { Tx } from "@/db/client";
-import { component, counter, routine, toleranceRule } from "@/db/schema";
+import { component, counter, counterSegment, reading, routine, toleranceRule } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { loadRankNames } from "@/server/admin/rank-names";
+import type { CounterReadings } from "./check-readings";
 import type { VesselNow } from "./check-rows";
 
 export type VesselRows = {
@@ -16,7 +17,7 @@ export type VesselRows = {
   routines: (typeof routine.$inferSelect & { key: string })[];
 };
 
-export async function loadVesselRows(tx: Tx, access: Access, vessel: VesselRef): Promise<VesselRows> {
+export async function loadVesselRows(tx: Tx, access: Access, vessel: VesselRef, options: { readings?: boolean; clock?: Date } = {}): Promise<VesselRows> {
   const companyId = access.company.id;
   const [components, counters, routines, rules, rankNames] = await Promise.all([
     tx.select().from(component).where(and(eq(component.companyId, companyId), eq(component.vesselId, vessel.id))),
@@ -29,6 +30,7 @@ export async function loadVesselRows(tx: Tx, access: Access, vessel: VesselRef):
     loadRankNames(companyId),
   ]);
   const codeOf = new Map(components.map((c) => [c.id, c.code]));
+  const readings = options.readings ? await loadReadings(tx, companyId, counters) : new Map();
   const keyed = withKeys(routines, codeOf);
   return {
     components,
@@ -40,8 +42,35 @@ export async function loadVesselRows(tx: Tx, access: Access, vessel: VesselRef):
       routines: new Map(keyed.map((r) => [r.key, { id: r.id }])),
       toleranceRules: new Map(rules.map((r) => [r.name.toLowerCase(), r.id])),
       rankNames,
+      timeZone: vessel.timeZone,
+      clock: options.clock ?? new Date(),
+      readings,
     },
   };
+}
+
+/** Every counter's meters and readings: an import's readings are checked against them all. */
+async function loadReadings(tx: Tx, companyId: string, counters: (typeof counter.$inferSelect)[]) {
+  const out = new Map<string, CounterReadings & { name: string }>();
+  if (!counters.length) return out;
+  const ids = counters.map((c) => c.id);
+  const [segments, rows] = await Promise.all([
+    tx.select().from(counterSegment).where(and(eq(counterSegment.companyId, companyId), inArray(counterSegment.counterId, ids))),
+    tx
+      .select({ counterId: reading.counterId, readAt: reading.readAt, meterValue: reading.meterValue, segment: reading.segment })
+      .from(reading)
+      .where(and(eq(reading.companyId, companyId), inArray(reading.counterId, ids)))
+      .orderBy(asc(reading.readAt)),
+  ]);
+  const byId = new Map<string, CounterReadings & { name: string }>();
+  for (const c of counters) {
+    const entry = { name: c.name, currentSegment: c.currentSegment, segments: [], readings: [] };
+    byId.set(c.id, entry);
+    out.set(c.name.toLowerCase(), entry);
+  }
+  for (const s of segments) byId.get(s.counterId)?.segments.push({ segment: s.segment, startedAt: s.startedAt, offsetHours: s.offsetHours });
+  for (const r of rows) byId.get(r.counterId)?.readings.push({ readAt: r.readAt, meterValue: r.meterValue, segment: r.segment });
+  return out;
 }
 
 /**

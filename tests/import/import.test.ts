@@ -109,6 +109,7 @@ describe("a good plan", () => {
       counters: { create: 1, change: 1, same: 1, retire: 0 },
       components: { create: 4, change: 0, same: 0, retire: 0 },
       routines: { create: 4, change: 0, same: 0, retire: 0 },
+      readings: { create: 0, change: 0, same: 0, retire: 0 },
     });
     // The fixture's main engine is planned at 12 h a day; the file says 18.
     expect(res.body.changes).toContainEqual({ kind: "counters", key: "Main engine", action: "change", fields: ["planned_hours_per_day"] });
@@ -168,6 +169,51 @@ describe("a good plan", () => {
       .from(s.routine)
       .where(and(eq(s.routine.vesselId, f.vesselA.id), isNull(s.routine.retiredAt)));
     expect(open.map((r) => r.code).sort()).toEqual(["AE.1/OIL", "ME.CYL.1/OVH", "ME.CYL.2/OVH"]);
+  });
+});
+
+describe("a readings history", () => {
+  /** The fixture read the main engine at 1,000 h a day ago; these instants are counted back from it, written in UTC. */
+  const lastRead = async () =>
+    (await testDb().select().from(s.reading).where(eq(s.reading.counterId, f.counters.main.id)).orderBy(s.reading.readAt)).at(-1)!.readAt;
+  const utc = (d: Date) => `${d.toISOString().slice(0, 16)}Z`;
+  const readingsFile = (rows: [Date, number][]) =>
+    files({ name: "readings.csv", text: ["counter,read_at,value", ...rows.map(([at, v]) => `Main engine,${utc(at)},${v}`)].join("\n") });
+  const mainReadings = async () =>
+    (await testDb().select({ at: s.reading.readAt, value: s.reading.meterValue, total: s.reading.totalHours }).from(s.reading).where(eq(s.reading.counterId, f.counters.main.id)).orderBy(s.reading.readAt)).map(
+      (r) => [r.at.toISOString(), r.value, r.total],
+    );
+
+  it("adds the days before the vessel's first reading, leaves the one it has, and adds nothing the second time", async () => {
+    const last = await lastRead();
+    const hoursBefore = (h: number) => new Date(last.getTime() - h * 3_600_000);
+    const list = readingsFile([[hoursBefore(72), 950], [hoursBefore(48), 968.5], [last, 1000]]);
+    const res = await preview(list);
+    expect(res.body.problems).toEqual([]);
+    expect(res.body.counts.readings).toEqual({ create: 2, change: 0, same: 1, retire: 0 });
+    expect(res.body.changes).toEqual([{ kind: "readings", key: "Main engine", action: "create", fields: [expect.stringMatching(/^2 readings, \d{4}-\d{2}-\d{2} to \d{4}-\d{2}-\d{2}$/)] }]);
+    const applied = await apply(list);
+    expect(applied.status).toBe(201);
+    expect(applied.body.counts.readings).toEqual({ created: 2, changed: 0, retired: 0 });
+    const stored = await mainReadings();
+    expect(stored).toEqual([
+      [hoursBefore(72).toISOString(), 950, 950],
+      [hoursBefore(48).toISOString(), 968.5, 968.5],
+      [last.toISOString(), 1000, 1000],
+    ]);
+    expect((await preview(list)).body.counts.readings).toEqual({ create: 0, change: 0, same: 3, retire: 0 });
+    expect((await apply(list)).status).toBe(201);
+    expect(await mainReadings()).toEqual(stored);
+  });
+
+  it("refuses a reading that breaks the rules against the vessel's own readings, and writes nothing", async () => {
+    const last = await lastRead();
+    const before = await mainReadings();
+    const hoursBefore = (h: number) => new Date(last.getTime() - h * 3_600_000);
+    const res = await apply(readingsFile([[hoursBefore(100), 930], [hoursBefore(12), 1001]]));
+    expect(res.status).toBe(422);
+    expect(res.body.errors?.map((e) => e.message)).toEqual([expect.stringMatching(/^readings\.csv, row 3, value: Reading is higher than the next one \(1,000 h on /)]);
+    expect(await mainReadings()).toEqual(before);
   });
 });
 
@@ -252,6 +298,20 @@ describe("export and import again", () => {
     const b = await planOf(f.vesselB.id, f.vesselB.timeZone);
     expect(a.routines).toHaveLength(3);
     expect(b).toEqual(a);
+    // The readings history came along: every reading of A's counters on B's counters of the same name.
+    const readingsOf = async (vesselId: string) =>
+      (
+        await testDb()
+          .select({ counter: s.counter.name, at: s.reading.readAt, value: s.reading.meterValue, total: s.reading.totalHours })
+          .from(s.reading)
+          .innerJoin(s.counter, eq(s.counter.id, s.reading.counterId))
+          .where(eq(s.reading.vesselId, vesselId))
+      )
+        .map((r) => `${r.counter} ${r.at.toISOString()} ${r.value} ${r.total}`)
+        .sort();
+    const readingsA = await readingsOf(f.vesselA.id);
+    expect(readingsA.length).toBeGreaterThanOrEqual(4);
+    expect(await readingsOf(f.vesselB.id)).toEqual(readingsA);
   });
 });
 

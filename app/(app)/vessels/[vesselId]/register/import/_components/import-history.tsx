@@ -23,7 +23,7 @@ export function ImportHistory({ vesselId, refresh }: { vesselId: string; refresh
               {new Date(i.importedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })} by {i.importedBy ?? "a former user"}:{" "}
               {i.files.join(", ")} — routines: {c.routines.created} new, {c.routines.changed} changed, {c.routines.retired} retired;
               components: {c.components.created} new, {c.components.changed} changed; counters: {c.counters.created} new,{" "}
-              {c.counters.changed} changed
+              {c.counters.changed} changed{c.readings?.created ? `; readings: ${c.readings.created} added` : ""}
             </li>
           );
         })}

@@ -7,6 +7,7 @@ const KINDS = [
   ["components", "Components"],
   ["counters", "Counters"],
   ["routines", "Routines"],
+  ["readings", "Readings"],
 ] as const;
 const ACTION = { create: "new", change: "changed", retire: "retired" } as const;
 
@@ -91,8 +92,16 @@ export function PreviewView({ preview, onApply, busy, what = "import" }: Props) 
                 <ul className="mt-2 max-h-80 overflow-auto text-sm">
                   {preview.changes.map((c) => (
                     <li key={`${c.kind}:${c.key}`}>
-                      <span className="font-mono">{c.key}</span> ({c.kind.replace(/s$/, "")}): {ACTION[c.action]}
-                      {c.fields.length > 0 && ` — ${c.fields.join(", ")}`}
+                      {c.kind === "readings" ? (
+                        <>
+                          <span className="font-mono">{c.key}</span> (readings): {c.fields.join(", ")} to add
+                        </>
+                      ) : (
+                        <>
+                          <span className="font-mono">{c.key}</span> ({c.kind.replace(/s$/, "")}): {ACTION[c.action]}
+                          {c.fields.length > 0 && ` — ${c.fields.join(", ")}`}
+                        </>
+                      )}
                     </li>
                   ))}
                   {preview.moreChanges > 0 && <li>…and {preview.moreChanges} more.</li>}

@@ -58,7 +58,8 @@ export function ImportView({ vesselId, sisters }: { vesselId: string; sisters: {
       const changed = c.components.changed + c.counters.changed + c.routines.changed;
       setDone(
         `Imported: ${many(c.components.created, "component")}, ${many(c.counters.created, "counter")} and ` +
-          `${many(c.routines.created, "routine")} created; ${changed} changed; ${many(c.routines.retired, "routine")} retired. ` +
+          `${many(c.routines.created, "routine")} created; ${changed} changed; ${many(c.routines.retired, "routine")} retired` +
+          `${c.readings?.created ? `; ${many(c.readings.created, "reading")} added` : ""}. ` +
           "The Backlog shows the new work within a minute.",
       );
       setStep({ kind: "idle" });
