@@ -1,7 +1,8 @@
-// Importing a vessel's plan (issue 12): the bench vessel's register, counters, 3,000 routines and a
-// last-done row per routine, as four CSV files and as one workbook, previewed and applied over HTTP
+// Importing a vessel's plan (issue 12): the bench vessel's register, counters, 3,000 routines, a
+// last-done row per routine and a year of daily readings of every counter, as five CSV files and as
+// one workbook, previewed and applied over HTTP
 // into empty vessels, beside a floor measured in the same run: one INSERT … SELECT FROM unnest of
-// the same component and routine rows into temporary tables (what the database needs at least).
+// the same component, routine and reading rows into temporary tables (what the database needs at least).
 import { writeFileSync } from "node:fs";
 import { performance } from "node:perf_hooks";
 import ExcelJS from "exceljs";
@@ -50,7 +51,18 @@ const lastDone = routines.map((r, i) => ({
   done_on: `2026-${String(1 + (i % 10)).padStart(2, "0")}-${String(1 + Math.floor(rnd() * 27)).padStart(2, "0")}`,
   counter_hours: r.every_hours ? String(1000 + (i % 500)) : "",
 }));
-const kinds = { components, counters, routines, "last-done": lastDone } as const;
+// A year of daily readings at 09:00 UTC (the bench vessels keep UTC), the last one yesterday.
+const DAYS = 365;
+const firstDay = Date.UTC(new Date().getUTCFullYear(), new Date().getUTCMonth(), new Date().getUTCDate()) - DAYS * 86_400_000;
+const readings = counters.flatMap((c, i) => {
+  let meter = 1000 + i * 250;
+  return Array.from({ length: DAYS }, (_, d) => {
+    if (d > 0) meter += Math.round(Number(c.planned_hours_per_day) * (0.5 + rnd() * 0.5) * 10) / 10;
+    const day = new Date(firstDay + d * 86_400_000).toISOString().slice(0, 10);
+    return { counter: c.counter, read_at: `${day} 09:00`, value: meter.toFixed(1) };
+  });
+});
+const kinds = { components, counters, routines, "last-done": lastDone, readings } as const;
 
 const csvOf = (rows: Record<string, string>[]) => {
   const head = Object.keys(rows[0]!);
@@ -110,8 +122,10 @@ async function timeFormat(label: string, files: { name: string; bytes: Uint8Arra
     const applied = await post(vesselId, "", files);
     const repeat = await post(vesselId, "", files);
     // What was timed did the whole job: every routine created once, nothing the second time.
-    const created = (x: typeof applied) => (x.body.counts as { routines: { created: number; changed: number } }).routines;
-    if (created(applied).created !== ROUTINES || created(repeat).created + created(repeat).changed !== 0) {
+    type Counts = Record<"routines" | "readings", { created: number; changed: number }>;
+    const created = (x: typeof applied) => (x.body.counts as Counts).routines;
+    const added = (x: typeof applied) => (x.body.counts as Counts).readings.created;
+    if (created(applied).created !== ROUTINES || created(repeat).created + created(repeat).changed !== 0 || added(applied) !== readings.length || added(repeat) !== 0) {
       throw new Error(`${label}: ${JSON.stringify(applied.body.counts)} then ${JSON.stringify(repeat.body.counts)}`);
     }
     previews.push(preview.ms);
@@ -141,6 +155,12 @@ async function floor(): Promise<number> {
         routines.map((r) => r.title),
         routines.map((r) => r.team),
       ]);
+      await client.query("create temporary table bench_reading (counter text, read_at timestamptz, value numeric) on commit drop");
+      await client.query("insert into bench_reading select * from unnest($1::text[], $2::timestamptz[], $3::numeric[])", [
+        readings.map((r) => r.counter),
+        readings.map((r) => `${r.read_at}Z`),
+        readings.map((r) => r.value),
+      ]);
       await client.query("commit");
       times.push(performance.now() - start);
     }
@@ -152,15 +172,15 @@ async function floor(): Promise<number> {
 
 await post(await emptyVessel(), "/preview", csvFiles); // warm-up: compiled routes, pool connections
 const bare = await floor();
-const results = [await timeFormat("four CSV files", csvFiles), await timeFormat("one workbook (.xlsx)", xlsx)];
+const results = [await timeFormat("five CSV files", csvFiles), await timeFormat("one workbook (.xlsx)", xlsx)];
 await closeTestDb();
 
 const size = (files: { bytes: Uint8Array }[]) => `${Math.round(files.reduce((t, x) => t + x.bytes.byteLength, 0) / 1024)} kB`;
 const md = [
-  `| import of ${COMPONENTS} components, ${COUNTERS} counters, ${ROUTINES.toLocaleString("en")} routines and ${ROUTINES.toLocaleString("en")} last-done rows (median of ${RUNS}) | preview (s) | apply into an empty vessel (s) | the same files again (s) | apply ÷ floor |`,
+  `| import of ${COMPONENTS} components, ${COUNTERS} counters, ${ROUTINES.toLocaleString("en")} routines, ${ROUTINES.toLocaleString("en")} last-done rows and ${readings.length.toLocaleString("en")} readings (median of ${RUNS}) | preview (s) | apply into an empty vessel (s) | the same files again (s) | apply ÷ floor |`,
   "| --- | --- | --- | --- | --- |",
-  ...results.map((r) => `| ${r.label} (${size(r.label.startsWith("four") ? csvFiles : xlsx)}) | ${secs(r.preview)} | ${secs(r.apply)} | ${secs(r.again)} | ${(r.apply / bare).toFixed(0)}× |`),
-  `| floor: one INSERT … SELECT FROM unnest of the same component and routine rows into temporary tables | — | ${secs(bare)} | — | 1× |`,
+  ...results.map((r) => `| ${r.label} (${size(r.label.startsWith("five") ? csvFiles : xlsx)}) | ${secs(r.preview)} | ${secs(r.apply)} | ${secs(r.again)} | ${(r.apply / bare).toFixed(0)}× |`),
+  `| floor: one INSERT … SELECT FROM unnest of the same component, routine and reading rows into temporary tables | — | ${secs(bare)} | — | 1× |`,
 ].join("\n");
 writeFileSync("bench-output/import.md", md + "\n");
 writeFileSync("bench-output/import.json", JSON.stringify({ bare, results }, null, 2));

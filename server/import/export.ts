@@ -4,6 +4,7 @@
 import "server-only";
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import ExcelJS from "exceljs";
+import JSZip from "jszip";
 import { getDb } from "@/db/client";
 import { completion, counter, reading, toleranceRule, workOrder } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
@@ -119,4 +120,11 @@ export async function workbookOf(all: Record<ImportKind, Row[]>): Promise<Uint8A
     });
   }
   return new Uint8Array(await book.xlsx.writeBuffer());
+}
+
+/** A zip of one CSV per kind, named as the import knows them (components.csv…). */
+export async function zipOf(all: Record<ImportKind, Row[]>): Promise<Uint8Array> {
+  const zip = new JSZip();
+  for (const kind of IMPORT_KINDS) zip.file(`${kind}.csv`, `\uFEFF${kindCsv(kind, all[kind])}\r\n`);
+  return zip.generateAsync({ type: "uint8array", compression: "DEFLATE" });
 }

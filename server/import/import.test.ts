@@ -84,7 +84,7 @@ describe("files Keelson cannot read", () => {
     const r = await checked([latin1, file("plan.pdf", "%PDF"), file("notes.csv", "what,ever\n1,2\n")]);
     expect(r.lines).toEqual([
       "components.csv: The file is not UTF-8 text: in the spreadsheet program, save it as “CSV UTF-8 (comma delimited)”.",
-      "plan.pdf: Keelson reads CSV files (.csv) and Excel workbooks (.xlsx); save the file as one of those.",
+      "plan.pdf: Keelson reads CSV files (.csv), a zip of CSV files (.zip) and Excel workbooks (.xlsx); save the file as one of those.",
       "notes.csv: Keelson cannot tell what this file holds: name it components, counters, routines, last-done or readings (e.g. routines.csv), with the header row of its layout.",
     ]);
   });
@@ -322,5 +322,46 @@ describe("cells Keelson's own CSV export guarded against formulas", () => {
     expect(csv).toContain(`"'=Main engine"`);
     const r = await readImportFiles([file("counters.csv", csv)]);
     expect(r.sheets[0]!.rows.map((x) => x.values.counter)).toEqual(["=Main engine", "-Aux", "'O'Brien pump"]);
+  });
+});
+
+describe("a zip of CSV files", () => {
+  const zipOf = async (files: Record<string, string>, compression: "DEFLATE" | "STORE" = "DEFLATE") => {
+    const JSZip = (await import("jszip")).default;
+    const zip = new JSZip();
+    for (const [name, text] of Object.entries(files)) zip.file(name, text);
+    return { name: "alpha-plan.zip", bytes: await zip.generateAsync({ type: "uint8array", compression }) };
+  };
+
+  it("is read as its CSV files, each named inside the zip", async () => {
+    const zip = await zipOf({ "plan/counters.csv": COUNTERS, "plan/components.csv": COMPONENTS, "__MACOSX/plan/._counters.csv": "junk" });
+    const r = await checked([zip]);
+    expect(r.lines).toEqual([]);
+    expect(r.counters).toHaveLength(2);
+    expect(r.components).toHaveLength(3);
+    const read = await readImportFiles([zip]);
+    expect(read.sheets.map((s) => s.source).sort()).toEqual(["alpha-plan.zip › components.csv", "alpha-plan.zip › counters.csv"]);
+  });
+
+  it("refuses a zip that unpacks past the limit before unpacking it, and one without CSV files", async () => {
+    // A table of contents announcing one entry of 201 MB (APPNOTE.TXT 4.3.12 and 4.3.16): nothing else is read.
+    const name = new TextEncoder().encode("counters.csv");
+    const bytes = new Uint8Array(46 + name.length + 22);
+    const view = new DataView(bytes.buffer);
+    view.setUint32(0, 0x02014b50, true);
+    view.setUint32(24, 201 * 1024 * 1024, true);
+    view.setUint16(28, name.length, true);
+    bytes.set(name, 46);
+    const end = 46 + name.length;
+    view.setUint32(end, 0x06054b50, true);
+    view.setUint16(end + 10, 1, true);
+    view.setUint32(end + 16, 0, true);
+    const r = await readImportFiles([{ name: "alpha-plan.zip", bytes }]);
+    expect(r.sheets).toEqual([]);
+    expect(r.problems.map(problemLine)).toEqual([
+      "alpha-plan.zip: The zip file unpacks to 201 MB, more than the 200 MB Keelson reads at once: split the plan into several imports.",
+    ]);
+    const none = await readImportFiles([await zipOf({ "readme.txt": "hello" })]);
+    expect(none.problems.map(problemLine)).toEqual(["alpha-plan.zip: The zip file holds no CSV file."]);
   });
 });

@@ -4,13 +4,23 @@
 // loop is bounded by the row limit. What cannot be read is a problem with the file's name, never a
 // throw.
 import ExcelJS from "exceljs";
+import JSZip from "jszip";
 import Papa from "papaparse";
 import { headerKey, IMPORT_KINDS, type ImportKind, kindOf, LAYOUT } from "./layout";
 import type { ImportProblem } from "./problems";
+import { zipUnpackedSize } from "./zip-size";
 
 export const MAX_IMPORT_BYTES = 20 * 1024 * 1024;
 /** Rows per file or worksheet: a vessel's 3,000 routines many times over. */
 export const MAX_IMPORT_ROWS = 20_000;
+/**
+ * What a workbook or a zip of CSV files may unpack to. A 20 MB workbook of repeated cells can unpack
+ * to gigabytes; this is read off the zip's table of contents before anything is unpacked, and a zip
+ * of CSV files is counted again as it unpacks (a table of contents can lie).
+ */
+export const MAX_UNPACKED_BYTES = 200 * 1024 * 1024;
+/** CSV files in one zip: one per kind, with room for a readme or two. */
+const MAX_ZIP_FILES = 10;
 
 export type ImportRow = { line: number; values: Record<string, string> };
 export type ImportSheet = {
@@ -36,7 +46,13 @@ export async function readImportFiles(files: ImportFile[]): Promise<ReadResult> 
     return { sheets, problems };
   }
   for (const file of files) {
-    const read = /\.xlsx$/i.test(file.name) ? await readWorkbook(file) : /\.(csv|txt)$/i.test(file.name) ? readCsv(file) : unknownType(file);
+    const read = /\.xlsx$/i.test(file.name)
+      ? await readWorkbook(file)
+      : /\.zip$/i.test(file.name)
+        ? await readZip(file)
+        : /\.(csv|txt)$/i.test(file.name)
+          ? readCsv(file)
+          : unknownType(file);
     sheets.push(...read.sheets);
     problems.push(...read.problems);
   }
@@ -50,7 +66,7 @@ export async function readImportFiles(files: ImportFile[]): Promise<ReadResult> 
 }
 
 function unknownType(file: ImportFile): ReadResult {
-  return { sheets: [], problems: [{ file: file.name, row: null, column: null, message: "Keelson reads CSV files (.csv) and Excel workbooks (.xlsx); save the file as one of those." }] };
+  return { sheets: [], problems: [{ file: file.name, row: null, column: null, message: "Keelson reads CSV files (.csv), a zip of CSV files (.zip) and Excel workbooks (.xlsx); save the file as one of those." }] };
 }
 
 export function readCsv(file: ImportFile): ReadResult {
@@ -87,7 +103,86 @@ function csvMessage(e: Papa.ParseError): string {
   return e.message;
 }
 
+/** What is wrong with a zip's table of contents, or its size past the limit; null when it may be unpacked. */
+function unpackProblem(file: ImportFile, what: string): ImportProblem | null {
+  const size = zipUnpackedSize(file.bytes);
+  const at = { file: file.name, row: null, column: null };
+  if ("problem" in size) {
+    const again = what === "workbook" ? "save it again as an Excel workbook (.xlsx)" : `make it again (${size.problem})`;
+    return { ...at, message: `The ${what} could not be opened: ${again}.` };
+  }
+  if (size.unpackedBytes > MAX_UNPACKED_BYTES) {
+    return { ...at, message: `The ${what} unpacks to ${MB(size.unpackedBytes)}, more than the ${MB(MAX_UNPACKED_BYTES)} Keelson reads at once: split the plan into several imports.` };
+  }
+  return null;
+}
+
+/** A zip of CSV files (Keelson's own export, or one a person made): each CSV read as if uploaded alone. */
+async function readZip(file: ImportFile): Promise<ReadResult> {
+  const problem = unpackProblem(file, "zip file");
+  if (problem) return { sheets: [], problems: [problem] };
+  const at = { file: file.name, row: null, column: null };
+  const zip = await JSZip.loadAsync(file.bytes).catch(() => null);
+  if (!zip) return { sheets: [], problems: [{ ...at, message: "The zip file could not be opened: make it again." }] };
+  const entries = Object.values(zip.files).filter((e) => !e.dir && /\.csv$/i.test(e.name) && !/(^|\/)(__MACOSX|\.)/.test(e.name));
+  if (!entries.length) return { sheets: [], problems: [{ ...at, message: "The zip file holds no CSV file." }] };
+  if (entries.length > MAX_ZIP_FILES) return { sheets: [], problems: [{ ...at, message: `The zip file holds ${entries.length} CSV files; put at most ${MAX_ZIP_FILES} in one import.` }] };
+  const result: ReadResult = { sheets: [], problems: [] };
+  let budget = MAX_UNPACKED_BYTES;
+  for (const entry of entries) {
+    const bytes = await unpackBounded(entry, budget);
+    const name = `${file.name} › ${entry.name.split("/").at(-1)}`;
+    if (!bytes) return { sheets: [], problems: [{ ...at, message: `The zip file unpacks to more than ${MB(MAX_UNPACKED_BYTES)}: split the plan into several imports.` }] };
+    budget -= bytes.byteLength;
+    const read = readCsv({ name, bytes });
+    result.sheets.push(...read.sheets);
+    result.problems.push(...read.problems);
+  }
+  return result;
+}
+
+type ZipStream = {
+  on(event: "data", listener: (chunk: Uint8Array) => void): ZipStream;
+  on(event: "error", listener: (error: Error) => void): ZipStream;
+  on(event: "end", listener: () => void): ZipStream;
+  pause(): ZipStream;
+  resume(): ZipStream;
+};
+
+/** One entry unpacked chunk by chunk, given up (null) once it passes `limit` bytes. */
+function unpackBounded(entry: JSZip.JSZipObject, limit: number): Promise<Uint8Array | null> {
+  return new Promise((resolve, reject) => {
+    const chunks: Uint8Array[] = [];
+    let total = 0;
+    // JSZip's documented internalStream (its typings lack it): chunks as they are inflated.
+    const stream = (entry as unknown as { internalStream(type: "uint8array"): ZipStream }).internalStream("uint8array");
+    stream
+      .on("data", (chunk: Uint8Array) => {
+        total += chunk.byteLength;
+        if (total > limit) {
+          stream.pause();
+          resolve(null);
+          return;
+        }
+        chunks.push(chunk);
+      })
+      .on("error", reject)
+      .on("end", () => {
+        const all = new Uint8Array(total);
+        let offset = 0;
+        for (const c of chunks) {
+          all.set(c, offset);
+          offset += c.byteLength;
+        }
+        resolve(all);
+      })
+      .resume();
+  });
+}
+
 async function readWorkbook(file: ImportFile): Promise<ReadResult> {
+  const problem = unpackProblem(file, "workbook");
+  if (problem) return { sheets: [], problems: [problem] };
   const book = new ExcelJS.Workbook();
   try {
     // exceljs' types want a Node Buffer; a view over the same bytes.

@@ -19,4 +19,6 @@ export function templateCsv(kind: ImportKind, example: boolean): string {
 
 export const ExportQuery = z.object({
   kind: z.enum(IMPORT_KINDS, { message: `kind must be one of ${IMPORT_KINDS.join(", ")}.` }).optional(),
+  /** Without a kind: one workbook, or a zip of a CSV per kind. */
+  format: z.enum(["xlsx", "zip"], { message: "format must be xlsx or zip." }).default("xlsx"),
 });

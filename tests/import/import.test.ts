@@ -315,6 +315,23 @@ describe("export and import again", () => {
   });
 });
 
+describe("the plan as a zip of CSV files", () => {
+  it("is exported and, checked against the vessel it came from, changes nothing", async () => {
+    const res = await fetch(`${BASE_URL}/api/vessels/${f.vesselA.id}/export?format=zip`, { headers: { cookie: chief.cookie } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/zip");
+    const form = new FormData();
+    form.append("file", new Blob([new Uint8Array(await res.arrayBuffer())]), "alpha.zip");
+    const check = await fetch(`${BASE_URL}/api/vessels/${f.vesselA.id}/import/preview`, { method: "POST", headers: { origin: BASE_URL, cookie: chief.cookie }, body: form });
+    const preview = (await check.json()) as ImportPreview;
+    expect(preview.problems).toEqual([]);
+    expect(preview.files).toEqual(["alpha.zip"]);
+    expect(preview.changes).toEqual([]);
+    expect(preview.counts.routines.same).toBe(3);
+    expect(preview.counts.readings.same).toBeGreaterThanOrEqual(4);
+  });
+});
+
 describe("copy the plan to a sister ship", () => {
   it("previews and copies register, counters and routines; the routines count from today at 0 h", async () => {
     const admin = await signIn(f.users.admin.email, PASSWORD);

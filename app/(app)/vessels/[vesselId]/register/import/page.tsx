@@ -40,12 +40,15 @@ export default async function ImportPage({ params }: { params: Promise<{ vesselI
           Take the plan out
         </h2>
         <p className="max-w-prose text-sm text-ink-700 dark:text-ink-200">
-          {vessel.name}’s register, counters, routines and last-done days in the same layout: imported into an empty
-          vessel, they give the same plan. A routine made in Keelson gets its component’s code and a number as its code.
+          {vessel.name}’s register, counters, routines, last-done days and readings in the same layout: imported into
+          an empty vessel, they give the same plan. A routine made in Keelson gets its component’s code and a number as its code.
         </p>
         <p className="flex flex-wrap gap-4 text-sm">
           <a className="text-tide-700 underline underline-offset-2 dark:text-tide-300" href={`/api/vessels/${vessel.id}/export`} download>
             The whole plan as a workbook (.xlsx)
+          </a>
+          <a className="text-tide-700 underline underline-offset-2 dark:text-tide-300" href={`/api/vessels/${vessel.id}/export?format=zip`} download>
+            The whole plan as CSV files (.zip)
           </a>
           {IMPORT_KINDS.map((kind) => (
             <a key={kind} className="text-tide-700 underline underline-offset-2 dark:text-tide-300" href={`/api/vessels/${vessel.id}/export?kind=${kind}`} download>

@@ -86,7 +86,7 @@ export function ImportView({ vesselId, sisters }: { vesselId: string; sisters: {
             id="import-files"
             type="file"
             multiple
-            accept=".csv,.xlsx,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet"
+            accept=".csv,.xlsx,.zip,text/csv,application/zip,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet"
             className="field"
             disabled={busy}
             onChange={(e) => {
