@@ -1,6 +1,6 @@
 // What an import would do to the vessel: each counter, component and routine of the files is new,
-// changed (and which of its fields) or the same; with "retire" ticked, the routines the file no
-// longer lists are retired. Over the rows loaded by vessel-now.ts; it reads nothing itself.
+// changed (and which of its fields) or the same; with "retire" ticked, the routines and counters
+// the files no longer list are retired. Over the rows loaded by vessel-now.ts; it reads nothing itself.
 import "server-only";
 import { shipDay } from "@/server/format/hours";
 import { routineColumns } from "@/server/routines/queries";
@@ -20,6 +20,9 @@ function norm(v: unknown): unknown {
   if (v === undefined || v === "") return null;
   return v;
 }
+
+/** The change of a retired routine the file lists again: back in use, with its history. */
+export const BACK_IN_USE = "back in use";
 
 export function diffImport(checked: CheckedImport, rows: VesselRows, timeZone: string, retire: boolean): ImportDiff {
   const counts = {
@@ -70,14 +73,15 @@ export function diffImport(checked: CheckedImport, rows: VesselRows, timeZone: s
   const routineByCode = new Map(rows.routines.map((r) => [r.key, r]));
   const componentIdOf = (code: string) => componentByCode.get(code)?.id ?? `new:${code}`;
   for (const r of checked.routines) {
-    const was = routineByCode.get(r.code);
+    const retired = routineByCode.has(r.code) ? undefined : rows.retired.get(r.code);
+    const was = routineByCode.get(r.code) ?? retired;
     if (!was) {
       note("routines", r.code, null);
       continue;
     }
     const next = routineColumns({ ...r.routine, componentId: componentIdOf(r.componentCode) }, timeZone);
     const fields = (Object.keys(next) as (keyof typeof next)[]).filter((k) => !same(was[k], next[k]));
-    note("routines", r.code, [...new Set(fields.map((f) => ROUTINE_COLUMN[f] ?? f))]);
+    note("routines", r.code, [...(retired ? [BACK_IN_USE] : []), ...new Set(fields.map((f) => ROUTINE_COLUMN[f] ?? f))]);
   }
   if (retire && checked.routines.length) {
     const listed = new Set(checked.routines.map((r) => r.code));
@@ -85,6 +89,14 @@ export function diffImport(checked: CheckedImport, rows: VesselRows, timeZone: s
       if (listed.has(r.key)) continue;
       counts.routines.retire += 1;
       changes.push({ kind: "routines", key: r.key, action: "retire", fields: [] });
+    }
+  }
+  if (retire && checked.counters.length) {
+    const listed = new Set(checked.counters.map((c) => c.name.toLowerCase()));
+    for (const c of rows.counters) {
+      if (listed.has(c.name.toLowerCase())) continue;
+      counts.counters.retire += 1;
+      changes.push({ kind: "counters", key: c.name, action: "retire", fields: [] });
     }
   }
   for (const c of checked.readings) {

@@ -64,11 +64,31 @@ async function prepare(tx: Tx, access: Access, vessel: VesselRef, source: Import
       if (was) r.routine = { ...r.routine, baselineAt: was.baselineAt ? shipDay(was.baselineAt, vessel.timeZone) : null, baselineHours: was.baselineHours };
     }
   }
-  const problems = [...read.problems, ...checked.problems];
+  const diff = diffImport(checked, rows, vessel.timeZone, source.retire);
+  const problems = [...read.problems, ...checked.problems, ...stillCounting(read, checked, rows, diff)];
   if (!problems.length && !read.sheets.some((s) => s.rows.length)) {
     problems.push({ file: source.names.join(", "), row: null, column: null, message: "There are no rows to import." });
   }
-  return { checked, rows, problems, diff: diffImport(checked, rows, vessel.timeZone, source.retire) };
+  return { checked, rows, problems, diff };
+}
+
+/** A counter the files would retire while a component would still count its hours. */
+function stillCounting(read: ReadResult, checked: CheckedImport, rows: VesselRows, diff: ImportDiff): ImportProblem[] {
+  const retired = diff.changes.filter((c) => c.kind === "counters" && c.action === "retire");
+  if (!retired.length) return [];
+  const file = read.sheets.find((s) => s.kind === "counters")?.source ?? "counters";
+  // Each component's counter after the import: the file's word, or the vessel's for a component the file leaves alone.
+  const inFile = new Map(checked.components.map((c) => [c.code, c.counterName?.toLowerCase() ?? null]));
+  const counterName = new Map(rows.counters.map((c) => [c.id, c.name.toLowerCase()]));
+  const counting = new Map<string, string[]>();
+  for (const c of rows.components) if (!inFile.has(c.code)) inFile.set(c.code, c.counterId ? (counterName.get(c.counterId) ?? null) : null);
+  for (const [code, name] of inFile) if (name) counting.set(name, [...(counting.get(name) ?? []), code]);
+  return retired.flatMap((c) => {
+    const users = counting.get(c.key.toLowerCase());
+    if (!users?.length) return [];
+    const named = `${users.slice(0, 5).join(", ")}${users.length > 5 ? ` and ${users.length - 5} more` : ""}`;
+    return [{ file, row: null, column: "counter", message: `“${c.key}” is not in the counters file, but ${named} still count${users.length === 1 ? "s" : ""} its hours: give ${users.length === 1 ? "it" : "them"} another counter in the components file, or keep “${c.key}” in the counters file.` }];
+  });
 }
 
 export async function previewImport(access: Access, vessel: VesselRef, source: ImportSource): Promise<ImportPreview> {
@@ -217,7 +237,7 @@ async function write(tx: Tx, access: Access, vessel: VesselRef, checked: Checked
   await inChunks(readingRows, (chunk) => tx.insert(reading).values(chunk));
 
   // Routines: new ones in chunks, changed ones one by one (a new revision), retired ones last.
-  const routineId = new Map(rows.routines.map((r) => [r.key, r.id]));
+  const routineId = new Map([...[...rows.retired.values()].map((r) => [r.key, r.id] as const), ...rows.routines.map((r) => [r.key, r.id] as const)]);
   const columns = (r: CheckedImport["routines"][number]) =>
     routineColumns({ ...r.routine, componentId: componentId.get(r.componentCode)! }, vessel.timeZone);
   const newRoutines = checked.routines.filter((r) => act("routines", r.code) === "create");
@@ -229,9 +249,11 @@ async function write(tx: Tx, access: Access, vessel: VesselRef, checked: Checked
     await tx
       .update(routine)
       // A routine made in the app takes its key as its code from now on.
-      .set({ ...columns(r), code: r.code, updatedAt: now, revision: sql`${routine.revision} + 1` })
+      .set({ ...columns(r), code: r.code, retiredAt: null, updatedAt: now, revision: sql`${routine.revision} + 1` })
       .where(eq(routine.id, routineId.get(r.code)!));
   }
+  const retiredCounters = changes.filter((c) => c.kind === "counters" && c.action === "retire").map((c) => counterId.get(c.key.toLowerCase())!);
+  if (retiredCounters.length) await tx.update(counter).set({ retiredAt: now }).where(inArray(counter.id, retiredCounters));
   const retired = changes.filter((c) => c.kind === "routines" && c.action === "retire").map((c) => routineId.get(c.key)!);
   if (retired.length) {
     await tx.update(routine).set({ retiredAt: now, updatedAt: now, revision: sql`${routine.revision} + 1` }).where(inArray(routine.id, retired));

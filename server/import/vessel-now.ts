@@ -1,7 +1,7 @@
 // What the vessel holds now, read once for an import: its components, counters and coded routines
 // with the columns an import compares, and the company's tolerance rules and rank names.
 import "server-only";
-import { and, asc, eq, inArray, isNull } from "drizzle-orm";
+import { and, asc, eq, inArray, isNotNull, isNull, or } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { component, counter, counterSegment, reading, routine, toleranceRule } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
@@ -15,6 +15,8 @@ export type VesselRows = {
   counters: (typeof counter.$inferSelect)[];
   /** The vessel's live routines, each with its key: its code, or one derived for a routine without. */
   routines: (typeof routine.$inferSelect & { key: string })[];
+  /** Retired routines by code: a file that lists one again brings it back, with its history. */
+  retired: Map<string, typeof routine.$inferSelect & { key: string }>;
 };
 
 export async function loadVesselRows(tx: Tx, access: Access, vessel: VesselRef, options: { readings?: boolean; clock?: Date } = {}): Promise<VesselRows> {
@@ -25,17 +27,22 @@ export async function loadVesselRows(tx: Tx, access: Access, vessel: VesselRef, 
     tx
       .select()
       .from(routine)
-      .where(and(eq(routine.companyId, companyId), eq(routine.vesselId, vessel.id), isNull(routine.retiredAt))),
+      .where(and(eq(routine.companyId, companyId), eq(routine.vesselId, vessel.id), or(isNull(routine.retiredAt), isNotNull(routine.code)))),
     tx.select({ id: toleranceRule.id, name: toleranceRule.name }).from(toleranceRule).where(eq(toleranceRule.companyId, companyId)),
     loadRankNames(companyId),
   ]);
   const codeOf = new Map(components.map((c) => [c.id, c.code]));
   const readings = options.readings ? await loadReadings(tx, companyId, counters) : new Map();
-  const keyed = withKeys(routines, codeOf);
+  const keyed = withKeys(
+    routines.filter((r) => !r.retiredAt),
+    codeOf,
+  );
+  const retired = new Map(routines.filter((r) => r.retiredAt && r.code).map((r) => [r.code!, { ...r, key: r.code! }]));
   return {
     components,
     counters,
     routines: keyed,
+    retired,
     now: {
       components: new Map(components.map((c) => [c.code, { id: c.id, parentCode: c.parentId ? (codeOf.get(c.parentId) ?? null) : null }])),
       counters: new Map(counters.map((c) => [c.name.toLowerCase(), { id: c.id, name: c.name }])),

@@ -172,6 +172,27 @@ describe("a good plan", () => {
   });
 });
 
+describe("retiring counters", () => {
+  it("retires a counter the counters file no longer lists, only when asked and when no component still counts its hours", async () => {
+    const without = (name: string) => files({ name: "counters.csv", text: COUNTERS.split("\n").filter((l) => !l.startsWith(name)).join("\n") });
+    const refused = await preview(without("Generator 1"), true);
+    expect(refused.body.problems).toEqual([
+      {
+        file: "counters.csv",
+        row: null,
+        column: "counter",
+        message: "“Generator 1” is not in the counters file, but AE.1 still counts its hours: give it another counter in the components file, or keep “Generator 1” in the counters file.",
+      },
+    ]);
+    expect((await preview(without("Emergency generator"))).body.counts.counters.retire).toBe(0);
+    const applied = await apply(without("Emergency generator"), true);
+    expect(applied.status).toBe(201);
+    expect(applied.body.counts.counters).toEqual({ created: 0, changed: 0, retired: 1 });
+    const [emergency] = await testDb().select().from(s.counter).where(and(eq(s.counter.vesselId, f.vesselA.id), eq(s.counter.name, "Emergency generator")));
+    expect(emergency!.retiredAt).not.toBeNull();
+  });
+});
+
 describe("a readings history", () => {
   /** The fixture read the main engine at 1,000 h a day ago; these instants are counted back from it, written in UTC. */
   const lastRead = async () =>
@@ -339,11 +360,11 @@ describe("copy the plan to a sister ship", () => {
       .insert(s.vessel)
       .values({ companyId: f.companyId, name: "Charlie sister", code: "CHAR", imoNumber: "9074729", timeZone: "UTC" })
       .returning();
-    const copy = (apply: boolean, fromVesselId = f.vesselA.id, session = admin, to = sister!.id) =>
+    const copy = (apply: boolean, onlyMissing = false, fromVesselId = f.vesselA.id, session = admin, to = sister!.id) =>
       fetch(`${BASE_URL}/api/vessels/${to}/import/copy`, {
         method: "POST",
         headers: { origin: BASE_URL, cookie: session.cookie, "content-type": "application/json" },
-        body: JSON.stringify({ fromVesselId, apply }),
+        body: JSON.stringify({ fromVesselId, apply, onlyMissing }),
       });
     const preview = (await (await copy(false)).json()) as ImportPreview;
     expect(preview.problems).toEqual([]);
@@ -362,6 +383,23 @@ describe("copy the plan to a sister ship", () => {
     // Copied again, nothing changes: the routines the ship already has keep their own baselines.
     const again = (await (await copy(false)).json()) as ImportPreview;
     expect(again.counts.routines).toEqual({ create: 0, change: 0, same: 3, retire: 0 });
+
+    // The sister ship's own change to a routine stays when only what she lacks is added; a routine she
+    // retired comes back (with its history) either way.
+    const sisterRoutine = async (code: string) =>
+      (await testDb().select().from(s.routine).where(and(eq(s.routine.vesselId, sister!.id), eq(s.routine.code, code))))[0]!;
+    await testDb().update(s.routine).set({ title: "Lube oil change (her own wording)" }).where(eq(s.routine.id, (await sisterRoutine("AE.1/OIL")).id));
+    await testDb().update(s.routine).set({ retiredAt: new Date() }).where(eq(s.routine.id, (await sisterRoutine("ME.CYL.1/OVH")).id));
+    const back = { kind: "routines", key: "ME.CYL.1/OVH", action: "change", fields: expect.arrayContaining(["back in use"]) };
+    const whole = (await (await copy(false)).json()) as ImportPreview;
+    expect(whole.changes).toHaveLength(2);
+    expect(whole.changes).toEqual(expect.arrayContaining([{ kind: "routines", key: "AE.1/OIL", action: "change", fields: ["title"] }, back]));
+    const missing = (await (await copy(false, true)).json()) as ImportPreview;
+    expect(missing.changes).toEqual([back]);
+    expect((await copy(true, true)).status).toBe(201);
+    expect((await sisterRoutine("ME.CYL.1/OVH")).retiredAt).toBeNull();
+    const kept = await sisterRoutine("AE.1/OIL");
+    expect(kept.title).toBe("Lube oil change (her own wording)");
   });
 
   it("refuses a vessel the user may not open, and the vessel itself, naming the field", async () => {

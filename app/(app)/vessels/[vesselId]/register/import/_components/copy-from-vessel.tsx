@@ -12,12 +12,13 @@ type Props = { vesselId: string; vessels: { id: string; name: string }[]; onCopi
 
 export function CopyFromVessel({ vesselId, vessels, onCopied }: Props) {
   const [from, setFrom] = useState("");
+  const [onlyMissing, setOnlyMissing] = useState(false);
   const [busy, setBusy] = useState(false);
   const [preview, setPreview] = useState<ImportPreview | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
   const send = <T,>(apply: boolean) =>
-    fetchJson<T>(`/api/vessels/${vesselId}/import/copy`, { method: "POST", body: JSON.stringify({ fromVesselId: from, apply }) });
+    fetchJson<T>(`/api/vessels/${vesselId}/import/copy`, { method: "POST", body: JSON.stringify({ fromVesselId: from, apply, onlyMissing }) });
 
   async function check() {
     setProblem(null);
@@ -56,7 +57,8 @@ export function CopyFromVessel({ vesselId, vessels, onCopied }: Props) {
       </h2>
       <p className="max-w-prose text-sm text-ink-700 dark:text-ink-200">
         Its machinery register, its counters (new here, with empty meters) and its routines with their settings. The
-        copied routines count from today at 0 h; the sister ship’s history stays hers.
+        copied routines count from today at 0 h; the sister ship’s history stays hers. What this vessel has already takes
+        the sister ship’s settings, unless you ask to add only what it lacks.
       </p>
       <div className="flex flex-wrap items-end gap-2">
         <div>
@@ -72,6 +74,19 @@ export function CopyFromVessel({ vesselId, vessels, onCopied }: Props) {
             ))}
           </select>
         </div>
+        <label className="flex items-center gap-2 pb-2 text-sm">
+          <input
+            type="checkbox"
+            className="accent-tide-600"
+            checked={onlyMissing}
+            disabled={busy}
+            onChange={(e) => {
+              setOnlyMissing(e.target.checked);
+              setPreview(null);
+            }}
+          />
+          Only add what this vessel lacks
+        </label>
         <button type="button" className="btn-quiet" disabled={busy || !from} onClick={check}>
           {busy && !preview ? "Checking…" : "Check the copy"}
         </button>

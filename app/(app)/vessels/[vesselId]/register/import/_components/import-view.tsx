@@ -58,7 +58,7 @@ export function ImportView({ vesselId, sisters }: { vesselId: string; sisters: {
       const changed = c.components.changed + c.counters.changed + c.routines.changed;
       setDone(
         `Imported: ${many(c.components.created, "component")}, ${many(c.counters.created, "counter")} and ` +
-          `${many(c.routines.created, "routine")} created; ${changed} changed; ${many(c.routines.retired, "routine")} retired` +
+          `${many(c.routines.created, "routine")} created; ${changed} changed; ${many(c.routines.retired + c.counters.retired, c.counters.retired ? "routine or counter" : "routine")} retired` +
           `${c.readings?.created ? `; ${many(c.readings.created, "reading")} added` : ""}. ` +
           "The Backlog shows the new work within a minute.",
       );
@@ -99,10 +99,11 @@ export function ImportView({ vesselId, sisters }: { vesselId: string; sisters: {
         <label className="flex items-start gap-2">
           <input type="checkbox" className="mt-1 accent-tide-600" checked={retire} disabled={busy} onChange={(e) => setRetire(e.target.checked)} />
           <span>
-            Retire the routines the file no longer lists
+            Retire what the files no longer list
             <span className="block text-sm text-ink-500 dark:text-ink-400">
               Off: an import only adds and changes. On: the routines of this vessel missing from the routines file are
-              retired, and their open work orders with nothing recorded on them go.
+              retired, and their open work orders with nothing recorded on them go; so are the counters missing from the
+              counters file (their readings stay). Components are removed in the register, where their history shows.
             </span>
           </span>
         </label>
