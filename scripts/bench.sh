@@ -13,6 +13,7 @@ trap stack_stop EXIT
 trap 'exit 130' INT TERM
 
 stack_database
+stack_start_fakes bench-output
 stack_start_app bench-output
 # BENCH_ONLY="access" (or any of the parts, space-separated) runs only those parts; load runs on the
 # fleet that fleet.ts leaves, or generates one when it runs alone.

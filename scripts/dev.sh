@@ -9,9 +9,9 @@ export NODE_ENV=development
 local_env
 local_prepare
 trap local_stop INT TERM EXIT
+local_fakes_start
 local_database
 
-local_fakes_start
 node_modules/.bin/tsx watch --clear-screen=false --conditions=react-server workers/index.ts &
 local_pids+=($!)
 node_modules/.bin/next dev -H 127.0.0.1 -p "$PORT" &

@@ -320,14 +320,20 @@ stack_database() {
   node_modules/.bin/tsx scripts/migrate.ts
 }
 
-stack_start_app() {
+# stack_start_fakes OUT: the SMTP and S3 fakes, before the seed (the demo's onboarding import keeps
+# its files in object storage, as every import does).
+stack_start_fakes() {
   local out="$1"
-  log "building the app…"
-  node_modules/.bin/next build >"$out/build.log" 2>&1 || { cat "$out/build.log"; return 1; }
   mail_fake_start "$out/mail-fake.jsonl" "$out/mail-fake.log"
   stack_pids+=("$MAIL_FAKE_PID")
   s3_fake_start "$out/s3-fake" "$out/s3-fake.log"
   stack_pids+=("$S3_FAKE_PID")
+}
+
+stack_start_app() {
+  local out="$1"
+  log "building the app…"
+  node_modules/.bin/next build >"$out/build.log" 2>&1 || { cat "$out/build.log"; return 1; }
   node_modules/.bin/tsx --conditions=react-server workers/index.ts >"$out/worker.log" 2>&1 &
   stack_pids+=($!)
   # Idle connections stay open longer than any client keeps them (Node closes them after 5 s, and a

@@ -153,11 +153,11 @@ primary_up
 replica_up
 log "migrating and seeding the demo on the primary (it streams to the replica)…"
 node_modules/.bin/tsx scripts/migrate.ts
+mail_fake_start "$OUT/mail-fake.jsonl" "$OUT/mail-fake.log"; pids+=("$MAIL_FAKE_PID")
+s3_fake_start "$OUT/s3-fake" "$OUT/s3-fake.log"; pids+=("$S3_FAKE_PID")
 node_modules/.bin/tsx --conditions=react-server db/seed/index.ts
 build_once
 
-mail_fake_start "$OUT/mail-fake.jsonl" "$OUT/mail-fake.log"; pids+=("$MAIL_FAKE_PID")
-s3_fake_start "$OUT/s3-fake" "$OUT/s3-fake.log"; pids+=("$S3_FAKE_PID")
 for i in 1 2; do
   # node --import tsx: one process per worker, so a SIGKILL reaches the worker itself.
   node --import tsx --conditions=react-server workers/index.ts >"$OUT/worker-$i.log" 2>&1 &

@@ -8,11 +8,11 @@ export NODE_ENV=production
 local_env
 local_prepare
 trap local_stop INT TERM EXIT
+local_fakes_start
 local_database
 log "building the app…"
 node_modules/.bin/next build >.data/build.log 2>&1 || { cat .data/build.log; exit 1; }
 
-local_fakes_start
 node_modules/.bin/tsx --conditions=react-server workers/index.ts &
 local_pids+=($!)
 KEELSON_STATEMENT_TIMEOUT_MS="${KEELSON_STATEMENT_TIMEOUT_MS:-30000}" node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" --keepAliveTimeout 65000 &

@@ -24,6 +24,7 @@ check() {
 }
 
 stack_database
+stack_start_fakes "$TEST_OUTPUT"
 node_modules/.bin/tsx --conditions=react-server db/seed/index.ts
 
 check lint node_modules/.bin/eslint .

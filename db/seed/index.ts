@@ -7,6 +7,7 @@ import { eq } from "drizzle-orm";
 import { closeDb, getDb, type Tx } from "../client";
 import * as s from "../schema";
 import { seedHistory } from "./history";
+import { onboardDemoVessels } from "./onboarding";
 import { seedPortStays } from "./port-stays";
 import { instantOfShipTime } from "../../server/format/hours";
 import { recomputeVessel } from "../../server/scheduling/recompute";
@@ -20,7 +21,11 @@ const READING_CLOCK = "09:00";
 export async function seedDemo(now = new Date()): Promise<"created" | "present"> {
   const db = getDb();
   const [existing] = await db.select().from(s.company).where(eq(s.company.slug, demoCompany.slug));
-  if (existing) return "present";
+  if (existing) {
+    // A start stopped between the demo and its onboarding import finishes the import now.
+    await onboardDemoVessels(existing.id, now);
+    return "present";
+  }
 
   await db.transaction(async (tx) => {
     const [co] = await tx.insert(s.company).values(demoCompany).returning();
@@ -35,6 +40,10 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
         .returning();
       const vesselId = row!.id;
       vesselIds.set(v.code, vesselId);
+
+      await seedPortStays(tx, companyId, vesselId, v, now);
+      // An onboarded vessel's register, counters, readings and plan come from its files, after this transaction.
+      if (v.onboardedFrom) continue;
 
       const counters = countersFor(v);
       const counterIds = new Map<string, string>();
@@ -69,7 +78,6 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
 
       const totals = await seedReadings(tx, companyId, vesselId, v, counters, counterIds, now);
       await seedRoutines(tx, companyId, vesselId, v, componentIds, totals, now);
-      await seedPortStays(tx, companyId, vesselId, v, now);
     }
 
     const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -106,8 +114,9 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
       );
     }
   });
-  // What the worker would write after the readings: rates, work orders and their states.
   const [co] = await db.select().from(s.company).where(eq(s.company.slug, demoCompany.slug));
+  await onboardDemoVessels(co!.id, now);
+  // What the worker would write after the readings: rates, work orders and their states.
   for (const v of await db.select().from(s.vessel).where(eq(s.vessel.companyId, co!.id))) {
     const run = await recomputeVessel(db, co!.id, v.id, now);
     if (run.skipped.length)

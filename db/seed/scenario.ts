@@ -105,6 +105,11 @@ export type DemoVessel = {
   /** A meter replaced this many days ago on this counter key, for the segment demo. */
   meterReplacement?: { counter: string; daysAgo: number };
   seed: number;
+  /**
+   * The vessel's plan comes from the spreadsheets in db/seed/onboarding/<folder>/, through Keelson's
+   * own import, as a new customer's vessel would (db/seed/onboarding.ts).
+   */
+  onboardedFrom?: string;
 };
 
 // IMO numbers below are invented and carry a correct check digit (weights 7..2).
@@ -120,7 +125,15 @@ export const demoVessels: DemoVessel[] = [
   },
   { name: "Corran Ness", code: "CN", imoNumber: "9633214", timeZone: "Europe/Amsterdam", generators: 4, seed: 23 },
   { name: "Hallam Reach", code: "HR", imoNumber: "9478121", timeZone: "America/Panama", generators: 3, seed: 37 },
-  { name: "Sula Meridian", code: "SM", imoNumber: "9701451", timeZone: "Pacific/Auckland", generators: 3, seed: 41 },
+  {
+    name: "Sula Meridian",
+    code: "SM",
+    imoNumber: "9701451",
+    timeZone: "Pacific/Auckland",
+    generators: 3,
+    seed: 41,
+    onboardedFrom: "sula-meridian",
+  },
 ];
 
 export function countersFor(v: DemoVessel): DemoCounter[] {
