@@ -21,16 +21,16 @@ export type VesselRows = {
 
 export async function loadVesselRows(tx: Tx, access: Access, vessel: VesselRef, options: { readings?: boolean; clock?: Date } = {}): Promise<VesselRows> {
   const companyId = access.company.id;
-  const [components, counters, routines, rules, rankNames] = await Promise.all([
-    tx.select().from(component).where(and(eq(component.companyId, companyId), eq(component.vesselId, vessel.id))),
-    tx.select().from(counter).where(and(eq(counter.companyId, companyId), eq(counter.vesselId, vessel.id), isNull(counter.retiredAt))),
-    tx
-      .select()
-      .from(routine)
-      .where(and(eq(routine.companyId, companyId), eq(routine.vesselId, vessel.id), or(isNull(routine.retiredAt), isNotNull(routine.code)))),
-    tx.select({ id: toleranceRule.id, name: toleranceRule.name }).from(toleranceRule).where(eq(toleranceRule.companyId, companyId)),
-    loadRankNames(companyId),
-  ]);
+  // One after another: a transaction is one connection, and node-postgres queues (and will refuse)
+  // queries sent on it at once.
+  const components = await tx.select().from(component).where(and(eq(component.companyId, companyId), eq(component.vesselId, vessel.id)));
+  const counters = await tx.select().from(counter).where(and(eq(counter.companyId, companyId), eq(counter.vesselId, vessel.id), isNull(counter.retiredAt)));
+  const routines = await tx
+    .select()
+    .from(routine)
+    .where(and(eq(routine.companyId, companyId), eq(routine.vesselId, vessel.id), or(isNull(routine.retiredAt), isNotNull(routine.code))));
+  const rules = await tx.select({ id: toleranceRule.id, name: toleranceRule.name }).from(toleranceRule).where(eq(toleranceRule.companyId, companyId));
+  const rankNames = await loadRankNames(companyId);
   const codeOf = new Map(components.map((c) => [c.id, c.code]));
   const readings = options.readings ? await loadReadings(tx, companyId, counters) : new Map();
   const keyed = withKeys(
@@ -61,14 +61,12 @@ async function loadReadings(tx: Tx, companyId: string, counters: (typeof counter
   const out = new Map<string, CounterReadings & { name: string }>();
   if (!counters.length) return out;
   const ids = counters.map((c) => c.id);
-  const [segments, rows] = await Promise.all([
-    tx.select().from(counterSegment).where(and(eq(counterSegment.companyId, companyId), inArray(counterSegment.counterId, ids))),
-    tx
-      .select({ counterId: reading.counterId, readAt: reading.readAt, meterValue: reading.meterValue, segment: reading.segment })
-      .from(reading)
-      .where(and(eq(reading.companyId, companyId), inArray(reading.counterId, ids)))
-      .orderBy(asc(reading.readAt)),
-  ]);
+  const segments = await tx.select().from(counterSegment).where(and(eq(counterSegment.companyId, companyId), inArray(counterSegment.counterId, ids)));
+  const rows = await tx
+    .select({ counterId: reading.counterId, readAt: reading.readAt, meterValue: reading.meterValue, segment: reading.segment })
+    .from(reading)
+    .where(and(eq(reading.companyId, companyId), inArray(reading.counterId, ids)))
+    .orderBy(asc(reading.readAt));
   const byId = new Map<string, CounterReadings & { name: string }>();
   for (const c of counters) {
     const entry = { name: c.name, currentSegment: c.currentSegment, segments: [], readings: [] };
