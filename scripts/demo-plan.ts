@@ -213,7 +213,8 @@ type Routine = {
   hours?: number;
   every?: string;
   rrule?: string;
-  anniversary?: string;
+  /** "next": an anchored class item, its next anniversary worked out below. */
+  anniversary?: "next";
   team: string;
   elapsed: number;
   engineStop?: boolean;
@@ -260,7 +261,7 @@ r({ component: "ME.SAIR", word: "MAINVALVE", title: "Main starting valve overhau
 r({ component: "ME.GOV", word: "CHECK", title: "Governor and speed-control check", every: "every year", team: "second engineer; electro-technical officer", elapsed: 3, port: true });
 r({ component: "ME.SHAFT", word: "THRUST", title: "Thrust bearing clearance check", hours: 16000, team: "second engineer; motorman", elapsed: 4, engineStop: true, measurements: "Axial clearance [mm] 0.5..1.2", cautions: ["turning-gear"] });
 r({ component: "ME.SHAFT.STB", word: "SEAL", title: "Stern tube seal and oil check", every: "every month", team: "third engineer", elapsed: 1, measurements: "Aft seal oil loss [l/day] ..2" });
-r({ component: "ME.SHAFT.STB", word: "SURVEY", title: "Tailshaft survey preparation", every: "every 5 years", anniversary: "2024-03-14", team: "chief engineer; second engineer", elapsed: 8, port: true, critical: true, classRelated: true, classItem: "SH-ST" });
+r({ component: "ME.SHAFT.STB", word: "SURVEY", title: "Tailshaft survey preparation", every: "every 5 years", anniversary: "next", team: "chief engineer; second engineer", elapsed: 8, port: true, critical: true, classRelated: true, classItem: "SH-ST" });
 
 for (let i = 1; i <= vessel.generators; i += 1) {
   const g = `AE.${i}`;
@@ -323,7 +324,7 @@ for (const [code, name] of [["CFW1", "Central cooler 1"], ["CFW2", "Central cool
 }
 
 r({ component: "BLR", word: "WATER", title: "Boiler water test and treatment", every: "daily", team: "fourth engineer", elapsed: 0.5, measurements: "Chloride [ppm] ..50 | Alkalinity [ppm] 100..300" });
-r({ component: "BLR", word: "INSPECT", title: "Boiler internal inspection", every: "every 2 years", anniversary: "2024-09-05", team: "second engineer; motorman x2", elapsed: 16, port: true, critical: true, classRelated: true, classItem: "BLR-1", cautions: ["enclosed-space", "isolation", "permit-to-work"] });
+r({ component: "BLR", word: "INSPECT", title: "Boiler internal inspection", every: "every 2 years", anniversary: "next", team: "second engineer; motorman x2", elapsed: 16, port: true, critical: true, classRelated: true, classItem: "BLR-1", cautions: ["enclosed-space", "isolation", "permit-to-work"] });
 r({ component: "BLR", word: "GAUGEGLASS", title: "Gauge glass blow-down and check", every: "every week", team: "fourth engineer", elapsed: 0.5 });
 r({ component: "BLR.BRN", word: "NOZZLE", title: "Burner nozzle clean and flame safeguard check", hours: 500, team: "fourth engineer", elapsed: 2, cautions: ["isolation", "hot-work"] });
 r({ component: "BLR.BRN", word: "SERVICE", title: "Burner service and combustion check", hours: 4000, team: "third engineer; electro-technical officer", elapsed: 6 });
@@ -358,7 +359,7 @@ for (const n of [1, 2]) r({ component: `EL.TR${n}`, word: "INSPECT", title: `Tra
 r({ component: "SAFE.LB", word: "RUN", title: "Lifeboat engine weekly run", rrule: "FREQ=WEEKLY;BYDAY=FR", team: "fourth engineer", elapsed: 0.5, critical: true, classRelated: true, classItem: "LSA-LB" });
 r({ component: "SAFE.LB", word: "SERVICE", title: "Lifeboat engine service", every: "every year", team: "fourth engineer", elapsed: 3, critical: true });
 r({ component: "SAFE.DAV", word: "INSPECT", title: "Davit and winch inspection", every: "every month", team: "second engineer; motorman", elapsed: 1, critical: true, classRelated: true });
-r({ component: "SAFE.DAV", word: "THOROUGH", title: "Davit and on-load release gear thorough examination", every: "every year", anniversary: "2024-05-20", team: "chief engineer; second engineer", elapsed: 4, port: true, critical: true, classRelated: true, classItem: "LSA-DAV" });
+r({ component: "SAFE.DAV", word: "THOROUGH", title: "Davit and on-load release gear thorough examination", every: "every year", anniversary: "next", team: "chief engineer; second engineer", elapsed: 4, port: true, critical: true, classRelated: true, classItem: "LSA-DAV" });
 r({ component: "SAFE.CO2", word: "CHECK", title: "CO2 system visual check and cylinder weights", rrule: "FREQ=MONTHLY;BYMONTHDAY=1", team: "second engineer", elapsed: 1, critical: true, classRelated: true, classItem: "FF-CO2", cautions: ["enclosed-space"] });
 r({ component: "SAFE.CO2", word: "SERVICE", title: "CO2 system service by the shore firm", every: "every 2 years", team: "second engineer", elapsed: 6, port: true, critical: true, classRelated: true });
 r({ component: "SAFE.QCV", word: "TEST", title: "Quick-closing valves remote operation test", every: "every 3 months", team: "third engineer; motorman", elapsed: 2, critical: true, classRelated: true });
@@ -378,10 +379,10 @@ for (const [code, name] of [["ERF1", "Engine room supply fan 1"], ["ERF2", "Engi
 /** How far through its interval a routine is: mostly ahead, some in the window, a few late (as db/seed/plan.ts). */
 function progress(): number {
   const x = random();
-  if (x < 0.7) return 0.05 + random() * 0.8;
-  if (x < 0.86) return 0.91 + random() * 0.08;
-  if (x < 0.95) return 1.005 + random() * 0.03;
-  return 1.07 + random() * 0.1;
+  if (x < 0.78) return 0.05 + random() * 0.8;
+  if (x < 0.91) return 0.91 + random() * 0.08;
+  if (x < 0.97) return 1.005 + random() * 0.03;
+  return 1.06 + random() * 0.06;
 }
 const DAYS_OF: Record<string, number> = { day: 1, week: 7, month: 30.44, year: 365.25 };
 function calendarDays(x: Routine): number {
@@ -403,7 +404,8 @@ for (const x of routines) {
     every_hours: x.hours ? String(x.hours) : "",
     every: x.every ?? "",
     rrule: x.rrule ?? "",
-    anniversary: x.anniversary ?? "",
+    // The next anniversary, as far ahead as the routine is from its last one.
+    anniversary: x.anniversary ? format(addDays(lastDay, Math.round((1 - progress()) * calendarDays(x))), "yyyy-MM-dd") : "",
     tolerance_rule: "",
     team: x.team,
     elapsed_hours: String(x.elapsed),

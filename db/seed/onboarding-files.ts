@@ -1,13 +1,13 @@
 // The spreadsheets an onboarded demo vessel comes from (written by scripts/demo-plan.ts), with their
-// days moved from the day they were written (written-on.txt) to today: the last-done days and the
-// readings; the class anniversaries in routines.csv stay as written.
+// days moved from the day they were written (written-on.txt) to today: the last-done days, the
+// readings and the class items' next anniversaries.
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { addDays, differenceInCalendarDays, format, parseISO } from "date-fns";
 
 const FOLDER = path.join(import.meta.dirname, "onboarding");
-/** The files whose days move with the calendar; the routines' class anniversaries stay as written. */
-const DATED = new Set(["last-done.csv", "readings.csv"]);
+/** The files whose days move with the calendar (routines.csv: its anniversaries; no other cell holds a day). */
+const DATED = new Set(["last-done.csv", "readings.csv", "routines.csv"]);
 
 /** The vessel's files, with their days moved by the days since they were written. */
 export function onboardingFiles(folder: string, today: string): { name: string; bytes: Uint8Array }[] {

@@ -8,7 +8,7 @@
 // creates, a higher meter number starts a new meter just after the last reading of the one before,
 // counting from 0 h (or from its first value, when that is more than the clock allows since). On a
 // counter the vessel has, readings go on its meters as they are: a new meter is fitted in the Hour log.
-import { formatShipTime } from "@/server/format/hours";
+import { formatHours, formatShipTime } from "@/server/format/hours";
 import { MeterValue } from "@/server/readings/contract";
 import { elapsedHours, isInFuture, readingProblem } from "@/server/readings/rules";
 import { instantCell, numberCell } from "./cells";
@@ -147,7 +147,7 @@ function onExisting(s: ImportSheet, counterName: string, series: Pending[], held
     const was = existing.get(p.readAt.getTime());
     if (was) {
       if (was.meterValue === p.meterValue && was.segment === segment) out.same += 1;
-      else problem("value", `${counterName} already shows ${was.meterValue} h at ${formatShipTime(p.readAt, timeZone)} on the vessel: correct it in the Hour log, not by import.`);
+      else problem("value", `${counterName} already shows ${formatHours(was.meterValue)} at ${formatShipTime(p.readAt, timeZone)} on the vessel: correct it in the Hour log, not by import.`);
       continue;
     }
     // A counter made before meters were recorded has its first meter from the start.

@@ -303,7 +303,7 @@ describe("readings history", () => {
       now,
     );
     expect(r.lines).toEqual([
-      "readings.csv, row 3, value: Main engine already shows 61040 h at 3 Nov 2026 09:00 on the vessel: correct it in the Hour log, not by import.",
+      "readings.csv, row 3, value: Main engine already shows 61,040 h at 3 Nov 2026 09:00 on the vessel: correct it in the Hour log, not by import.",
       "readings.csv, row 6, meter: Main engine has no meter 2 (it has 1): fit a new meter in the Hour log first.",
       "readings.csv, row 4, value: Reading advances 50 h but only 24 h passed since the previous reading (61,000 h on 1 Nov 2026 09:00).",
     ]);

@@ -57,7 +57,7 @@ export const LAYOUT: Record<ImportKind, { title: string; key: string; columns: I
       col("every_hours", false, "Interval in running hours", "16000"),
       col("every", false, "Calendar interval in words: every 3 months, every 2 weeks on Monday, every year", "every 4 years"),
       col("rrule", false, "Or the calendar rule as an RFC 5545 RRULE (not both)", "FREQ=MONTHLY;INTERVAL=6"),
-      col("anniversary", false, "For class items that keep a fixed anniversary: the date (YYYY-MM-DD); empty: floating", "2027-03-23"),
+      col("anniversary", false, "For class items that keep a fixed anniversary: the next anniversary it falls due on (YYYY-MM-DD); empty: it counts from the last time done", "2027-03-23"),
       col("tolerance_rule", false, "The company's tolerance rule by name, where it is not the one matched by the interval", ""),
       col("team", true, "Who does it: ranks with the number of people, separated by ;", "second engineer; motorman x2"),
       col("elapsed_hours", true, "Hours from start to finish (man-hours are this × the people)", "12"),

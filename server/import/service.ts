@@ -65,11 +65,23 @@ async function prepare(tx: Tx, access: Access, vessel: VesselRef, source: Import
     }
   }
   const diff = diffImport(checked, rows, vessel.timeZone, source.retire);
-  const problems = [...read.problems, ...checked.problems, ...stillCounting(read, checked, rows, diff)];
+  const problems = inFileOrder([...read.problems, ...checked.problems, ...stillCounting(read, checked, rows, diff)], source.names);
   if (!problems.length && !read.sheets.some((s) => s.rows.length)) {
     problems.push({ file: source.names.join(", "), row: null, column: null, message: "There are no rows to import." });
   }
   return { checked, rows, problems, diff };
+}
+
+/** Problems by file (in the order given), then row: a file's own problems (row null) first. Stable otherwise. */
+function inFileOrder(problems: ImportProblem[], names: string[]): ImportProblem[] {
+  const fileIndex = (file: string) => {
+    const i = names.findIndex((n) => file === n || file.startsWith(`${n} ›`));
+    return i < 0 ? names.length : i;
+  };
+  return problems
+    .map((p, i) => ({ p, i }))
+    .sort((a, b) => fileIndex(a.p.file) - fileIndex(b.p.file) || a.p.file.localeCompare(b.p.file) || (a.p.row ?? 0) - (b.p.row ?? 0) || a.i - b.i)
+    .map((x) => x.p);
 }
 
 /** A counter the files would retire while a component would still count its hours. */

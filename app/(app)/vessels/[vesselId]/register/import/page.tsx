@@ -22,8 +22,9 @@ export default async function ImportPage({ params }: { params: Promise<{ vesselI
       </p>
       <h1 className="text-xl font-bold">Import {vessel.name}’s plan from files</h1>
       <p className="max-w-prose text-ink-700 dark:text-ink-200">
-        Bring in the machinery register, the counters, the routines and when each was last done from spreadsheets: one
-        CSV file per kind (comma or semicolon separated, UTF-8), or one Excel workbook with a worksheet per kind. Keelson
+        Bring in the machinery register, the counters, the routines, when each was last done and the readings history
+        from spreadsheets: one CSV file per kind (comma or semicolon separated, UTF-8; loose or in a zip), or one Excel
+        workbook with a worksheet per kind. Keelson
         checks every row first and shows what would be created, changed and left alone; nothing is written until you
         apply, and then all or nothing. Importing the same files again changes nothing.
       </p>

@@ -37,7 +37,7 @@ export function ImportView({ vesselId, sisters }: { vesselId: string; sisters: {
     setProblem(null);
     setDone(null);
     if (!files.length) {
-      setProblem("Choose the plan’s files first: CSV files or an Excel workbook.");
+      setProblem("Choose the plan’s files first: CSV files, a zip of them, or an Excel workbook.");
       return;
     }
     setStep({ kind: "sending", what: "check", share: 0 });
@@ -80,7 +80,7 @@ export function ImportView({ vesselId, sisters }: { vesselId: string; sisters: {
         </h2>
         <div>
           <label htmlFor="import-files" className="label">
-            The plan’s files (.csv or .xlsx, up to 10 files, 20 MB together)
+            The plan’s files (.csv, .zip or .xlsx, up to 10 files, 20 MB together)
           </label>
           <input
             id="import-files"
