@@ -98,6 +98,22 @@ const pad2 = (n: string) => n.padStart(2, "0");
 const INSTANT = /^(\d{4})-(\d{1,2})-(\d{1,2})[T\s]+(\d{1,2}):(\d{2})(?::\d{2}(?:\.\d+)?)?\s*(Z|[+-]\d{2}(?::?\d{2})?)?$/i;
 
 /**
+ * The zone's rules read once per ship's day and clock: a readings history has the same 09:00 on
+ * every counter, and working a zone's offset out is the costly part. Bounded: cleared when full.
+ */
+const shipTimes = new Map<string, number>();
+function shipTimeOnce(day: string, clock: string, timeZone: string): number {
+  const key = `${timeZone} ${day} ${clock}`;
+  let at = shipTimes.get(key);
+  if (at === undefined) {
+    if (shipTimes.size >= 20_000) shipTimes.clear();
+    at = instantOfShipTime(day, clock, timeZone).getTime();
+    shipTimes.set(key, at);
+  }
+  return at;
+}
+
+/**
  * An instant: on the ship's clock ("2025-03-13 08:00", in the vessel's zone), or with its UTC
  * offset ("2025-03-13T08:00+04:00", "…Z") as another system exports it.
  */
@@ -113,7 +129,7 @@ export function instantCell(raw: string | undefined, timeZone: string): Cell<Dat
   if (Number.isNaN(date.getTime()) || !date.toISOString().startsWith(day)) return no(`“${t}”: ${day} is not a day of the calendar.`);
   if (Number(hh) > 23 || Number(mm) > 59) return no(`“${t}”: the time of day runs from 00:00 to 23:59.`);
   const clock = `${pad2(hh)}:${mm}`;
-  if (!offset) return ok(instantOfShipTime(day, clock, timeZone));
+  if (!offset) return ok(new Date(shipTimeOnce(day, clock, timeZone)));
   const zone = offset.toUpperCase() === "Z" ? "Z" : offset.length === 3 ? `${offset}:00` : `${offset.slice(0, 3)}:${offset.slice(-2)}`;
   const at = new Date(`${day}T${clock}:00${zone}`);
   return Number.isNaN(at.getTime()) ? no(words) : ok(at);

@@ -41,25 +41,26 @@ export function readingProblem(
   }
   const { previous, next } = counter;
   if (previous) {
-    const prevText = `${formatHours(previous.meterValue)} on ${when(previous.readAt)}`;
+    // The words are made only for a refusal: an import checks thousands of readings that pass.
+    const prevText = () => `${formatHours(previous.meterValue)} on ${when(previous.readAt)}`;
     if (meterValue < previous.meterValue) {
-      return `Reading is lower than the previous one (${prevText}).`;
+      return `Reading is lower than the previous one (${prevText()}).`;
     }
     const advance = meterValue - previous.meterValue;
     const elapsed = elapsedHours(previous.readAt, readAt);
     if (advance > elapsed + TENTH_SLACK) {
-      return `Reading advances ${formatHours(round1(advance))} but only ${formatHours(round1(elapsed))} passed since the previous reading (${prevText}).`;
+      return `Reading advances ${formatHours(round1(advance))} but only ${formatHours(round1(elapsed))} passed since the previous reading (${prevText()}).`;
     }
   }
   if (next) {
-    const nextText = `${formatHours(next.meterValue)} on ${when(next.readAt)}`;
+    const nextText = () => `${formatHours(next.meterValue)} on ${when(next.readAt)}`;
     if (meterValue > next.meterValue) {
-      return `Reading is higher than the next one (${nextText}).`;
+      return `Reading is higher than the next one (${nextText()}).`;
     }
     const advance = next.meterValue - meterValue;
     const elapsed = elapsedHours(readAt, next.readAt);
     if (advance > elapsed + TENTH_SLACK) {
-      return `The next reading (${nextText}) would then advance ${formatHours(round1(advance))} in only ${formatHours(round1(elapsed))}.`;
+      return `The next reading (${nextText()}) would then advance ${formatHours(round1(advance))} in only ${formatHours(round1(elapsed))}.`;
     }
   }
   return null;

@@ -60,6 +60,7 @@ export function ComponentTree({ view, onAction }: Props) {
                 key={node.row.id}
                 node={node}
                 lookup={lookup}
+                vesselId={view.vessel.id}
                 canEdit={view.canEdit}
                 isOpen={isOpen}
                 shown={shown}
@@ -76,6 +77,7 @@ export function ComponentTree({ view, onAction }: Props) {
 type NodeProps = {
   node: TreeNode<RegisterComponent>;
   lookup: Lookup;
+  vesselId: string;
   canEdit: boolean;
   isOpen: (node: TreeNode<RegisterComponent>) => boolean;
   shown: Set<string> | null;
@@ -83,7 +85,7 @@ type NodeProps = {
   onAction: Props["onAction"];
 };
 
-function ComponentNode({ node, lookup, canEdit, isOpen, shown, onToggle, onAction }: NodeProps) {
+function ComponentNode({ node, lookup, vesselId, canEdit, isOpen, shown, onToggle, onAction }: NodeProps) {
   const c = node.row;
   const children = node.children.filter((n) => !shown || shown.has(n.row.id));
   const expanded = children.length > 0 && isOpen(node);
@@ -157,13 +159,19 @@ function ComponentNode({ node, lookup, canEdit, isOpen, shown, onToggle, onActio
           <span className="sr-only">Counter: </span>
           {counter.text}
         </p>
-        {canEdit && (
-          <div className="flex gap-0.5 pl-5 sm:pl-0 pointer-fine:opacity-0 pointer-fine:group-focus-within:opacity-100 pointer-fine:group-hover:opacity-100">
-            {action("add-child", "Add part")}
-            {action("edit-component", "Edit")}
-            {action("move-component", "Move")}
-          </div>
-        )}
+        <div className="flex gap-0.5 pl-5 sm:pl-0 pointer-fine:opacity-0 pointer-fine:group-focus-within:opacity-100 pointer-fine:group-hover:opacity-100">
+          {canEdit && action("add-child", "Add part")}
+          {canEdit && action("edit-component", "Edit")}
+          {canEdit && action("move-component", "Move")}
+          <a
+            className="rounded px-1.5 py-0.5 text-xs font-semibold text-tide-700 hover:bg-tide-50 dark:text-tide-300 dark:hover:bg-tide-900/40"
+            href={`/api/vessels/${vesselId}/export/history?component=${encodeURIComponent(c.code)}`}
+            aria-label={`History of ${c.code} as CSV`}
+            download
+          >
+            History
+          </a>
+        </div>
       </div>
       {expanded && (
         <ul id={groupId}>
@@ -172,6 +180,7 @@ function ComponentNode({ node, lookup, canEdit, isOpen, shown, onToggle, onActio
               key={child.row.id}
               node={child}
               lookup={lookup}
+              vesselId={vesselId}
               canEdit={canEdit}
               isOpen={isOpen}
               shown={shown}

@@ -51,6 +51,9 @@ export default async function ImportPage({ params }: { params: Promise<{ vesselI
           <a className="text-tide-700 underline underline-offset-2 dark:text-tide-300" href={`/api/vessels/${vessel.id}/export?format=zip`} download>
             The whole plan as CSV files (.zip)
           </a>
+          <a className="text-tide-700 underline underline-offset-2 dark:text-tide-300" href={`/api/vessels/${vessel.id}/export/history`} download>
+            Maintenance history (.csv)
+          </a>
           {IMPORT_KINDS.map((kind) => (
             <a key={kind} className="text-tide-700 underline underline-offset-2 dark:text-tide-300" href={`/api/vessels/${vessel.id}/export?kind=${kind}`} download>
               {kind}.csv
