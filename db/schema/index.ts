@@ -11,3 +11,4 @@ export * from "./fleet";
 export * from "./plan-problems";
 export * from "./sign-in";
 export * from "./imports";
+export * from "./parts";

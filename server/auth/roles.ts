@@ -19,7 +19,9 @@ export type Permission =
   | "work:approve"
   | "work:plan"
   | "deferral:decide"
-  | "fleet:read";
+  | "fleet:read"
+  | "parts:edit"
+  | "stores:write";
 
 const GRANTS: Record<Permission, readonly Role[]> = {
   "vessel:read": ROLES,
@@ -33,6 +35,10 @@ const GRANTS: Record<Permission, readonly Role[]> = {
   "deferral:decide": ["superintendent", "chief-engineer"],
   /** The Fleet board: the office's view of every vessel. */
   "fleet:read": ["admin", "superintendent"],
+  /** The company's parts catalogue: the office, and the chief engineer who finds a part on board. */
+  "parts:edit": ["admin", "superintendent", "chief-engineer"],
+  /** Stock on board: received, used, counted, moved between locations. */
+  "stores:write": ["chief-engineer", "engineer"],
 };
 
 export function can(role: Role, permission: Permission): boolean {

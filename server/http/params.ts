@@ -22,3 +22,4 @@ export const PortStayParams = z.object({ stayId: pathId("port stay") });
 export const ToleranceRuleParams = z.object({ ruleId: pathId("tolerance rule") });
 export const MessageParams = z.object({ messageId: pathId("message") });
 export const UserParams = z.object({ userId: userPathId });
+export const PartParams = z.object({ partId: pathId("part") });

@@ -110,6 +110,8 @@ const UNIQUE_CONSTRAINTS: Record<string, FieldError | string> = {
   reading_counterId_readAt_unique: "A reading of that counter at that time was saved meanwhile; reload the Hour log.",
   completion_workOrderId_unique: "The job was recorded meanwhile by someone else; reload the work order.",
   deferral_one_pending: "A deferral of this work order is already waiting for a decision.",
+  part_companyId_number_unique: { field: "number", message: "The catalogue already has a part of that number." },
+  store_location_companyId_vesselId_store_rack_bin_unique: { field: "store", message: "That store, rack and bin are already a location on board." },
 };
 
 /** The PostgreSQL error behind a failed query (Drizzle wraps it in `cause`), if any. */

@@ -102,6 +102,10 @@ export const EXAMPLES: Record<string, (c: ExampleContext) => Example> = {
   "POST /api/unsubscribe": (c) => ({ body: {}, query: { u: c.userId, c: c.companyId, k: "due-digest", t: "forged" } }),
   // A uuid that is no vessel: the contract takes it and the copy refuses it (422), so nothing is written.
   "POST /api/vessels/[vesselId]/import/copy": (c) => ({ body: { fromVesselId: c.componentId } }),
+  "POST /api/parts": (c) => ({ body: { number: `FZ-${c.tag.slice(0, 8)}`, description: "Fuzz gasket", unit: "piece", fits: [c.componentId] } }),
+  "PATCH /api/parts/[partId]": () => ({ body: { description: "Fuzz gasket, renamed", minimumOnBoard: "2" } }),
+  "POST /api/vessels/[vesselId]/stores/locations": (c) => ({ body: { store: `Fuzz store ${c.tag}`, rack: "1", bin: "A" } }),
+  "POST /api/vessels/[vesselId]/stores/movements": (c) => ({ body: { kind: "received", partId: c.componentId, locationId: c.componentId, quantity: 2 } }),
   "POST /api/vessels/[vesselId]/components": (c) => ({ body: { code: `FZ.${c.tag.slice(0, 6)}`, name: "Fuzz pump" } }),
   "PATCH /api/vessels/[vesselId]/components/[componentId]": () => ({ body: { name: "Fuzz pump renamed" } }),
   "POST /api/vessels/[vesselId]/counters": (c) => ({ body: { name: `Fuzz meter ${c.tag}`, plannedHoursPerDay: 12 } }),

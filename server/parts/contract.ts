@@ -1,0 +1,135 @@
+// What the parts catalogue and the stores on board send and get back, shared by the forms and the
+// route handlers. Quantities: whole pieces and sets; litres, kilograms and metres to three decimals.
+import { z } from "zod";
+import { PART_UNITS, type PartUnit, STOCK_MOVES, type StockMove } from "@/db/schema/parts";
+
+export const UNIT_LABEL: Record<PartUnit, string> = { piece: "pcs", set: "sets", litre: "l", kg: "kg", metre: "m" };
+/** Units counted whole: a bolt or a gasket set is never 0.5. */
+export const WHOLE_UNITS: readonly PartUnit[] = ["piece", "set"];
+
+const text = (what: string, max: number) =>
+  z
+    .string({ message: `${what}: enter text.` })
+    .trim()
+    .max(max, { message: `${what}: keep it to ${max} characters.` });
+
+/** A quantity as typed: "12", "2.5", "2,5". */
+export const Quantity = z
+  .union([z.number(), z.string()], { message: "Enter a quantity, e.g. 4 or 2.5." })
+  .transform((raw, ctx) => {
+    const n = typeof raw === "number" ? raw : Number(raw.trim().replace(",", "."));
+    if (!Number.isFinite(n) || (typeof raw === "string" && !/^\d+([.,]\d{1,3})?$/.test(raw.trim()))) {
+      ctx.addIssue({ code: "custom", message: "Enter a quantity, e.g. 4 or 2.5 (at most three decimals)." });
+      return z.NEVER;
+    }
+    if (n <= 0 || n > 1_000_000) {
+      ctx.addIssue({ code: "custom", message: "The quantity is more than 0 and at most 1,000,000." });
+      return z.NEVER;
+    }
+    return Math.round(n * 1000) / 1000;
+  });
+
+const Minimum = z
+  .union([z.number(), z.string()], { message: "Enter the least to keep on board, e.g. 2 (0 for none)." })
+  .transform((raw, ctx) => {
+    const n = typeof raw === "number" ? raw : raw.trim() === "" ? 0 : Number(raw.trim().replace(",", "."));
+    if (!Number.isFinite(n) || n < 0 || n > 1_000_000) {
+      ctx.addIssue({ code: "custom", message: "Minimum on board: enter 0 or more (at most 1,000,000)." });
+      return z.NEVER;
+    }
+    return Math.round(n * 1000) / 1000;
+  });
+
+export const PartNumber = z
+  .string({ message: "Enter the company’s part number, e.g. KP-10432." })
+  .trim()
+  .regex(/^[A-Za-z0-9][A-Za-z0-9._/-]{0,39}$/, {
+    message: "The part number holds letters, digits and . _ / - (at most 40), e.g. KP-10432.",
+  });
+
+export const PartInput = z.object({
+  number: PartNumber,
+  makerRef: text("Maker’s reference", 80).default(""),
+  description: text("Description", 200).min(2, { message: "Describe the part, e.g. “Piston ring set, cylinder unit”." }),
+  unit: z.enum(PART_UNITS, { message: `Unit: one of ${PART_UNITS.join(", ")}.` }).default("piece"),
+  critical: z.boolean({ message: "Critical spare: true or false." }).default(false),
+  minimumOnBoard: Minimum.default(0),
+  /** The components it fits, on any of the company's vessels. */
+  fits: z.array(z.uuid({ message: "Choose the components from the list." }), { message: "Choose the components from the list." }).max(200, { message: "A part fits at most 200 components here." }).default([]),
+});
+export type PartInput = z.input<typeof PartInput>;
+export type PartValues = z.output<typeof PartInput>;
+export const PartPatch = PartInput.partial();
+
+export const LocationInput = z.object({
+  store: text("Store", 60).min(1, { message: "Name the store, e.g. Engine store." }),
+  rack: text("Rack", 30).default(""),
+  bin: text("Bin", 30).default(""),
+});
+export type LocationInput = z.input<typeof LocationInput>;
+
+const Reason = text("Reason", 300);
+
+/** One movement of stock on board, as the storekeeper or the engineer records it. */
+export const MovementInput = z.discriminatedUnion(
+  "kind",
+  [
+    z.object({ kind: z.literal("received"), partId: z.uuid({ message: "Choose the part." }), locationId: z.uuid({ message: "Choose where it is kept." }), quantity: Quantity, reason: Reason.default("") }),
+    z.object({
+      kind: z.literal("counted"),
+      partId: z.uuid({ message: "Choose the part." }),
+      locationId: z.uuid({ message: "Choose where it is kept." }),
+      /** What was found on the shelf: the movement is the difference. */
+      counted: z
+        .union([z.number(), z.string()], { message: "Enter what you counted, 0 or more." })
+        .transform((raw, ctx) => {
+          const n = typeof raw === "number" ? raw : Number(raw.trim().replace(",", "."));
+          if (!Number.isFinite(n) || n < 0 || n > 1_000_000 || (typeof raw === "string" && raw.trim() === "")) {
+            ctx.addIssue({ code: "custom", message: "Enter what you counted, 0 or more." });
+            return z.NEVER;
+          }
+          return Math.round(n * 1000) / 1000;
+        }),
+      reason: Reason.min(3, { message: "Say why the count differs, e.g. “found two in the wrong bin”." }),
+    }),
+    z.object({
+      kind: z.literal("moved"),
+      partId: z.uuid({ message: "Choose the part." }),
+      locationId: z.uuid({ message: "Choose where it is taken from." }),
+      toLocationId: z.uuid({ message: "Choose where it goes." }),
+      quantity: Quantity,
+      reason: Reason.default(""),
+    }),
+  ],
+  { message: "kind: one of received, counted, moved." },
+);
+export type MovementInput = z.input<typeof MovementInput>;
+export type MovementValues = z.output<typeof MovementInput>;
+
+export type CataloguePart = {
+  id: string;
+  number: string;
+  makerRef: string;
+  description: string;
+  unit: PartUnit;
+  critical: boolean;
+  minimumOnBoard: number;
+  fits: { id: string; code: string; name: string; vesselCode: string }[];
+};
+export type Catalogue = { parts: CataloguePart[]; canEdit: boolean };
+
+export type StockLine = {
+  part: Pick<CataloguePart, "id" | "number" | "description" | "unit" | "critical" | "minimumOnBoard" | "makerRef">;
+  onBoard: number;
+  byLocation: { locationId: string; place: string; quantity: number }[];
+  /** Under the minimum the company set for it. */
+  low: boolean;
+};
+export type StoresView = {
+  vessel: { id: string; name: string; code: string };
+  locations: { id: string; place: string }[];
+  lines: StockLine[];
+  canWrite: boolean;
+};
+export type RecentMovement = { kind: StockMove; quantity: number; place: string; reason: string; by: string | null; at: string };
+export { STOCK_MOVES };

@@ -1,0 +1,214 @@
+// The parts catalogue (company-wide) and the stores on board (per vessel): reading what is on board
+// as the sum of the movements, and writing each movement as its own row under a lock per vessel and
+// part, so two people taking the last part at once leave the stock right and one of them is refused.
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
+import { getDb, type Tx } from "@/db/client";
+import { component, part, partFit, stockMovement, storeLocation, user, vessel as vesselTable } from "@/db/schema";
+import type { Access, VesselRef } from "@/server/auth/access";
+import { can } from "@/server/auth/roles";
+import { AppError, invalidInput } from "@/server/http/problem";
+import { type Catalogue, type CataloguePart, type MovementValues, type PartValues, type RecentMovement, type StoresView, UNIT_LABEL } from "./contract";
+import { countDifference, isLow, q3, stockByLocation, takeProblem, unitProblem } from "./stock";
+
+/** A catalogue larger than this is paged by the company's own tools; the page lists this many. */
+export const CATALOGUE_LIMIT = 10_000;
+
+const place = (l: { store: string; rack: string; bin: string }) => [l.store, l.rack && `rack ${l.rack}`, l.bin && `bin ${l.bin}`].filter(Boolean).join(", ");
+
+export async function loadCatalogue(access: Access): Promise<Catalogue> {
+  const db = getDb();
+  const companyId = access.company.id;
+  const parts = await db.select().from(part).where(eq(part.companyId, companyId)).orderBy(asc(part.number)).limit(CATALOGUE_LIMIT);
+  const fits = parts.length
+    ? await db
+        .select({ partId: partFit.partId, id: component.id, code: component.code, name: component.name, vesselCode: vesselTable.code, vesselId: component.vesselId })
+        .from(partFit)
+        .innerJoin(component, eq(component.id, partFit.componentId))
+        .innerJoin(vesselTable, eq(vesselTable.id, component.vesselId))
+        .where(and(eq(partFit.companyId, companyId), inArray(partFit.partId, parts.map((p) => p.id))))
+        .orderBy(asc(vesselTable.code), asc(component.code))
+    : [];
+  // A seagoing user sees the components of the vessels they are assigned to.
+  const visible = (vesselId: string) => !access.assignedVesselIds || access.assignedVesselIds.includes(vesselId);
+  return {
+    canEdit: can(access.role, "parts:edit"),
+    parts: parts.map((p) => ({
+      id: p.id,
+      number: p.number,
+      makerRef: p.makerRef ?? "",
+      description: p.description,
+      unit: p.unit,
+      critical: p.critical,
+      minimumOnBoard: p.minimumOnBoard,
+      fits: fits.filter((f) => f.partId === p.id && visible(f.vesselId)).map(({ id, code, name, vesselCode }) => ({ id, code, name, vesselCode })),
+    })),
+  };
+}
+
+/** The components named are the company's, and ones the user may open. */
+async function checkFits(tx: Tx, access: Access, ids: string[]) {
+  if (!ids.length) return;
+  const found = await tx
+    .select({ id: component.id, vesselId: component.vesselId })
+    .from(component)
+    .where(and(eq(component.companyId, access.company.id), inArray(component.id, ids)));
+  const known = new Set(found.filter((c) => !access.assignedVesselIds || access.assignedVesselIds.includes(c.vesselId)).map((c) => c.id));
+  const missing = ids.filter((id) => !known.has(id));
+  if (missing.length) throw invalidInput([{ field: "fits", message: `${missing.length} of the components chosen are not on a vessel of yours; choose them again.` }]);
+}
+
+async function setFits(tx: Tx, access: Access, partId: string, ids: string[]) {
+  await tx.delete(partFit).where(and(eq(partFit.companyId, access.company.id), eq(partFit.partId, partId)));
+  const unique = [...new Set(ids)];
+  if (unique.length) await tx.insert(partFit).values(unique.map((componentId) => ({ companyId: access.company.id, partId, componentId })));
+}
+
+export async function createPart(access: Access, input: PartValues): Promise<CataloguePart> {
+  const id = await getDb().transaction(async (tx) => {
+    await checkFits(tx, access, input.fits);
+    const { fits, ...fields } = input;
+    const [row] = await tx.insert(part).values({ companyId: access.company.id, ...fields }).returning({ id: part.id });
+    await setFits(tx, access, row!.id, fits);
+    return row!.id;
+  });
+  return (await loadCatalogue(access)).parts.find((p) => p.id === id)!;
+}
+
+export async function updatePart(access: Access, partId: string, input: Partial<PartValues>): Promise<CataloguePart> {
+  await getDb().transaction(async (tx) => {
+    const [was] = await tx.select().from(part).where(and(eq(part.companyId, access.company.id), eq(part.id, partId))).for("update");
+    if (!was) throw new AppError("not-found", "There is no such part in the catalogue.");
+    const { fits, ...fields } = input;
+    // A unit changed to whole pieces while some vessel holds a part of one is refused.
+    if (fields.unit && fields.unit !== was.unit && (fields.unit === "piece" || fields.unit === "set")) {
+      const [odd] = await tx
+        .select({ n: sql<number>`count(*)::int` })
+        .from(stockMovement)
+        .where(and(eq(stockMovement.companyId, access.company.id), eq(stockMovement.partId, partId), sql`${stockMovement.quantity} <> trunc(${stockMovement.quantity})`));
+      if (odd && odd.n > 0) throw invalidInput([{ field: "unit", message: "Some stock of this part is recorded in parts of a unit; it cannot be counted in whole pieces." }]);
+    }
+    if (Object.keys(fields).length) await tx.update(part).set({ ...fields, updatedAt: new Date() }).where(eq(part.id, partId));
+    if (fits) {
+      await checkFits(tx, access, fits);
+      await setFits(tx, access, partId, fits);
+    }
+  });
+  return (await loadCatalogue(access)).parts.find((p) => p.id === partId)!;
+}
+
+export async function loadStores(access: Access, vessel: VesselRef): Promise<StoresView> {
+  const db = getDb();
+  const companyId = access.company.id;
+  const [locations, sums, parts] = [
+    await db
+      .select()
+      .from(storeLocation)
+      .where(and(eq(storeLocation.companyId, companyId), eq(storeLocation.vesselId, vessel.id)))
+      .orderBy(asc(storeLocation.store), asc(storeLocation.rack), asc(storeLocation.bin)),
+    await db
+      .select({ partId: stockMovement.partId, locationId: stockMovement.locationId, quantity: sql<string>`sum(${stockMovement.quantity})` })
+      .from(stockMovement)
+      .where(and(eq(stockMovement.companyId, companyId), eq(stockMovement.vesselId, vessel.id)))
+      .groupBy(stockMovement.partId, stockMovement.locationId),
+    await db.select().from(part).where(eq(part.companyId, companyId)).orderBy(asc(part.number)).limit(CATALOGUE_LIMIT),
+  ];
+  const placeOf = new Map(locations.map((l) => [l.id, place(l)]));
+  const byPart = new Map<string, { locationId: string; quantity: number }[]>();
+  for (const s of sums) byPart.set(s.partId, [...(byPart.get(s.partId) ?? []), { locationId: s.locationId, quantity: q3(Number(s.quantity)) }]);
+  // The lines: every part with stock here, and every critical spare or part with a minimum (kept on every vessel).
+  const lines = parts
+    .filter((p) => byPart.has(p.id) || p.critical || p.minimumOnBoard > 0)
+    .map((p) => {
+      const held = (byPart.get(p.id) ?? []).filter((h) => h.quantity !== 0);
+      const total = q3(held.reduce((n, h) => n + h.quantity, 0));
+      return {
+        part: { id: p.id, number: p.number, description: p.description, unit: p.unit, critical: p.critical, minimumOnBoard: p.minimumOnBoard, makerRef: p.makerRef ?? "" },
+        onBoard: total,
+        byLocation: held.map((h) => ({ locationId: h.locationId, place: placeOf.get(h.locationId) ?? "", quantity: h.quantity })),
+        low: isLow(total, p.minimumOnBoard),
+      };
+    });
+  return {
+    vessel: { id: vessel.id, name: vessel.name, code: vessel.code },
+    locations: locations.map((l) => ({ id: l.id, place: place(l) })),
+    lines,
+    canWrite: can(access.role, "stores:write") && !vessel.retiredAt,
+  };
+}
+
+export async function createLocation(access: Access, vessel: VesselRef, input: { store: string; rack: string; bin: string }) {
+  const [row] = await getDb()
+    .insert(storeLocation)
+    .values({ companyId: access.company.id, vesselId: vessel.id, ...input })
+    .returning();
+  return { id: row!.id, place: place(row!) };
+}
+
+/** One movement (a move is two rows), checked against the stock under a lock of the vessel's part. */
+export async function recordMovement(access: Access, vessel: VesselRef, input: MovementValues, now = new Date()) {
+  const companyId = access.company.id;
+  return getDb().transaction(async (tx) => {
+    const [p] = await tx.select().from(part).where(and(eq(part.companyId, companyId), eq(part.id, input.partId)));
+    if (!p) throw invalidInput([{ field: "partId", message: "There is no such part in the catalogue." }]);
+    const wanted = input.kind === "moved" ? [input.locationId, input.toLocationId] : [input.locationId];
+    const locations = await tx
+      .select()
+      .from(storeLocation)
+      .where(and(eq(storeLocation.companyId, companyId), eq(storeLocation.vesselId, vessel.id), inArray(storeLocation.id, wanted)));
+    const at = new Map(locations.map((l) => [l.id, l]));
+    if (!at.has(input.locationId)) throw invalidInput([{ field: "locationId", message: `There is no such location on ${vessel.name}.` }]);
+    if (input.kind === "moved") {
+      if (!at.has(input.toLocationId)) throw invalidInput([{ field: "toLocationId", message: `There is no such location on ${vessel.name}.` }]);
+      if (input.toLocationId === input.locationId) throw invalidInput([{ field: "toLocationId", message: "Choose another location than the one it is taken from." }]);
+    }
+    // One writer per vessel and part at a time: the stock read below is the stock the row lands on.
+    await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`stock:${vessel.id}:${p.id}`}))`);
+    const rows = await tx
+      .select({ locationId: stockMovement.locationId, quantity: stockMovement.quantity })
+      .from(stockMovement)
+      .where(and(eq(stockMovement.companyId, companyId), eq(stockMovement.vesselId, vessel.id), eq(stockMovement.partId, p.id)));
+    const held = stockByLocation(rows);
+    const unit = UNIT_LABEL[p.unit];
+    const base = { companyId, vesselId: vessel.id, partId: p.id, movedBy: access.user.id, movedAt: now };
+    const here = place(at.get(input.locationId)!);
+    if (input.kind === "received") {
+      const problem = unitProblem(p.unit, input.quantity, "quantity");
+      if (problem) throw invalidInput([problem]);
+      await tx.insert(stockMovement).values({ ...base, locationId: input.locationId, kind: "received", quantity: input.quantity, reason: input.reason });
+    } else if (input.kind === "counted") {
+      const problem = unitProblem(p.unit, input.counted, "counted");
+      if (problem) throw invalidInput([problem]);
+      const diff = countDifference(held.get(input.locationId) ?? 0, input.counted);
+      if (diff === null) return { changed: false, onBoard: q3([...held.values()].reduce((a, b) => a + b, 0)) };
+      await tx.insert(stockMovement).values({ ...base, locationId: input.locationId, kind: "counted", quantity: diff, reason: input.reason });
+    } else {
+      const problem = unitProblem(p.unit, input.quantity, "quantity") ?? takeProblem(held.get(input.locationId) ?? 0, input.quantity, here, unit);
+      if (problem) throw invalidInput([problem]);
+      const moveId = randomUUID();
+      await tx.insert(stockMovement).values([
+        { ...base, locationId: input.locationId, kind: "moved-out", quantity: -input.quantity, moveId, reason: input.reason },
+        { ...base, locationId: input.toLocationId, kind: "moved-in", quantity: input.quantity, moveId, reason: input.reason },
+      ]);
+    }
+    const [after] = await tx
+      .select({ total: sql<string>`coalesce(sum(${stockMovement.quantity}), 0)` })
+      .from(stockMovement)
+      .where(and(eq(stockMovement.companyId, companyId), eq(stockMovement.vesselId, vessel.id), eq(stockMovement.partId, p.id)));
+    return { changed: true, onBoard: q3(Number(after!.total)) };
+  });
+}
+
+/** A part's last movements on the vessel, newest first. */
+export async function recentMovements(access: Access, vessel: VesselRef, partId: string, limit = 50): Promise<RecentMovement[]> {
+  const rows = await getDb()
+    .select({ kind: stockMovement.kind, quantity: stockMovement.quantity, reason: stockMovement.reason, at: stockMovement.movedAt, by: user.name, store: storeLocation.store, rack: storeLocation.rack, bin: storeLocation.bin })
+    .from(stockMovement)
+    .innerJoin(storeLocation, eq(storeLocation.id, stockMovement.locationId))
+    .leftJoin(user, eq(user.id, stockMovement.movedBy))
+    .where(and(eq(stockMovement.companyId, access.company.id), eq(stockMovement.vesselId, vessel.id), eq(stockMovement.partId, partId)))
+    .orderBy(desc(stockMovement.movedAt))
+    .limit(limit);
+  return rows.map((r) => ({ kind: r.kind, quantity: r.quantity, place: place(r), reason: r.reason, by: r.by, at: r.at.toISOString() }));
+}
