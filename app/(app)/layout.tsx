@@ -40,6 +40,12 @@ export default async function AppLayout({ children }: { children: React.ReactNod
               >
                 Vessels
               </Link>
+              <Link
+                href="/parts"
+                className="rounded px-2 py-1 font-medium text-ink-700 hover:bg-ink-100 dark:text-ink-200 dark:hover:bg-ink-800"
+              >
+                Parts
+              </Link>
               {can(access.role, "fleet:read") && (
                 <Link
                   href="/fleet"

@@ -8,6 +8,7 @@ import { closeDb, getDb, type Tx } from "../client";
 import * as s from "../schema";
 import { seedHistory } from "./history";
 import { onboardDemoVessels } from "./onboarding";
+import { seedParts } from "./parts";
 import { seedPortStays } from "./port-stays";
 import { instantOfShipTime } from "../../server/format/hours";
 import { recomputeVessel } from "../../server/scheduling/recompute";
@@ -24,6 +25,7 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
   if (existing) {
     // A start stopped between the demo and its onboarding import finishes the import now.
     await onboardDemoVessels(existing.id, now);
+    await seedParts(db, existing.id, now);
     return "present";
   }
 
@@ -116,6 +118,7 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
   });
   const [co] = await db.select().from(s.company).where(eq(s.company.slug, demoCompany.slug));
   await onboardDemoVessels(co!.id, now);
+  await seedParts(db, co!.id, now);
   // What the worker would write after the readings: rates, work orders and their states.
   for (const v of await db.select().from(s.vessel).where(eq(s.vessel.companyId, co!.id))) {
     const run = await recomputeVessel(db, co!.id, v.id, now);

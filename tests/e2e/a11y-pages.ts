@@ -50,6 +50,8 @@ export const PAGES: Record<string, PageEntry> = {
   "/vessels/[vesselId]/register": section("register"),
   "/vessels/[vesselId]/register/import": section("register/import"),
   "/vessels/[vesselId]/port-stays": section("port-stays"),
+  "/vessels/[vesselId]/stores": section("stores", "tbody tr"),
+  "/parts": at(CHIEF, "/parts"),
   "/vessels/[vesselId]/port-stays/[stayId]": onVessel((ids) => `/port-stays/${ids.stayId}`),
   "/vessels/[vesselId]/port-stays/[stayId]/sheet": onVessel((ids) => `/port-stays/${ids.stayId}/sheet`),
   "/vessels/[vesselId]/work-orders/[workOrderId]": onVessel((ids) => `/work-orders/${ids.workOrderId}`),

@@ -7,6 +7,7 @@ const SECTIONS = [
   { slug: "port-stays", label: "Port stays" },
   { slug: "routines", label: "Routines" },
   { slug: "register", label: "Machinery register" },
+  { slug: "stores", label: "Stores" },
 ] as const;
 
 export function VesselTabs({ vesselId }: { vesselId: string }) {
