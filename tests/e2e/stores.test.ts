@@ -40,7 +40,8 @@ describe("the stores on board", () => {
     const panel = page.getByRole("dialog", { name: "Receive parts" });
     await panel.getByLabel(/^Quantity/).fill("2.5");
     await panel.getByRole("button", { name: "Receive" }).click();
-    await expect.poll(() => panel.getByText("This part is counted in whole pieces; enter a whole number.").count()).toBe(1);
+    await expect.poll(() => panel.getByText("This part is counted in whole pieces; enter a whole number.").count(), { timeout: 10_000 }).toBe(1);
+    await screenshot(page, "stores-half-tube");
     await panel.getByLabel(/^Quantity/).fill("4");
     await panel.getByLabel("Remark").fill("Delivered in port");
     await panel.getByRole("button", { name: "Receive" }).click();
