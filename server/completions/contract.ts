@@ -8,6 +8,7 @@ import { MeterValue, SHIP_DAY_FORMAT, ShipClock } from "@/server/readings/contra
 import { RANKS } from "@/server/routines/ranks";
 import { DUE_FIELDS, HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
 import type { WorkOrderView } from "@/server/work-orders/view";
+import type { FittingPart } from "@/server/parts/contract";
 
 /** The most man-hours one job may take, spent or estimated (a routine's estimate has the same limit). */
 export const MAX_JOB_MAN_HOURS = 9_999;
@@ -221,6 +222,8 @@ export type WorkOrderDetail = {
   may: { record: boolean; approve: boolean };
   /** The people of the company on this vessel who may answer for a job: the responsible person's choices. */
   responsibleChoices: { id: string; name: string; role: string; rank: string | null }[];
+  /** The catalogue's parts that fit the component (or those above it), with what is on board. */
+  partsOnBoard: FittingPart[];
 };
 
 export type CompletionResult = { completionId: string; status: CompletionStatus; followUpNumber: string | null };

@@ -29,6 +29,7 @@ import {
   DETAIL_FIELDS,
   type WorkOrderDetail,
 } from "./contract";
+import { partsForComponent } from "@/server/parts/queries";
 
 const HISTORY_LIMIT = 25;
 
@@ -98,6 +99,7 @@ export async function loadWorkOrderDetail(
       approve: can(access.role, "work:approve"),
     },
     responsibleChoices: await responsibleChoices(db, companyId, vessel.id),
+    partsOnBoard: await partsForComponent(companyId, vessel.id, w.componentId),
     deferrals: await loadWorkOrderDeferrals(access, vessel, w, now),
   };
 }

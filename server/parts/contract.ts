@@ -131,5 +131,7 @@ export type StoresView = {
   lines: StockLine[];
   canWrite: boolean;
 };
+/** A part that fits a work order's component (or one above it), with what the vessel holds. */
+export type FittingPart = { id: string; number: string; description: string; unit: string; critical: boolean; minimumOnBoard: number; onBoard: number; low: boolean; fits: string };
 export type RecentMovement = { kind: StockMove; quantity: number; place: string; reason: string; by: string | null; at: string };
 export { STOCK_MOVES };

@@ -9,7 +9,7 @@ import { component, part, partFit, stockMovement, storeLocation, user, vessel as
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { AppError, invalidInput } from "@/server/http/problem";
-import { type Catalogue, type CataloguePart, type MovementValues, type PartValues, type RecentMovement, type StoresView, UNIT_LABEL } from "./contract";
+import { type Catalogue, type CataloguePart, type FittingPart, type MovementValues, type PartValues, type RecentMovement, type StoresView, UNIT_LABEL } from "./contract";
 import { countDifference, isLow, q3, stockByLocation, takeProblem, unitProblem } from "./stock";
 
 /** A catalogue larger than this is paged by the company's own tools; the page lists this many. */
@@ -211,4 +211,43 @@ export async function recentMovements(access: Access, vessel: VesselRef, partId:
     .orderBy(desc(stockMovement.movedAt))
     .limit(limit);
   return rows.map((r) => ({ kind: r.kind, quantity: r.quantity, place: place(r), reason: r.reason, by: r.by, at: r.at.toISOString() }));
+}
+
+
+/**
+ * The catalogue's parts that fit a component or the components above it (a cylinder unit's job
+ * needs the engine's parts too), each with what the vessel holds: the work order shows them.
+ */
+export async function partsForComponent(companyId: string, vesselId: string, componentId: string): Promise<FittingPart[]> {
+  const db = getDb();
+  const tree = await db
+    .select({ id: component.id, code: component.code, parentId: component.parentId })
+    .from(component)
+    .where(and(eq(component.companyId, companyId), eq(component.vesselId, vesselId)));
+  const byId = new Map(tree.map((c) => [c.id, c]));
+  const line: string[] = [];
+  // Up the tree, each component once: a broken tree cannot loop.
+  for (let at = byId.get(componentId); at && !line.includes(at.id); at = at.parentId ? byId.get(at.parentId) : undefined) line.push(at.id);
+  if (!line.length) return [];
+  const rows = await db
+    .select({ p: part, componentId: partFit.componentId })
+    .from(partFit)
+    .innerJoin(part, eq(part.id, partFit.partId))
+    .where(and(eq(partFit.companyId, companyId), inArray(partFit.componentId, line)))
+    .orderBy(asc(part.number));
+  if (!rows.length) return [];
+  const ids = [...new Set(rows.map((r) => r.p.id))];
+  const sums = await db
+    .select({ partId: stockMovement.partId, total: sql<string>`sum(${stockMovement.quantity})` })
+    .from(stockMovement)
+    .where(and(eq(stockMovement.companyId, companyId), eq(stockMovement.vesselId, vesselId), inArray(stockMovement.partId, ids)))
+    .groupBy(stockMovement.partId);
+  const held = new Map(sums.map((s) => [s.partId, q3(Number(s.total))]));
+  const seen = new Set<string>();
+  return rows.flatMap(({ p, componentId: fitted }) => {
+    if (seen.has(p.id)) return [];
+    seen.add(p.id);
+    const onBoardNow = held.get(p.id) ?? 0;
+    return [{ id: p.id, number: p.number, description: p.description, unit: UNIT_LABEL[p.unit], critical: p.critical, minimumOnBoard: p.minimumOnBoard, onBoard: onBoardNow, low: isLow(onBoardNow, p.minimumOnBoard) || onBoardNow <= 0, fits: byId.get(fitted)?.code ?? "" }];
+  });
 }

@@ -131,4 +131,15 @@ describe("the stores on board", () => {
     expect(low).toMatchObject({ onBoard: 4, low: true });
     expect(await testDb().select().from(s.stockMovement).where(and(eq(s.stockMovement.companyId, other.companyId)))).toEqual([]);
   });
+
+  it("shows a job on the cylinder unit the parts that fit it, with what is on board", async () => {
+    const [wo] = await testDb()
+      .insert(s.workOrder)
+      .values({ companyId: f.companyId, vesselId: f.vesselA.id, componentId: cylinderId, number: "WO-PARTS-1", occurrence: 1, title: "Piston overhaul", state: "scheduled" })
+      .returning();
+    const detail = await api<{ partsOnBoard: { number: string; onBoard: number; low: boolean; fits: string }[] }>(viewer, "GET", `/api/vessels/${f.vesselA.id}/work-orders/${wo!.id}`);
+    expect(detail.status).toBe(200);
+    // The ring set fits ME.CYL.1 (4 on board, under its minimum of 5); the cylinder oil fits nothing here.
+    expect(detail.body.partsOnBoard).toEqual([expect.objectContaining({ number: "KP-10432", onBoard: 4, low: true, fits: "ME.CYL.1" })]);
+  });
 });

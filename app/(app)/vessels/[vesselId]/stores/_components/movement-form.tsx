@@ -6,7 +6,8 @@ import { type Resolver, useForm, useWatch } from "react-hook-form";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
 import { useSendForm } from "@/app/_components/forms/use-send-form";
-import { MovementInput, type MovementValues, type StockLine, UNIT_LABEL } from "@/server/parts/contract";
+import { LoadProblem } from "@/app/_components/notice";
+import { type CataloguePart, MovementInput, type MovementValues, type StockLine, UNIT_LABEL } from "@/server/parts/contract";
 import { useCatalogue, useRecordMovement } from "./use-stores";
 
 export type MoveKind = MovementValues["kind"];
@@ -22,8 +23,16 @@ type Props = {
   onCancel: () => void;
 };
 
-export function MovementForm({ vesselId, kind, partId, locations, lines, onDone, onCancel }: Props) {
+export function MovementForm(props: Props) {
   const catalogue = useCatalogue();
+  // The part list must be there before the form takes its values: a select without the chosen
+  // part's option would read as "no part chosen".
+  if (catalogue.error) return <LoadProblem what="parts catalogue" error={catalogue.error} />;
+  if (!catalogue.data) return <p aria-busy="true">Loading the parts catalogue…</p>;
+  return <LoadedMovementForm {...props} parts={catalogue.data.parts} />;
+}
+
+function LoadedMovementForm({ vesselId, kind, partId, locations, lines, onDone, onCancel, parts }: Props & { parts: CataloguePart[] }) {
   const record = useRecordMovement(vesselId);
   const line = lines.find((l) => l.part.id === partId);
   const form = useForm<Values, unknown, MovementValues>({
@@ -33,7 +42,7 @@ export function MovementForm({ vesselId, kind, partId, locations, lines, onDone,
   const { register, formState, control } = form;
   const { errors, isSubmitting } = formState;
   const chosen = useWatch({ control, name: "partId" });
-  const part = catalogue.data?.parts.find((p) => p.id === chosen);
+  const part = parts.find((p) => p.id === chosen);
   const unit = part ? UNIT_LABEL[part.unit] : "";
   const { onSubmit, problem } = useSendForm(form, {
     fields: ["partId", "locationId", "toLocationId", "quantity", "counted", "reason"],
@@ -48,10 +57,10 @@ export function MovementForm({ vesselId, kind, partId, locations, lines, onDone,
   return (
     <form onSubmit={onSubmit} noValidate className="grid gap-4">
       <input type="hidden" {...register("kind")} />
-      <Field id="move-part" label="Part" error={error("partId")} hint={catalogue.isPending ? "Loading the catalogue…" : undefined}>
+      <Field id="move-part" label="Part" error={error("partId")}>
         <select className="field" {...describedBy("move-part", error("partId"))} {...register("partId")}>
           <option value="">Choose a part…</option>
-          {(catalogue.data?.parts ?? []).map((p) => (
+          {parts.map((p) => (
             <option key={p.id} value={p.id}>
               {p.number} — {p.description}
             </option>

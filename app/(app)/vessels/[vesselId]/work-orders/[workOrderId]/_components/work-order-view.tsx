@@ -33,12 +33,13 @@ export function WorkOrderView({ vesselId, workOrderId }: Props) {
       </p>
       <WorkOrderSummary detail={detail} />
       <Cautions cautions={detail.routine?.cautions ?? []} />
-      {detail.routine?.spareParts && (
+      {(detail.routine?.spareParts || detail.partsOnBoard.length > 0) && (
         <section aria-labelledby="parts-heading" className="panel p-4">
           <h2 id="parts-heading" className="text-base font-semibold">
             Spare parts to have ready
           </h2>
-          <p className="mt-1 whitespace-pre-line">{detail.routine.spareParts}</p>
+          {detail.routine?.spareParts && <p className="mt-1 whitespace-pre-line">{detail.routine.spareParts}</p>}
+          {detail.partsOnBoard.length > 0 && <PartsOnBoard detail={detail} />}
         </section>
       )}
       <Notice message={message} className="no-print" />
@@ -108,4 +109,43 @@ function CompletionPart({ detail, onMessage }: { detail: WorkOrderDetail; onMess
     );
   }
   return record;
+}
+
+/** The catalogue's parts for this component and what the vessel holds of each. */
+function PartsOnBoard({ detail }: { detail: WorkOrderDetail }) {
+  return (
+    <div className="mt-3">
+      <p className="text-sm text-ink-600 dark:text-ink-300">
+        Parts in the catalogue for {detail.component.code} and the machinery it belongs to, with what is on board (
+        <Link href={`/vessels/${detail.vessel.id}/stores`} className="text-tide-700 underline underline-offset-2 dark:text-tide-300">
+          Stores
+        </Link>
+        ):
+      </p>
+      <table className="mt-2 w-full max-w-2xl text-left text-sm">
+        <thead>
+          <tr className="text-ink-600 dark:text-ink-300">
+            <th scope="col" className="py-1 pr-3 font-medium">Part</th>
+            <th scope="col" className="py-1 pr-3 font-medium">For</th>
+            <th scope="col" className="py-1 text-right font-medium">On board</th>
+          </tr>
+        </thead>
+        <tbody>
+          {detail.partsOnBoard.map((p) => (
+            <tr key={p.id} className="border-t border-ink-100 align-top dark:border-ink-800">
+              <th scope="row" className="py-1 pr-3 font-normal">
+                <span className="font-mono">{p.number}</span> {p.description}
+                {p.critical && <span className="ml-1 text-xs font-semibold text-brass-700 dark:text-brass-300">(critical spare)</span>}
+              </th>
+              <td className="py-1 pr-3 font-mono text-xs">{p.fits}</td>
+              <td className={`py-1 text-right tabular-nums ${p.low ? "font-semibold text-alarm-700 dark:text-alarm-300" : ""}`}>
+                {p.onBoard} {p.unit}
+                {p.low && <span className="block text-xs">{p.onBoard <= 0 ? "none on board" : `under the minimum of ${p.minimumOnBoard}`}</span>}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
 }
