@@ -22,6 +22,16 @@ CREATE TABLE "part_fit" (
 	CONSTRAINT "part_fit_partId_componentId_unique" UNIQUE("part_id","component_id")
 );
 --> statement-breakpoint
+CREATE TABLE "routine_part" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"company_id" uuid NOT NULL,
+	"routine_id" uuid NOT NULL,
+	"part_id" uuid NOT NULL,
+	"quantity" numeric(12, 3) NOT NULL,
+	CONSTRAINT "routine_part_routineId_partId_unique" UNIQUE("routine_id","part_id"),
+	CONSTRAINT "routine_part_quantity" CHECK ("routine_part"."quantity" > 0)
+);
+--> statement-breakpoint
 CREATE TABLE "stock_movement" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"company_id" uuid NOT NULL,
@@ -55,6 +65,9 @@ ALTER TABLE "part" ADD CONSTRAINT "part_company_id_company_id_fk" FOREIGN KEY ("
 ALTER TABLE "part_fit" ADD CONSTRAINT "part_fit_company_id_company_id_fk" FOREIGN KEY ("company_id") REFERENCES "public"."company"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "part_fit" ADD CONSTRAINT "part_fit_part_id_part_id_fk" FOREIGN KEY ("part_id") REFERENCES "public"."part"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "part_fit" ADD CONSTRAINT "part_fit_component_id_component_id_fk" FOREIGN KEY ("component_id") REFERENCES "public"."component"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "routine_part" ADD CONSTRAINT "routine_part_company_id_company_id_fk" FOREIGN KEY ("company_id") REFERENCES "public"."company"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "routine_part" ADD CONSTRAINT "routine_part_routine_id_routine_id_fk" FOREIGN KEY ("routine_id") REFERENCES "public"."routine"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "routine_part" ADD CONSTRAINT "routine_part_part_id_part_id_fk" FOREIGN KEY ("part_id") REFERENCES "public"."part"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "stock_movement" ADD CONSTRAINT "stock_movement_company_id_company_id_fk" FOREIGN KEY ("company_id") REFERENCES "public"."company"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "stock_movement" ADD CONSTRAINT "stock_movement_vessel_id_vessel_id_fk" FOREIGN KEY ("vessel_id") REFERENCES "public"."vessel"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "stock_movement" ADD CONSTRAINT "stock_movement_part_id_part_id_fk" FOREIGN KEY ("part_id") REFERENCES "public"."part"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
@@ -64,5 +77,6 @@ ALTER TABLE "stock_movement" ADD CONSTRAINT "stock_movement_moved_by_user_id_fk"
 ALTER TABLE "store_location" ADD CONSTRAINT "store_location_company_id_company_id_fk" FOREIGN KEY ("company_id") REFERENCES "public"."company"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "store_location" ADD CONSTRAINT "store_location_vessel_id_vessel_id_fk" FOREIGN KEY ("vessel_id") REFERENCES "public"."vessel"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "part_fit_company_id_component_id_index" ON "part_fit" USING btree ("company_id","component_id");--> statement-breakpoint
+CREATE INDEX "routine_part_company_id_part_id_index" ON "routine_part" USING btree ("company_id","part_id");--> statement-breakpoint
 CREATE INDEX "stock_movement_company_id_vessel_id_part_id_index" ON "stock_movement" USING btree ("company_id","vessel_id","part_id");--> statement-breakpoint
 CREATE INDEX "stock_movement_company_id_vessel_id_moved_at_index" ON "stock_movement" USING btree ("company_id","vessel_id","moved_at");

@@ -6,6 +6,7 @@ import { boolean, check, index, numeric, pgTable, text, unique, uuid } from "dri
 import { user } from "./auth";
 import { component } from "./machinery";
 import { companyRef, instant, nowStamp, vesselRef } from "./refs";
+import { routine } from "./maintenance";
 import { workOrder } from "./work-orders";
 
 export const PART_UNITS = ["piece", "set", "litre", "kg", "metre"] as const;
@@ -107,4 +108,21 @@ export const stockMovement = pgTable(
       or (${t.kind} in ('used', 'moved-out') and ${t.quantity} < 0)
       or (${t.kind} = 'counted' and ${t.quantity} <> 0)`),
   ],
+);
+
+/** The parts a routine needs each time it is done, with quantities (a bolt set renewed, a litre of sealant). */
+export const routinePart = pgTable(
+  "routine_part",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: companyRef(),
+    routineId: uuid()
+      .notNull()
+      .references(() => routine.id, { onDelete: "cascade" }),
+    partId: uuid()
+      .notNull()
+      .references(() => part.id, { onDelete: "restrict" }),
+    quantity: quantity().notNull(),
+  },
+  (t) => [unique().on(t.routineId, t.partId), index().on(t.companyId, t.partId), check("routine_part_quantity", sql`${t.quantity} > 0`)],
 );

@@ -27,6 +27,20 @@ const CATALOGUE: DemoPart[] = [
   { number: "BW-1051", makerRef: "", description: "Packing cord, graphite, 10 mm", unit: "metre", fits: [] },
 ];
 
+/** What a job takes each time, by the routine's title (demo and onboarded wordings alike). */
+const NEEDS: { title: RegExp; part: string; quantity: number }[] = [
+  { title: /piston overhaul/i, part: "BW-1001", quantity: 1 },
+  { title: /piston overhaul/i, part: "BW-1004", quantity: 1 },
+  { title: /piston overhaul/i, part: "BW-1040", quantity: 1 },
+  { title: /exhaust valve overhaul/i, part: "BW-1002", quantity: 1 },
+  { title: /fuel valves? pressure test/i, part: "BW-1003", quantity: 3 },
+  { title: /generator.*lube oil|lube oil.*generator/i, part: "BW-1010", quantity: 2 },
+  { title: /injector pressure test|injection valve test/i, part: "BW-1011", quantity: 1 },
+  { title: /cylinder heads?/i, part: "BW-1012", quantity: 1 },
+  { title: /purifier.*bowl|bowl cleaning/i, part: "BW-1020", quantity: 1 },
+  { title: /compressor.*valves? overhaul|compressor valve overhaul/i, part: "BW-1021", quantity: 1 },
+];
+
 export async function seedParts(db: Db, companyId: string, now: Date): Promise<void> {
   const [present] = await db.select({ id: s.part.id }).from(s.part).where(eq(s.part.companyId, companyId)).limit(1);
   if (present) return;
@@ -40,6 +54,14 @@ export async function seedParts(db: Db, companyId: string, now: Date): Promise<v
       .returning();
     const fits = CATALOGUE.flatMap((p, i) => components.filter((c) => p.fits.includes(c.code)).map((c) => ({ companyId, partId: parts[i]!.id, componentId: c.id })));
     if (fits.length) await tx.insert(s.partFit).values(fits);
+    const byNumber = new Map(parts.map((p) => [p.number, p.id]));
+    const routines = await tx.select({ id: s.routine.id, title: s.routine.title }).from(s.routine).where(eq(s.routine.companyId, companyId));
+    const needs = routines.flatMap((r) =>
+      NEEDS.filter((n) => n.title.test(r.title)).map((n) => ({ companyId, routineId: r.id, partId: byNumber.get(n.part)!, quantity: n.quantity })),
+    );
+    // One row per routine and part: the first rule naming a part wins.
+    const once = [...new Map(needs.map((n) => [`${n.routineId} ${n.partId}`, n])).values()];
+    for (let i = 0; i < once.length; i += 1000) await tx.insert(s.routinePart).values(once.slice(i, i + 1000));
     for (const [n, v] of vessels.entries()) {
       const random = seededRandom(900 + n);
       const [store, rackB, workshop] = await tx

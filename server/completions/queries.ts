@@ -99,7 +99,7 @@ export async function loadWorkOrderDetail(
       approve: can(access.role, "work:approve"),
     },
     responsibleChoices: await responsibleChoices(db, companyId, vessel.id),
-    partsOnBoard: await partsForComponent(companyId, vessel.id, w.componentId),
+    partsOnBoard: await partsForComponent(companyId, vessel.id, w.componentId, w.routineId),
     deferrals: await loadWorkOrderDeferrals(access, vessel, w, now),
   };
 }

@@ -47,19 +47,31 @@ export const PartNumber = z
     message: "The part number holds letters, digits and . _ / - (at most 40), e.g. KP-10432.",
   });
 
-export const PartInput = z.object({
+const partFields = {
   number: PartNumber,
-  makerRef: text("Maker’s reference", 80).default(""),
+  makerRef: text("Maker’s reference", 80),
   description: text("Description", 200).min(2, { message: "Describe the part, e.g. “Piston ring set, cylinder unit”." }),
-  unit: z.enum(PART_UNITS, { message: `Unit: one of ${PART_UNITS.join(", ")}.` }).default("piece"),
-  critical: z.boolean({ message: "Critical spare: true or false." }).default(false),
-  minimumOnBoard: Minimum.default(0),
+  unit: z.enum(PART_UNITS, { message: `Unit: one of ${PART_UNITS.join(", ")}.` }),
+  critical: z.boolean({ message: "Critical spare: true or false." }),
+  minimumOnBoard: Minimum,
   /** The components it fits, on any of the company's vessels. */
-  fits: z.array(z.uuid({ message: "Choose the components from the list." }), { message: "Choose the components from the list." }).max(200, { message: "A part fits at most 200 components here." }).default([]),
+  fits: z
+    .array(z.uuid({ message: "Choose the components from the list." }), { message: "Choose the components from the list." })
+    .max(200, { message: "A part fits at most 200 components here." }),
+};
+
+export const PartInput = z.object({
+  ...partFields,
+  makerRef: partFields.makerRef.default(""),
+  unit: partFields.unit.default("piece"),
+  critical: partFields.critical.default(false),
+  minimumOnBoard: partFields.minimumOnBoard.default(0),
+  fits: partFields.fits.default([]),
 });
 export type PartInput = z.input<typeof PartInput>;
 export type PartValues = z.output<typeof PartInput>;
-export const PartPatch = PartInput.partial();
+/** A change: only the fields sent (no defaults, or a change of the minimum would reset the unit). */
+export const PartPatch = z.object(partFields).partial();
 
 export const LocationInput = z.object({
   store: text("Store", 60).min(1, { message: "Name the store, e.g. Engine store." }),
@@ -132,6 +144,29 @@ export type StoresView = {
   canWrite: boolean;
 };
 /** A part that fits a work order's component (or one above it), with what the vessel holds. */
-export type FittingPart = { id: string; number: string; description: string; unit: string; critical: boolean; minimumOnBoard: number; onBoard: number; low: boolean; fits: string };
+export type FittingPart = {
+  id: string;
+  number: string;
+  description: string;
+  unit: string;
+  critical: boolean;
+  minimumOnBoard: number;
+  onBoard: number;
+  low: boolean;
+  /** The component it is listed for; empty for a part the routine names that is listed for none. */
+  fits: string;
+  /** What the routine needs each time; null for a part that only fits. */
+  needed: number | null;
+  /** Needed but not on board. */
+  short: number;
+};
 export type RecentMovement = { kind: StockMove; quantity: number; place: string; reason: string; by: string | null; at: string };
 export { STOCK_MOVES };
+
+/** The parts a routine needs each time, chosen from the catalogue: the whole list, as saved. */
+export const RoutinePartsInput = z.object({
+  parts: z
+    .array(z.object({ partId: z.uuid({ message: "Choose the part from the catalogue." }), quantity: Quantity }), { message: "parts: a list of { partId, quantity }." })
+    .max(100, { message: "A routine needs at most 100 different parts." }),
+});
+export type RoutinePartsInput = z.input<typeof RoutinePartsInput>;

@@ -5,7 +5,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import { getDb, type Tx } from "@/db/client";
-import { component, part, partFit, stockMovement, storeLocation, user, vessel as vesselTable } from "@/db/schema";
+import { component, part, partFit, routine, routinePart, stockMovement, storeLocation, user, vessel as vesselTable } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { AppError, invalidInput } from "@/server/http/problem";
@@ -215,10 +215,11 @@ export async function recentMovements(access: Access, vessel: VesselRef, partId:
 
 
 /**
- * The catalogue's parts that fit a component or the components above it (a cylinder unit's job
- * needs the engine's parts too), each with what the vessel holds: the work order shows them.
+ * The parts a job needs (its routine's list, with quantities) and the catalogue's parts that fit its
+ * component or the components above it (a cylinder unit's job needs the engine's parts too), each
+ * with what the vessel holds and what is short: the work order shows them.
  */
-export async function partsForComponent(companyId: string, vesselId: string, componentId: string): Promise<FittingPart[]> {
+export async function partsForComponent(companyId: string, vesselId: string, componentId: string, routineId: string | null = null): Promise<FittingPart[]> {
   const db = getDb();
   const tree = await db
     .select({ id: component.id, code: component.code, parentId: component.parentId })
@@ -228,26 +229,78 @@ export async function partsForComponent(companyId: string, vesselId: string, com
   const line: string[] = [];
   // Up the tree, each component once: a broken tree cannot loop.
   for (let at = byId.get(componentId); at && !line.includes(at.id); at = at.parentId ? byId.get(at.parentId) : undefined) line.push(at.id);
-  if (!line.length) return [];
-  const rows = await db
-    .select({ p: part, componentId: partFit.componentId })
-    .from(partFit)
-    .innerJoin(part, eq(part.id, partFit.partId))
-    .where(and(eq(partFit.companyId, companyId), inArray(partFit.componentId, line)))
-    .orderBy(asc(part.number));
-  if (!rows.length) return [];
-  const ids = [...new Set(rows.map((r) => r.p.id))];
+  const fitting = line.length
+    ? await db
+        .select({ p: part, componentId: partFit.componentId })
+        .from(partFit)
+        .innerJoin(part, eq(part.id, partFit.partId))
+        .where(and(eq(partFit.companyId, companyId), inArray(partFit.componentId, line)))
+        .orderBy(asc(part.number))
+    : [];
+  const needs = routineId
+    ? await db
+        .select({ p: part, quantity: routinePart.quantity })
+        .from(routinePart)
+        .innerJoin(part, eq(part.id, routinePart.partId))
+        .where(and(eq(routinePart.companyId, companyId), eq(routinePart.routineId, routineId)))
+        .orderBy(asc(part.number))
+    : [];
+  const ids = [...new Set([...needs.map((n) => n.p.id), ...fitting.map((r) => r.p.id)])];
+  if (!ids.length) return [];
   const sums = await db
     .select({ partId: stockMovement.partId, total: sql<string>`sum(${stockMovement.quantity})` })
     .from(stockMovement)
     .where(and(eq(stockMovement.companyId, companyId), eq(stockMovement.vesselId, vesselId), inArray(stockMovement.partId, ids)))
     .groupBy(stockMovement.partId);
   const held = new Map(sums.map((s) => [s.partId, q3(Number(s.total))]));
-  const seen = new Set<string>();
-  return rows.flatMap(({ p, componentId: fitted }) => {
-    if (seen.has(p.id)) return [];
-    seen.add(p.id);
-    const onBoardNow = held.get(p.id) ?? 0;
-    return [{ id: p.id, number: p.number, description: p.description, unit: UNIT_LABEL[p.unit], critical: p.critical, minimumOnBoard: p.minimumOnBoard, onBoard: onBoardNow, low: isLow(onBoardNow, p.minimumOnBoard) || onBoardNow <= 0, fits: byId.get(fitted)?.code ?? "" }];
+  const fitsOf = new Map<string, string>();
+  for (const r of fitting) if (!fitsOf.has(r.p.id)) fitsOf.set(r.p.id, byId.get(r.componentId)?.code ?? "");
+  const needed = new Map(needs.map((n) => [n.p.id, n.quantity]));
+  const parts = new Map([...needs.map((n) => [n.p.id, n.p] as const), ...fitting.map((r) => [r.p.id, r.p] as const)]);
+  // What the job needs first, then what fits.
+  return [...parts.values()]
+    .sort((a, b) => Number(needed.has(b.id)) - Number(needed.has(a.id)) || a.number.localeCompare(b.number))
+    .map((p) => {
+      const onBoardNow = held.get(p.id) ?? 0;
+      const need = needed.get(p.id) ?? null;
+      return {
+        id: p.id,
+        number: p.number,
+        description: p.description,
+        unit: UNIT_LABEL[p.unit],
+        critical: p.critical,
+        minimumOnBoard: p.minimumOnBoard,
+        onBoard: onBoardNow,
+        low: isLow(onBoardNow, p.minimumOnBoard) || onBoardNow <= 0,
+        fits: fitsOf.get(p.id) ?? "",
+        needed: need,
+        short: need === null ? 0 : Math.max(0, q3(need - Math.max(onBoardNow, 0))),
+      };
+    });
+}
+
+/** The parts a routine needs each time: the whole list replaced, every part the company's. */
+export async function setRoutineParts(access: Access, vessel: VesselRef, routineId: string, parts: { partId: string; quantity: number }[]) {
+  const companyId = access.company.id;
+  await getDb().transaction(async (tx) => {
+    const [r] = await tx
+      .select({ id: routine.id })
+      .from(routine)
+      .where(and(eq(routine.companyId, companyId), eq(routine.vesselId, vessel.id), eq(routine.id, routineId)));
+    if (!r) throw new AppError("not-found", "There is no such routine on this vessel.");
+    const ids = [...new Set(parts.map((p) => p.partId))];
+    if (ids.length !== parts.length) throw invalidInput([{ field: "parts", message: "Each part once: add up the quantities of a part named twice." }]);
+    const known = ids.length ? await tx.select().from(part).where(and(eq(part.companyId, companyId), inArray(part.id, ids))) : [];
+    const byId = new Map(known.map((p) => [p.id, p]));
+    const errors = parts.flatMap((p, i) => {
+      const found = byId.get(p.partId);
+      if (!found) return [{ field: `parts.${i}.partId`, message: "There is no such part in the catalogue." }];
+      const problem = unitProblem(found.unit, p.quantity, `parts.${i}.quantity`);
+      return problem ? [problem] : [];
+    });
+    if (errors.length) throw invalidInput(errors);
+    await tx.delete(routinePart).where(and(eq(routinePart.companyId, companyId), eq(routinePart.routineId, routineId)));
+    if (parts.length) await tx.insert(routinePart).values(parts.map((p) => ({ companyId, routineId, partId: p.partId, quantity: p.quantity })));
   });
+  return { parts };
 }

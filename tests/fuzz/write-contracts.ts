@@ -104,6 +104,7 @@ export const EXAMPLES: Record<string, (c: ExampleContext) => Example> = {
   "POST /api/vessels/[vesselId]/import/copy": (c) => ({ body: { fromVesselId: c.componentId } }),
   "POST /api/parts": (c) => ({ body: { number: `FZ-${c.tag.slice(0, 8)}`, description: "Fuzz gasket", unit: "piece", fits: [c.componentId] } }),
   "PATCH /api/parts/[partId]": () => ({ body: { description: "Fuzz gasket, renamed", minimumOnBoard: "2" } }),
+  "PUT /api/vessels/[vesselId]/routines/[routineId]/parts": () => ({ body: { parts: [] } }),
   "POST /api/vessels/[vesselId]/stores/locations": (c) => ({ body: { store: `Fuzz store ${c.tag}`, rack: "1", bin: "A" } }),
   "POST /api/vessels/[vesselId]/stores/movements": (c) => ({ body: { kind: "received", partId: c.componentId, locationId: c.componentId, quantity: 2 } }),
   "POST /api/vessels/[vesselId]/components": (c) => ({ body: { code: `FZ.${c.tag.slice(0, 6)}`, name: "Fuzz pump" } }),

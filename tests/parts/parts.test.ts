@@ -129,6 +129,9 @@ describe("the stores on board", () => {
     await api(superintendent, "PATCH", `/api/parts/${ringSet.id}`, { minimumOnBoard: 5 });
     const low = (await api<StoresView>(viewer, "GET", `/api/vessels/${f.vesselA.id}/stores`)).body.lines.find((l) => l.part.id === ringSet.id);
     expect(low).toMatchObject({ onBoard: 4, low: true });
+    // The change touched the minimum only.
+    const [stored] = await testDb().select().from(s.part).where(eq(s.part.id, ringSet.id));
+    expect(stored).toMatchObject({ unit: "set", critical: true, makerRef: "HV-90-221", minimumOnBoard: 5 });
     expect(await testDb().select().from(s.stockMovement).where(and(eq(s.stockMovement.companyId, other.companyId)))).toEqual([]);
   });
 
@@ -140,6 +143,23 @@ describe("the stores on board", () => {
     const detail = await api<{ partsOnBoard: { number: string; onBoard: number; low: boolean; fits: string }[] }>(viewer, "GET", `/api/vessels/${f.vesselA.id}/work-orders/${wo!.id}`);
     expect(detail.status).toBe(200);
     // The ring set fits ME.CYL.1 (4 on board, under its minimum of 5); the cylinder oil fits nothing here.
-    expect(detail.body.partsOnBoard).toEqual([expect.objectContaining({ number: "KP-10432", onBoard: 4, low: true, fits: "ME.CYL.1" })]);
+    expect(detail.body.partsOnBoard).toEqual([expect.objectContaining({ number: "KP-10432", onBoard: 4, low: true, fits: "ME.CYL.1", needed: null, short: 0 })]);
+
+    // The overhaul's routine needs 6 ring sets (4 on board: 2 short) and 25 l of oil (20.5 l on board: 4.5 l short).
+    const [overhaul] = await testDb()
+      .insert(s.routine)
+      .values({ companyId: f.companyId, vesselId: f.vesselA.id, componentId: cylinderId, title: "Piston overhaul", intervalHours: 16000, rank: "second-engineer", estimatedManHours: 12 })
+      .returning();
+    const path = `/api/vessels/${f.vesselA.id}/routines/${overhaul!.id}/parts`;
+    const half = await api<Problem>(chief, "PUT", path, { parts: [{ partId: ringSet.id, quantity: 1.5 }] });
+    expect(half.body.errors).toEqual([{ field: "parts.0.quantity", message: "This part is counted in whole sets; enter a whole number." }]);
+    expect((await api(engineer, "PUT", path, { parts: [] })).status).toBe(403);
+    expect((await api(chief, "PUT", path, { parts: [{ partId: ringSet.id, quantity: 6 }, { partId: oil.id, quantity: "25" }] })).status).toBe(200);
+    await testDb().update(s.workOrder).set({ routineId: overhaul!.id }).where(eq(s.workOrder.id, wo!.id));
+    const needs = await api<{ partsOnBoard: { number: string; needed: number | null; short: number }[] }>(viewer, "GET", `/api/vessels/${f.vesselA.id}/work-orders/${wo!.id}`);
+    expect(needs.body.partsOnBoard.map((p) => [p.number, p.needed, p.short])).toEqual([
+      ["KP-10432", 6, 2],
+      ["LO-40", 25, 4.5],
+    ]);
   });
 });

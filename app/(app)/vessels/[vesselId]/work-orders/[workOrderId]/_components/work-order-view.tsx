@@ -111,22 +111,30 @@ function CompletionPart({ detail, onMessage }: { detail: WorkOrderDetail; onMess
   return record;
 }
 
-/** The catalogue's parts for this component and what the vessel holds of each. */
+/** The parts the job needs and the catalogue's parts for this component, against what the vessel holds. */
 function PartsOnBoard({ detail }: { detail: WorkOrderDetail }) {
+  const short = detail.partsOnBoard.filter((p) => p.short > 0);
   return (
     <div className="mt-3">
       <p className="text-sm text-ink-600 dark:text-ink-300">
-        Parts in the catalogue for {detail.component.code} and the machinery it belongs to, with what is on board (
+        What the routine needs, and the catalogue’s parts for {detail.component.code} and the machinery it belongs to,
+        against what is on board (
         <Link href={`/vessels/${detail.vessel.id}/stores`} className="text-tide-700 underline underline-offset-2 dark:text-tide-300">
           Stores
         </Link>
-        ):
+        ).{" "}
+        {short.length > 0 && (
+          <strong className="text-alarm-700 dark:text-alarm-300">
+            {short.length} part{short.length === 1 ? " is" : "s are"} short for this job.
+          </strong>
+        )}
       </p>
-      <table className="mt-2 w-full max-w-2xl text-left text-sm">
+      <table className="mt-2 w-full max-w-3xl text-left text-sm">
         <thead>
           <tr className="text-ink-600 dark:text-ink-300">
             <th scope="col" className="py-1 pr-3 font-medium">Part</th>
             <th scope="col" className="py-1 pr-3 font-medium">For</th>
+            <th scope="col" className="py-1 pr-3 text-right font-medium">Needed</th>
             <th scope="col" className="py-1 text-right font-medium">On board</th>
           </tr>
         </thead>
@@ -137,10 +145,15 @@ function PartsOnBoard({ detail }: { detail: WorkOrderDetail }) {
                 <span className="font-mono">{p.number}</span> {p.description}
                 {p.critical && <span className="ml-1 text-xs font-semibold text-brass-700 dark:text-brass-300">(critical spare)</span>}
               </th>
-              <td className="py-1 pr-3 font-mono text-xs">{p.fits}</td>
-              <td className={`py-1 text-right tabular-nums ${p.low ? "font-semibold text-alarm-700 dark:text-alarm-300" : ""}`}>
+              <td className="py-1 pr-3 font-mono text-xs">{p.fits || "—"}</td>
+              <td className="py-1 pr-3 text-right tabular-nums">{p.needed === null ? "—" : `${p.needed} ${p.unit}`}</td>
+              <td className={`py-1 text-right tabular-nums ${p.short > 0 || p.low ? "font-semibold text-alarm-700 dark:text-alarm-300" : ""}`}>
                 {p.onBoard} {p.unit}
-                {p.low && <span className="block text-xs">{p.onBoard <= 0 ? "none on board" : `under the minimum of ${p.minimumOnBoard}`}</span>}
+                {p.short > 0 ? (
+                  <span className="block text-xs">{p.short} short</span>
+                ) : (
+                  p.low && <span className="block text-xs">{p.onBoard <= 0 ? "none on board" : `under the minimum of ${p.minimumOnBoard}`}</span>
+                )}
               </td>
             </tr>
           ))}
