@@ -4,6 +4,10 @@ import { z } from "zod";
 import { PART_UNITS, type PartUnit, STOCK_MOVES, type StockMove } from "@/db/schema/parts";
 
 export const UNIT_LABEL: Record<PartUnit, string> = { piece: "pcs", set: "sets", litre: "l", kg: "kg", metre: "m" };
+/** A quantity in its unit, as people say it: "1 set", "3 sets", "2 pcs", "20.5 l". */
+export function amountText(quantity: number, unit: PartUnit): string {
+  return `${quantity} ${unit === "set" && quantity === 1 ? "set" : UNIT_LABEL[unit]}`;
+}
 /** Units counted whole: a bolt or a gasket set is never 0.5. */
 export const WHOLE_UNITS: readonly PartUnit[] = ["piece", "set"];
 
@@ -148,7 +152,7 @@ export type FittingPart = {
   id: string;
   number: string;
   description: string;
-  unit: string;
+  unit: PartUnit;
   critical: boolean;
   minimumOnBoard: number;
   onBoard: number;

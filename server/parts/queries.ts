@@ -9,7 +9,7 @@ import { component, part, partFit, routine, routinePart, stockMovement, storeLoc
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { AppError, invalidInput } from "@/server/http/problem";
-import { type Catalogue, type CataloguePart, type FittingPart, type MovementValues, type PartValues, type RecentMovement, type StoresView, UNIT_LABEL } from "./contract";
+import { type Catalogue, type CataloguePart, type FittingPart, type MovementValues, type PartValues, type RecentMovement, type StoresView } from "./contract";
 import { countDifference, isLow, q3, stockByLocation, takeProblem, unitProblem } from "./stock";
 
 /** A catalogue larger than this is paged by the company's own tools; the page lists this many. */
@@ -170,7 +170,6 @@ export async function recordMovement(access: Access, vessel: VesselRef, input: M
       .from(stockMovement)
       .where(and(eq(stockMovement.companyId, companyId), eq(stockMovement.vesselId, vessel.id), eq(stockMovement.partId, p.id)));
     const held = stockByLocation(rows);
-    const unit = UNIT_LABEL[p.unit];
     const base = { companyId, vesselId: vessel.id, partId: p.id, movedBy: access.user.id, movedAt: now };
     const here = place(at.get(input.locationId)!);
     if (input.kind === "received") {
@@ -184,7 +183,7 @@ export async function recordMovement(access: Access, vessel: VesselRef, input: M
       if (diff === null) return { changed: false, onBoard: q3([...held.values()].reduce((a, b) => a + b, 0)) };
       await tx.insert(stockMovement).values({ ...base, locationId: input.locationId, kind: "counted", quantity: diff, reason: input.reason });
     } else {
-      const problem = unitProblem(p.unit, input.quantity, "quantity") ?? takeProblem(held.get(input.locationId) ?? 0, input.quantity, here, unit);
+      const problem = unitProblem(p.unit, input.quantity, "quantity") ?? takeProblem(held.get(input.locationId) ?? 0, input.quantity, here, p.unit);
       if (problem) throw invalidInput([problem]);
       const moveId = randomUUID();
       await tx.insert(stockMovement).values([
@@ -267,7 +266,7 @@ export async function partsForComponent(companyId: string, vesselId: string, com
         id: p.id,
         number: p.number,
         description: p.description,
-        unit: UNIT_LABEL[p.unit],
+        unit: p.unit,
         critical: p.critical,
         minimumOnBoard: p.minimumOnBoard,
         onBoard: onBoardNow,

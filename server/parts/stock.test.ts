@@ -38,11 +38,16 @@ describe("stock on board", () => {
 
 describe("refusals", () => {
   it("never takes a location below zero, and sends the person to count it", () => {
-    expect(takeProblem(4, 4, "Engine store", "pcs")).toBeNull();
-    expect(takeProblem(4, 5, "Engine store", "pcs")?.message).toBe(
+    expect(takeProblem(4, 4, "Engine store", "piece")).toBeNull();
+    expect(takeProblem(4, 5, "Engine store", "piece")?.message).toBe(
       "Only 4 pcs recorded at Engine store, not 5. If more is on the shelf, count it first (a count correction with its reason).",
     );
-    expect(takeProblem(0, 1, "Workshop", "pcs")?.message).toMatch(/^Nothing is recorded at Workshop\./);
+    expect(takeProblem(0, 1, "Workshop", "piece")?.message).toMatch(/^Nothing is recorded at Workshop\./);
+  });
+
+  it("says one set, not one sets", () => {
+    expect(takeProblem(1, 2, "Workshop", "set")?.message).toMatch(/^Only 1 set recorded at Workshop, not 2\./);
+    expect(takeProblem(3, 4, "Workshop", "set")?.message).toMatch(/^Only 3 sets recorded/);
   });
 
   it("counts pieces and sets whole, litres in parts", () => {

@@ -2,7 +2,7 @@
 // so, pure. A movement that would take a location below zero is refused with the words that send
 // the person to count it; a count is stored as the difference it makes.
 import type { PartUnit } from "@/db/schema/parts";
-import { WHOLE_UNITS } from "./contract";
+import { amountText, WHOLE_UNITS } from "./contract";
 
 export type Movement = { locationId: string; quantity: number };
 
@@ -36,13 +36,13 @@ export function unitProblem(unit: PartUnit, quantity: number, field: string): Re
 }
 
 /** Taking `quantity` out of a location holding `available`: refused, never silently below zero. */
-export function takeProblem(available: number, quantity: number, place: string, unit: string, field = "quantity"): Refusal | null {
+export function takeProblem(available: number, quantity: number, place: string, unit: PartUnit, field = "quantity"): Refusal | null {
   if (quantity <= available) return null;
   return {
     field,
     message:
       available > 0
-        ? `Only ${available} ${unit} recorded at ${place}, not ${quantity}. If more is on the shelf, count it first (a count correction with its reason).`
+        ? `Only ${amountText(available, unit)} recorded at ${place}, not ${quantity}. If more is on the shelf, count it first (a count correction with its reason).`
         : `Nothing is recorded at ${place}. If the part is on the shelf, count it first (a count correction with its reason).`,
   };
 }

@@ -104,7 +104,7 @@ describe("the stores on board", () => {
     const before = await movements();
     const tooMany = await move(engineer, { kind: "moved", partId: ringSet.id, locationId: loc.workshop, toLocationId: loc.store, quantity: 2 });
     expect(tooMany.status).toBe(422);
-    expect(tooMany.body.errors).toEqual([{ field: "quantity", message: "Only 1 sets recorded at Workshop, not 2. If more is on the shelf, count it first (a count correction with its reason)." }]);
+    expect(tooMany.body.errors).toEqual([{ field: "quantity", message: "Only 1 set recorded at Workshop, not 2. If more is on the shelf, count it first (a count correction with its reason)." }]);
     expect((await move(engineer, { kind: "received", partId: ringSet.id, locationId: loc.store, quantity: 1.5 })).body.errors?.[0]?.message).toBe("This part is counted in whole sets; enter a whole number.");
     expect((await move(engineer, { kind: "counted", partId: ringSet.id, locationId: loc.store, counted: 2, reason: "" })).status).toBe(422);
     expect((await move(viewer, { kind: "received", partId: ringSet.id, locationId: loc.store, quantity: 1 })).status).toBe(403);

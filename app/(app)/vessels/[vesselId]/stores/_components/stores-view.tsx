@@ -7,7 +7,7 @@ import { type DataColumn, DataTable, TableSkeleton } from "@/app/_components/dat
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { SearchField } from "@/app/_components/search-field";
 import { LoadProblem, Notice } from "@/app/_components/notice";
-import { type StockLine, UNIT_LABEL } from "@/server/parts/contract";
+import { amountText, type StockLine } from "@/server/parts/contract";
 import { LocationForm } from "./location-form";
 import { type MoveKind, MovementForm } from "./movement-form";
 import { useStores } from "./use-stores";
@@ -55,7 +55,7 @@ export function StoresView({ vesselId }: { vesselId: string }) {
       cellClassName: "tabular-nums whitespace-nowrap",
       cell: (l) => (
         <span className={l.low ? "font-semibold text-alarm-700 dark:text-alarm-300" : ""}>
-          {l.onBoard} {UNIT_LABEL[l.part.unit]}
+          {amountText(l.onBoard, l.part.unit)}
           {l.low && <span className="block text-xs font-semibold">under the minimum of {l.part.minimumOnBoard}</span>}
         </span>
       ),

@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useState } from "react";
 import { LoadProblem, Notice } from "@/app/_components/notice";
 import type { WorkOrderDetail } from "@/server/completions/contract";
+import { amountText } from "@/server/parts/contract";
 import { AttachmentsSection } from "./attachments-section";
 import { Cautions } from "./cautions";
 import { ComponentHistory } from "./component-history";
@@ -146,9 +147,9 @@ function PartsOnBoard({ detail }: { detail: WorkOrderDetail }) {
                 {p.critical && <span className="ml-1 text-xs font-semibold text-brass-700 dark:text-brass-300">(critical spare)</span>}
               </th>
               <td className="py-1 pr-3 font-mono text-xs">{p.fits || "—"}</td>
-              <td className="py-1 pr-3 text-right tabular-nums">{p.needed === null ? "—" : `${p.needed} ${p.unit}`}</td>
+              <td className="py-1 pr-3 text-right tabular-nums">{p.needed === null ? "—" : amountText(p.needed, p.unit)}</td>
               <td className={`py-1 text-right tabular-nums ${p.short > 0 || p.low ? "font-semibold text-alarm-700 dark:text-alarm-300" : ""}`}>
-                {p.onBoard} {p.unit}
+                {amountText(p.onBoard, p.unit)}
                 {p.short > 0 ? (
                   <span className="block text-xs">{p.short} short</span>
                 ) : (
