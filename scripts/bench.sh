@@ -17,6 +17,6 @@ stack_start_fakes bench-output
 stack_start_app bench-output
 # BENCH_ONLY="access" (or any of the parts, space-separated) runs only those parts; load runs on the
 # fleet that fleet.ts leaves, or generates one when it runs alone.
-for part in ${BENCH_ONLY:-run fleet load access import weight}; do
+for part in ${BENCH_ONLY:-run fleet load access import parts weight}; do
   node_modules/.bin/tsx --conditions=react-server "scripts/bench/$part.ts"
 done

@@ -303,3 +303,21 @@ export async function setRoutineParts(access: Access, vessel: VesselRef, routine
   });
   return { parts };
 }
+
+/** The parts a routine needs, as its editor shows them. */
+export async function getRoutineParts(access: Access, vessel: VesselRef, routineId: string) {
+  const companyId = access.company.id;
+  const db = getDb();
+  const [r] = await db
+    .select({ id: routine.id })
+    .from(routine)
+    .where(and(eq(routine.companyId, companyId), eq(routine.vesselId, vessel.id), eq(routine.id, routineId)));
+  if (!r) throw new AppError("not-found", "There is no such routine on this vessel.");
+  const rows = await db
+    .select({ partId: part.id, number: part.number, description: part.description, unit: part.unit, quantity: routinePart.quantity })
+    .from(routinePart)
+    .innerJoin(part, eq(part.id, routinePart.partId))
+    .where(and(eq(routinePart.companyId, companyId), eq(routinePart.routineId, routineId)))
+    .orderBy(asc(part.number));
+  return { parts: rows };
+}

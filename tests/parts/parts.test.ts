@@ -155,6 +155,11 @@ describe("the stores on board", () => {
     expect(half.body.errors).toEqual([{ field: "parts.0.quantity", message: "This part is counted in whole sets; enter a whole number." }]);
     expect((await api(engineer, "PUT", path, { parts: [] })).status).toBe(403);
     expect((await api(chief, "PUT", path, { parts: [{ partId: ringSet.id, quantity: 6 }, { partId: oil.id, quantity: "25" }] })).status).toBe(200);
+    const listed = await api<{ parts: { number: string; quantity: number; unit: string }[] }>(viewer, "GET", path);
+    expect(listed.body.parts).toEqual([
+      expect.objectContaining({ number: "KP-10432", quantity: 6, unit: "set" }),
+      expect.objectContaining({ number: "LO-40", quantity: 25, unit: "litre" }),
+    ]);
     await testDb().update(s.workOrder).set({ routineId: overhaul!.id }).where(eq(s.workOrder.id, wo!.id));
     const needs = await api<{ partsOnBoard: { number: string; needed: number | null; short: number }[] }>(viewer, "GET", `/api/vessels/${f.vesselA.id}/work-orders/${wo!.id}`);
     expect(needs.body.partsOnBoard.map((p) => [p.number, p.needed, p.short])).toEqual([

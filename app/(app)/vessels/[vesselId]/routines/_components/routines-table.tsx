@@ -82,6 +82,9 @@ export function RoutinesTable({ list, onAction }: Props) {
                     <RowButton label={`Copy ${r.title}`} onClick={() => onAction({ kind: "copy", routine: r })}>
                       Copy
                     </RowButton>
+                    <RowButton label={`Parts for ${r.title}`} onClick={() => onAction({ kind: "parts", routine: r })}>
+                      Parts
+                    </RowButton>
                     <RowButton label={`Retire ${r.title}`} onClick={() => onAction({ kind: "retire", routine: r })}>
                       Retire
                     </RowButton>

@@ -8,6 +8,7 @@ import { SearchField } from "@/app/_components/search-field";
 import type { RoutineList, RoutineSummary } from "@/server/routines/contract";
 import { CopyRoutine } from "./copy-routine";
 import { RetireRoutine } from "./retire-routine";
+import { RoutineParts } from "./routine-parts";
 import { PlanProblems } from "./plan-problems";
 import { RoutinesTable } from "./routines-table";
 import { useRoutines } from "./use-routines";
@@ -19,7 +20,7 @@ const RoutineEditor = dynamic(() => import("./routine-editor").then((m) => m.Rou
 });
 
 /** Which panel is open beside the list, and on which routine. */
-export type Sheet = { kind: "add" } | { kind: "edit" | "copy" | "retire"; routine: RoutineSummary };
+export type Sheet = { kind: "add" } | { kind: "edit" | "copy" | "retire" | "parts"; routine: RoutineSummary };
 
 export function RoutinesView({ vesselId }: { vesselId: string }) {
   const [component, setComponent] = useState("");
@@ -114,6 +115,12 @@ function SheetFor({ sheet, list, onDone, onCancel }: SheetProps) {
       return (
         <SidePanel title="Copy routine" subtitle={sheet.routine.title} onClose={onCancel}>
           <CopyRoutine vesselId={list.vessel.id} routine={sheet.routine} onDone={onDone} onCancel={onCancel} />
+        </SidePanel>
+      );
+    case "parts":
+      return (
+        <SidePanel title="Parts it needs" subtitle={sheet.routine.title} onClose={onCancel}>
+          <RoutineParts vesselId={list.vessel.id} routine={sheet.routine} onDone={onDone} onCancel={onCancel} />
         </SidePanel>
       );
     case "retire":

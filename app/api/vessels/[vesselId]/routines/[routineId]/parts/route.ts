@@ -1,7 +1,12 @@
 import { withAccess } from "@/server/http/with-access";
 import { RoutineParams } from "@/server/http/params";
 import { RoutinePartsInput } from "@/server/parts/contract";
-import { setRoutineParts } from "@/server/parts/queries";
+import { getRoutineParts, setRoutineParts } from "@/server/parts/queries";
+
+/** The parts the routine needs each time, with their quantities. */
+export const GET = withAccess({ permission: "vessel:read", vessel: true, params: RoutineParams }, ({ access, vessel, params }) =>
+  getRoutineParts(access, vessel, params.routineId),
+);
 
 /** The parts the routine needs each time it is done, with quantities: the whole list, replaced. */
 export const PUT = withAccess(
