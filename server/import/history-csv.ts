@@ -18,7 +18,7 @@ export const HistoryQuery = z.object({
   component: ComponentCode.optional(),
 });
 
-/** More jobs than twenty years of a big vessel's; the file says when it stops. */
+/** More jobs than twenty years of a big vessel's: past it, the file holds the newest 50,000 (a component's history narrows it). */
 export const HISTORY_LIMIT = 50_000;
 
 type Row = {
