@@ -27,11 +27,11 @@ describe("the parts a routine needs", () => {
     await page.getByLabel("Search routines").fill("piston overhaul");
     await page.getByRole("button", { name: `Parts for ${TITLE}` }).first().click();
     const panel = page.getByRole("dialog", { name: "Parts it needs" });
-    await expect.poll(() => panel.getByLabel("Part 1").inputValue(), { timeout: 15_000 }).not.toBe("");
+    await expect.poll(() => panel.getByLabel("Part 1", { exact: true }).inputValue(), { timeout: 15_000 }).not.toBe("");
     const before = await panel.locator("select").count();
     await panel.getByRole("button", { name: "Add a part" }).click();
     const next = before + 1;
-    await panel.getByLabel(`Part ${next}`).selectOption({ label: "BW-1003 — Fuel valve nozzle" });
+    await panel.getByLabel(`Part ${next}`, { exact: true }).selectOption({ label: "BW-1003 — Fuel valve nozzle" });
     await panel.getByLabel(/^Quantity/).nth(next - 1).fill("1.5");
     await panel.getByRole("button", { name: "Save parts" }).click();
     await expect.poll(() => panel.getByText("This part is counted in whole pieces; enter a whole number.").count(), { timeout: 10_000 }).toBe(1);
