@@ -35,6 +35,7 @@ describe("the parts a routine needs", () => {
     await panel.getByLabel(/^Quantity/).nth(next - 1).fill("1.5");
     await panel.getByRole("button", { name: "Save parts" }).click();
     await expect.poll(() => panel.getByText("This part is counted in whole pieces; enter a whole number.").count(), { timeout: 10_000 }).toBe(1);
+    expect(await panel.getByText("Nothing was saved: correct the rows marked.").count()).toBe(1);
     await panel.getByLabel(/^Quantity/).nth(next - 1).fill("2");
     await panel.getByRole("button", { name: "Save parts" }).click();
     await expect.poll(() => page.getByText(new RegExp(`^${TITLE} needs ${next} parts each time`)).count(), { timeout: 10_000 }).toBe(1);

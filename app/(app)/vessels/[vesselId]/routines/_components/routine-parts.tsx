@@ -49,7 +49,8 @@ function PartsEditor({ path, vesselId, routine, initial, catalogue, onDone, onCa
     } catch (error) {
       const errors = (error as { problem?: { errors?: { field: string; message: string }[] } }).problem?.errors ?? [];
       setRowErrors(Object.fromEntries(errors.map((e) => [e.field, e.message])));
-      setProblem(problemSentence(error, "nothing was saved"));
+      // A row's own message stands beside the row; above the buttons, what happened.
+      setProblem(errors.some((e) => e.field.startsWith("parts.")) ? "Nothing was saved: correct the rows marked." : problemSentence(error, "nothing was saved"));
     }
   }
 
