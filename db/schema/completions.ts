@@ -18,6 +18,9 @@ export type RecordedMeasurement = {
 
 export type WorkedBy = { rank: string; name: string };
 
+/** A part used on the job, as recorded (the stock movements are the stores' side of it). */
+export type UsedPart = { partId: string; number: string; description: string; unit: string; quantity: number };
+
 /** The record of a job done: checklist, measurements, counter value, who; approved by the chief. */
 export const completion = pgTable(
   "completion",
@@ -40,6 +43,8 @@ export const completion = pgTable(
     responsibleId: text().references(() => user.id, { onDelete: "set null" }),
     /** The people who did the work, by rank and name (crew need not be Keelson users). */
     workedBy: jsonb().$type<WorkedBy[]>().notNull().default([]),
+    /** The parts used, taken from the stores on board when recorded and put back when returned. */
+    partsUsed: jsonb().$type<UsedPart[]>().notNull().default([]),
     status: text({ enum: ["awaiting-approval", "approved", "returned"] })
       .notNull()
       .default("awaiting-approval"),

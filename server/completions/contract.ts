@@ -2,13 +2,13 @@
 // measurements against the routine's limits. Shared by the form (react-hook-form + zod) and the
 // route handlers.
 import { z } from "zod";
-import type { RecordedMeasurement, RoutineCaution, RoutineMeasurement } from "@/db/schema";
+import type { RecordedMeasurement, RoutineCaution, RoutineMeasurement, UsedPart } from "@/db/schema";
 import { enteredDay } from "@/server/http/dates";
 import { MeterValue, SHIP_DAY_FORMAT, ShipClock } from "@/server/readings/contract";
 import { RANKS } from "@/server/routines/ranks";
 import { DUE_FIELDS, HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
 import type { WorkOrderView } from "@/server/work-orders/view";
-import type { FittingPart } from "@/server/parts/contract";
+import { type FittingPart, MAX_PARTS_USED, PartUsedRow } from "@/server/parts/contract";
 
 /** The most man-hours one job may take, spent or estimated (a routine's estimate has the same limit). */
 export const MAX_JOB_MAN_HOURS = 9_999;
@@ -74,6 +74,11 @@ export const CompletionInput = z
     workedBy: z
       .array(WorkedByRow, { message: "List who did the work by rank and name." })
       .max(MAX_WORKED_BY, { message: `At most ${MAX_WORKED_BY} people on one job.` })
+      .default([]),
+    /** The parts used, taken from the stores on board (prefilled from the routine's list). */
+    partsUsed: z
+      .array(PartUsedRow, { message: "List the parts used by part and quantity." })
+      .max(MAX_PARTS_USED, { message: `At most ${MAX_PARTS_USED} different parts on one job.` })
       .default([]),
   })
   .superRefine((input, ctx) => {
@@ -171,6 +176,7 @@ export type CompletionRecord = {
   responsibleId: string | null;
   responsible: string | null;
   workedBy: { rank: string; name: string }[];
+  partsUsed: UsedPart[];
   decidedBy: string | null;
   decidedAt: string | null;
   decisionNote: string | null;

@@ -10,6 +10,7 @@ import { AppError } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { type CompletionStatus, DecisionInput } from "./contract";
 import { lockWorkOrder } from "@/server/work-orders/lock";
+import { putBackPartsUsed } from "@/server/parts/use";
 
 export type Decision = z.output<typeof DecisionInput>;
 
@@ -41,6 +42,8 @@ export async function decideCompletion(
 
     const decided = { decidedBy: access.user.id, decidedAt: now, decisionNote: decision.note || null };
     if (decision.decision === "return") {
+      // The parts the job took go back on the shelves; the corrected record takes them again.
+      await putBackPartsUsed(tx, { companyId, vessel, userId: access.user.id, workOrderId: w.id, workOrderNumber: w.number, now });
       await tx
         .update(completion)
         .set({ ...decided, status: "returned" })

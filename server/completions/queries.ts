@@ -149,6 +149,7 @@ async function loadCompletionRecord(companyId: string, workOrderId: string): Pro
     responsibleId: c.responsibleId,
     responsible: row.responsible,
     workedBy: c.workedBy,
+    partsUsed: c.partsUsed,
     decidedBy: row.decidedBy,
     decidedAt: isoInstant(c.decidedAt),
     decisionNote: c.decisionNote,

@@ -11,6 +11,7 @@ import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
 import { isInFuture, readingProblem } from "@/server/readings/rules";
 import { assessMeasurements, type Completion, type CompletionResult, measurementMismatches } from "./contract";
 import { lockVesselWorkOrders } from "@/server/work-orders/lock";
+import { checkPartsUsed } from "@/server/parts/use";
 import { createFollowUp } from "./follow-up";
 import { responsibleChoices } from "./queries";
 
@@ -137,8 +138,16 @@ async function writeCompletion(
         message: "The person responsible is a chief engineer or engineer of this company assigned to this vessel.",
       });
     }
+    const parts = await checkPartsUsed(
+      tx,
+      { companyId, vessel, userId: access.user.id, workOrderId: w.id, workOrderNumber: w.number, now },
+      input.partsUsed,
+    );
+    errors.push(...parts.errors);
     if (errors.length) throw invalidInput(errors);
 
+    // The stores on board lose the parts in this same transaction.
+    const partsUsed = await parts.write();
     const measurements = assessMeasurements(r?.measurements ?? [], input.measurements);
     const values = {
       doneAt,
@@ -151,6 +160,7 @@ async function writeCompletion(
       doneBy: access.user.id,
       responsibleId,
       workedBy: input.workedBy.map((p) => ({ rank: p.rank, name: p.name })),
+      partsUsed,
       status: "awaiting-approval" as const,
       decidedBy: null,
       decidedAt: null,

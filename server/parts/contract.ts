@@ -86,6 +86,18 @@ export type LocationInput = z.input<typeof LocationInput>;
 
 const Reason = text("Reason", 300);
 
+/** What was found on the shelf when counted, 0 or more. */
+const Counted = z
+  .union([z.number(), z.string()], { message: "Enter what you counted, 0 or more." })
+  .transform((raw, ctx) => {
+    const n = typeof raw === "number" ? raw : Number(raw.trim().replace(",", "."));
+    if (!Number.isFinite(n) || n < 0 || n > 1_000_000 || (typeof raw === "string" && raw.trim() === "")) {
+      ctx.addIssue({ code: "custom", message: "Enter what you counted, 0 or more." });
+      return z.NEVER;
+    }
+    return Math.round(n * 1000) / 1000;
+  });
+
 /** One movement of stock on board, as the storekeeper or the engineer records it. */
 export const MovementInput = z.discriminatedUnion(
   "kind",
@@ -96,16 +108,7 @@ export const MovementInput = z.discriminatedUnion(
       partId: z.uuid({ message: "Choose the part." }),
       locationId: z.uuid({ message: "Choose where it is kept." }),
       /** What was found on the shelf: the movement is the difference. */
-      counted: z
-        .union([z.number(), z.string()], { message: "Enter what you counted, 0 or more." })
-        .transform((raw, ctx) => {
-          const n = typeof raw === "number" ? raw : Number(raw.trim().replace(",", "."));
-          if (!Number.isFinite(n) || n < 0 || n > 1_000_000 || (typeof raw === "string" && raw.trim() === "")) {
-            ctx.addIssue({ code: "custom", message: "Enter what you counted, 0 or more." });
-            return z.NEVER;
-          }
-          return Math.round(n * 1000) / 1000;
-        }),
+      counted: Counted,
       reason: Reason.min(3, { message: "Say why the count differs, e.g. “found two in the wrong bin”." }),
     }),
     z.object({
@@ -174,3 +177,22 @@ export const RoutinePartsInput = z.object({
     .max(100, { message: "A routine needs at most 100 different parts." }),
 });
 export type RoutinePartsInput = z.input<typeof RoutinePartsInput>;
+
+/**
+ * A part used on a job, as the completion form records it. Using more than the stores record asks
+ * for a count: what was on board before the job, and why the record differs.
+ */
+export const PartUsedRow = z
+  .object({
+    partId: z.uuid({ message: "Choose the part used." }),
+    quantity: Quantity,
+    counted: z.union([z.literal("").transform(() => null), Counted]).nullish(),
+    reason: Reason.default(""),
+  })
+  .superRefine((row, ctx) => {
+    if (row.counted != null && row.reason.length < 3) {
+      ctx.addIssue({ code: "custom", path: ["reason"], message: "Say why the count differs from the record, e.g. “two found in the workshop”." });
+    }
+  });
+export type PartUsedRow = z.output<typeof PartUsedRow>;
+export const MAX_PARTS_USED = 50;

@@ -2,7 +2,7 @@
 // its difference, and the refusals that keep a shelf from going below zero.
 import { describe, expect, it } from "vitest";
 import { MovementInput, Quantity } from "./contract";
-import { countDifference, isLow, onBoard, stockByLocation, takeProblem, unitProblem } from "./stock";
+import { countDifference, drawFrom, isLow, onBoard, stockByLocation, takeProblem, unitProblem } from "./stock";
 
 describe("stock on board", () => {
   // Engine store: received 10, used 4, counted 7 (+1: found one in the wrong bin); moved 3 to the
@@ -63,5 +63,29 @@ describe("refusals", () => {
     expect(Quantity.safeParse("four").error?.issues[0]?.message).toBe("Enter a quantity, e.g. 4 or 2.5 (at most three decimals).");
     const count = MovementInput.safeParse({ kind: "counted", partId: crypto.randomUUID(), locationId: crypto.randomUUID(), counted: 3, reason: "" });
     expect(count.error?.issues.map((i) => [i.path.join("."), i.message])).toEqual([["reason", "Say why the count differs, e.g. “found two in the wrong bin”."]]);
+  });
+});
+
+describe("parts taken for a job", () => {
+  // Engine store holds 3 sets, workshop 1, spare store 0. A job using 4 takes the engine store's 3
+  // first (the most), then the workshop's 1; one using 2 empties nothing but the engine store.
+  const held = new Map([["workshop", 1], ["engine store", 3], ["spare store", 0]]);
+  it("comes off the fullest shelf first", () => {
+    expect(drawFrom(held, 2)).toEqual([{ locationId: "engine store", quantity: 2 }]);
+    expect(drawFrom(held, 4)).toEqual([
+      { locationId: "engine store", quantity: 3 },
+      { locationId: "workshop", quantity: 1 },
+    ]);
+  });
+  it("takes no more than is held: what is missing is left to the caller to refuse", () => {
+    const taken = drawFrom(held, 6);
+    expect(taken.reduce((n, t) => n + t.quantity, 0)).toBe(4);
+    expect(drawFrom(new Map(), 1)).toEqual([]);
+  });
+  it("keeps litres to the thousandth", () => {
+    expect(drawFrom(new Map([["a", 0.3], ["b", 0.2]]), 0.45)).toEqual([
+      { locationId: "a", quantity: 0.3 },
+      { locationId: "b", quantity: 0.15 },
+    ]);
   });
 });

@@ -52,3 +52,21 @@ export function countDifference(recorded: number, counted: number): number | nul
   const diff = q3(counted - recorded);
   return diff === 0 ? null : diff;
 }
+
+/**
+ * Where `amount` is taken from when a job uses it: the locations holding most first, each emptied
+ * before the next, so a job's parts come off as few shelves as possible. Takes no more than is held;
+ * what is left over is the caller's refusal.
+ */
+export function drawFrom(held: ReadonlyMap<string, number>, amount: number): { locationId: string; quantity: number }[] {
+  const out: { locationId: string; quantity: number }[] = [];
+  let left = q3(amount);
+  const shelves = [...held].filter(([, q]) => q > 0).sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0]));
+  for (const [locationId, quantity] of shelves) {
+    if (left <= 0) break;
+    const take = q3(Math.min(quantity, left));
+    out.push({ locationId, quantity: take });
+    left = q3(left - take);
+  }
+  return out;
+}

@@ -9,6 +9,7 @@ import { rowFields, useSendForm } from "@/app/_components/forms/use-send-form";
 import { CompletionInput, limitSide, type WorkOrderDetail } from "@/server/completions/contract";
 import { formatHours, formatShipTime, shipClock, shipDay } from "@/server/format/hours";
 import { RANKS, type Rank } from "@/server/routines/contract";
+import { CompletionParts, startingPartsUsed } from "./completion-parts";
 import { CompletionPeople } from "./completion-people";
 import { useSaveCompletion } from "./use-work-order";
 
@@ -32,6 +33,7 @@ function startingValues(detail: WorkOrderDetail): Values {
       remarks: record.remarks,
       responsibleId: record.responsibleId ?? "",
       workedBy: record.workedBy.map((p) => ({ rank: p.rank as Rank, name: p.name })),
+      partsUsed: startingPartsUsed(detail),
     };
   }
   const now = new Date(detail.now);
@@ -47,6 +49,7 @@ function startingValues(detail: WorkOrderDetail): Values {
     // The vessel's chief answers for most jobs; the work order's rank did it, names to be filled in.
     responsibleId: detail.responsibleChoices.find((c) => c.role === "chief-engineer")?.id ?? "",
     workedBy: RANKS.includes(detail.workOrder.rank as Rank) ? [{ rank: detail.workOrder.rank as Rank, name: "" }] : [],
+    partsUsed: startingPartsUsed(detail),
   };
 }
 
@@ -79,6 +82,8 @@ export function CompletionForm({ detail, onDone }: Props) {
       "responsibleId",
       ...rowFields("workedBy", form.getValues("workedBy")?.length ?? 0, ["rank", "name"]),
       "workedBy",
+      ...rowFields("partsUsed", form.getValues("partsUsed")?.length ?? 0, ["partId", "quantity", "counted", "reason"]),
+      "partsUsed",
     ],
     send: async (values) => {
       const result = await save.mutateAsync(values);
@@ -222,6 +227,8 @@ export function CompletionForm({ detail, onDone }: Props) {
       </div>
 
       <CompletionPeople form={form} detail={detail} />
+
+      <CompletionParts form={form} detail={detail} />
 
       <Field
         id="remarks"

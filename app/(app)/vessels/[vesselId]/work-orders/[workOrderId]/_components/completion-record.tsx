@@ -7,6 +7,8 @@ import { Notice } from "@/app/_components/notice";
 import { useRankWords } from "@/app/_components/rank-words-provider";
 import type { CompletionRecord } from "@/server/completions/contract";
 import { formatHours, formatShipTime } from "@/server/format/hours";
+import type { PartUnit } from "@/db/schema/parts";
+import { amountText } from "@/server/parts/contract";
 import { useDecideCompletion } from "./use-work-order";
 
 const STATUS_WORDS: Record<CompletionRecord["status"], string> = {
@@ -109,6 +111,19 @@ export function CompletionRecordView({ record, timeZone, counterName }: Props) {
             ))}
           </tbody>
         </table>
+      )}
+      {record.partsUsed.length > 0 && (
+        <div className="mt-3 text-sm">
+          <h3 className="label">Parts used</h3>
+          <ul className="mt-1 grid gap-0.5">
+            {record.partsUsed.map((p) => (
+              <li key={p.partId}>
+                <span className="tabular-nums">{amountText(p.quantity, p.unit as PartUnit)}</span> {p.number} — {p.description}
+              </li>
+            ))}
+          </ul>
+          {record.status === "returned" && <p className="text-ink-500">Put back in the stores while the record is corrected.</p>}
+        </div>
       )}
       {record.remarks && <p className="mt-3 whitespace-pre-line">{record.remarks}</p>}
     </section>

@@ -1,0 +1,1 @@
+ALTER TABLE "completion" ADD COLUMN "parts_used" jsonb DEFAULT '[]'::jsonb NOT NULL;
