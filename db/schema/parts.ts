@@ -2,12 +2,13 @@
 // of stock as its own row — received, used on a work order, counted, moved between locations — so
 // that what is on board is always the sum of its movements and nothing is edited in place.
 import { sql } from "drizzle-orm";
-import { boolean, check, index, numeric, pgTable, text, unique, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, index, integer, numeric, pgTable, text, unique, uuid, type AnyPgColumn } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { component } from "./machinery";
 import { companyRef, instant, nowStamp, vesselRef } from "./refs";
 import { routine } from "./maintenance";
 import { workOrder } from "./work-orders";
+import { portStay } from "./port-stays";
 
 export const PART_UNITS = ["piece", "set", "litre", "kg", "metre"] as const;
 export type PartUnit = (typeof PART_UNITS)[number];
@@ -97,6 +98,8 @@ export const stockMovement = pgTable(
     workOrderId: uuid().references(() => workOrder.id, { onDelete: "set null" }),
     /** The two rows of a move between locations share it. */
     moveId: uuid(),
+    /** The requisition line a delivery was received against. */
+    requisitionLineId: uuid().references((): AnyPgColumn => requisitionLine.id, { onDelete: "set null" }),
     reason: text().notNull().default(""),
     movedBy: text().references(() => user.id, { onDelete: "set null" }),
     movedAt: instant().notNull().defaultNow(),
@@ -125,4 +128,55 @@ export const routinePart = pgTable(
     quantity: quantity().notNull(),
   },
   (t) => [unique().on(t.routineId, t.partId), index().on(t.companyId, t.partId), check("routine_part_quantity", sql`${t.quantity} > 0`)],
+);
+
+export const REQUISITION_STATES = ["drafted", "sent", "ordered", "delivered", "cancelled"] as const;
+export type RequisitionState = (typeof REQUISITION_STATES)[number];
+
+/**
+ * Parts asked of the office for delivery at a port stay: drafted on board, sent, ordered by the
+ * office, delivered (received into the stores line by line), or cancelled.
+ */
+export const requisition = pgTable(
+  "requisition",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: companyRef(),
+    vesselId: vesselRef(),
+    /** "RQ-ALPHA-0007": the vessel's code and its own sequence. */
+    number: text().notNull(),
+    /** Where the parts are to be delivered. */
+    portStayId: uuid().references(() => portStay.id, { onDelete: "set null" }),
+    state: text({ enum: REQUISITION_STATES }).notNull().default("drafted"),
+    note: text().notNull().default(""),
+    /** The office's purchase order, when ordered. */
+    orderRef: text().notNull().default(""),
+    createdBy: text().references(() => user.id, { onDelete: "set null" }),
+    createdAt: nowStamp(),
+    sentAt: instant(),
+    orderedAt: instant(),
+    deliveredAt: instant(),
+    cancelledAt: instant(),
+    updatedAt: nowStamp(),
+  },
+  (t) => [unique().on(t.companyId, t.number), index().on(t.companyId, t.vesselId, t.state)],
+);
+
+/** One part asked for, with why (short for a job of the stay, under its minimum). */
+export const requisitionLine = pgTable(
+  "requisition_line",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: companyRef(),
+    requisitionId: uuid()
+      .notNull()
+      .references(() => requisition.id, { onDelete: "cascade" }),
+    partId: uuid()
+      .notNull()
+      .references(() => part.id, { onDelete: "restrict" }),
+    quantity: quantity().notNull(),
+    reason: text().notNull().default(""),
+    position: integer().notNull().default(0),
+  },
+  (t) => [unique().on(t.requisitionId, t.partId), index().on(t.companyId, t.partId), check("requisition_line_quantity", sql`${t.quantity} > 0`)],
 );

@@ -21,7 +21,8 @@ export type Permission =
   | "deferral:decide"
   | "fleet:read"
   | "parts:edit"
-  | "stores:write";
+  | "stores:write"
+  | "requisitions:order";
 
 const GRANTS: Record<Permission, readonly Role[]> = {
   "vessel:read": ROLES,
@@ -39,6 +40,8 @@ const GRANTS: Record<Permission, readonly Role[]> = {
   "parts:edit": ["admin", "superintendent", "chief-engineer"],
   /** Stock on board: received, used, counted, moved between locations. */
   "stores:write": ["chief-engineer", "engineer"],
+  /** The office's side of a requisition: ordering what the vessel sent (drafting and sending is work:plan). */
+  "requisitions:order": ["admin", "superintendent"],
 };
 
 export function can(role: Role, permission: Permission): boolean {

@@ -23,3 +23,4 @@ export const ToleranceRuleParams = z.object({ ruleId: pathId("tolerance rule") }
 export const MessageParams = z.object({ messageId: pathId("message") });
 export const UserParams = z.object({ userId: userPathId });
 export const PartParams = z.object({ partId: pathId("part") });
+export const RequisitionParams = z.object({ requisitionId: pathId("requisition") });

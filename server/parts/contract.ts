@@ -196,3 +196,124 @@ export const PartUsedRow = z
   });
 export type PartUsedRow = z.output<typeof PartUsedRow>;
 export const MAX_PARTS_USED = 50;
+
+// Requisitions: parts asked of the office for delivery at a port stay.
+const StayChoice = z.union([z.literal("").transform(() => null), z.uuid({ message: "Choose the port stay from the list." })], {
+  message: "Choose the port stay from the list.",
+});
+export const MAX_REQUISITION_LINES = 200;
+const requisitionFields = {
+  portStayId: StayChoice.nullable(),
+  note: text("Note", 2_000),
+  lines: z
+    .array(
+      z.object({
+        partId: z.uuid({ message: "Choose the part from the catalogue." }),
+        quantity: Quantity,
+        reason: text("Reason", 300).default(""),
+      }),
+      { message: "lines: a list of { partId, quantity, reason }." },
+    )
+    .min(1, { message: "Ask for at least one part." })
+    .max(MAX_REQUISITION_LINES, { message: `At most ${MAX_REQUISITION_LINES} parts on one requisition.` }),
+};
+export const RequisitionInput = z.object({ ...requisitionFields, portStayId: requisitionFields.portStayId.default(null), note: requisitionFields.note.default("") });
+export type RequisitionInput = z.input<typeof RequisitionInput>;
+export type RequisitionValues = z.output<typeof RequisitionInput>;
+/** A draft changed: only the fields sent. */
+export const RequisitionPatch = z.object(requisitionFields).partial();
+
+export const RequisitionMoveInput = z.object({
+  to: z.enum(["sent", "ordered", "cancelled"], { message: "to: one of sent, ordered, cancelled." }),
+  /** The office's purchase order, when ordering. */
+  orderRef: text("Order reference", 60).default(""),
+});
+
+export const ReceiptInput = z.object({
+  items: z
+    .array(
+      z.object({
+        lineId: z.uuid({ message: "Choose the line received." }),
+        locationId: z.uuid({ message: "Choose where it is kept." }),
+        quantity: Quantity,
+      }),
+      { message: "items: a list of { lineId, locationId, quantity }." },
+    )
+    .max(MAX_REQUISITION_LINES, { message: `At most ${MAX_REQUISITION_LINES} items at once.` })
+    .default([]),
+  /** Close it as delivered with what came, though some lines are short. */
+  complete: z.boolean({ message: "complete: true or false." }).default(false),
+});
+export type ReceiptInput = z.input<typeof ReceiptInput>;
+
+export const FleetRequisitionsQuery = z.object({
+  state: z.enum(["open", "all"], { message: "state: open or all." }).default("open"),
+});
+export const StayPartsQuery = z.object({
+  /** Bring every part back to its minimum too. */
+  minimum: z.enum(["0", "1"], { message: "minimum: 0 or 1." }).default("1"),
+  /** The work orders on the timeline shown (a proposal not yet accepted), comma-separated; else the accepted package. */
+  jobs: z
+    .string()
+    .max(500 * 37, { message: "jobs: at most 500 work orders." })
+    .transform((raw, ctx) => {
+      const ids = raw.split(",").map((s) => s.trim()).filter(Boolean);
+      if (ids.length > 500 || ids.some((id) => !z.uuid().safeParse(id).success)) {
+        ctx.addIssue({ code: "custom", message: "jobs: work order ids, comma-separated (at most 500)." });
+        return z.NEVER;
+      }
+      return ids;
+    })
+    .optional(),
+});
+
+export type RequisitionLineView = {
+  id: string;
+  partId: string;
+  number: string;
+  description: string;
+  unit: PartUnit;
+  quantity: number;
+  received: number;
+  reason: string;
+};
+export type RequisitionView = {
+  id: string;
+  number: string;
+  state: import("@/db/schema/parts").RequisitionState;
+  vessel: { id: string; name: string; code: string };
+  portStay: { id: string; port: string; arrivesAt: string } | null;
+  note: string;
+  orderRef: string;
+  createdBy: string | null;
+  createdAt: string;
+  sentAt: string | null;
+  orderedAt: string | null;
+  deliveredAt: string | null;
+  lines: RequisitionLineView[];
+  may: { edit: boolean; send: boolean; order: boolean; cancel: boolean; receive: boolean };
+};
+export type RequisitionList = {
+  vessel: { id: string; name: string; code: string; timeZone: string };
+  requisitions: RequisitionView[];
+  /** The vessel's port stays not yet over, to deliver at. */
+  stays: { id: string; port: string; arrivesAt: string }[];
+  locations: { id: string; place: string }[];
+  canDraft: boolean;
+};
+export type StayPartLine = import("./requisition-rules").ShortLine & {
+  number: string;
+  description: string;
+  unit: PartUnit;
+  critical: boolean;
+  minimumOnBoard: number;
+};
+export type StayParts = {
+  stayId: string;
+  /** Whose jobs were counted: the accepted package, or the jobs on the timeline shown. */
+  basis: "accepted-package" | "shown";
+  jobs: number;
+  lines: StayPartLine[];
+  openRequisitions: { id: string; number: string; state: string }[];
+  canRequest: boolean;
+};

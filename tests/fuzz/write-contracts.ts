@@ -107,6 +107,11 @@ export const EXAMPLES: Record<string, (c: ExampleContext) => Example> = {
   "PUT /api/vessels/[vesselId]/routines/[routineId]/parts": () => ({ body: { parts: [] } }),
   "POST /api/vessels/[vesselId]/stores/locations": (c) => ({ body: { store: `Fuzz store ${c.tag}`, rack: "1", bin: "A" } }),
   "POST /api/vessels/[vesselId]/stores/movements": (c) => ({ body: { kind: "received", partId: c.componentId, locationId: c.componentId, quantity: 2 } }),
+  // A uuid that is no part: the contract takes it and the draft refuses it (422), so nothing is written.
+  "POST /api/vessels/[vesselId]/requisitions": (c) => ({ body: { note: "Fuzz", lines: [{ partId: c.componentId, quantity: 1, reason: "Fuzz" }] } }),
+  "PATCH /api/vessels/[vesselId]/requisitions/[requisitionId]": () => ({ body: { note: "Fuzz note" } }),
+  "POST /api/vessels/[vesselId]/requisitions/[requisitionId]/state": () => ({ body: { to: "sent" } }),
+  "POST /api/vessels/[vesselId]/requisitions/[requisitionId]/receipts": () => ({ body: { items: [], complete: true } }),
   "POST /api/vessels/[vesselId]/components": (c) => ({ body: { code: `FZ.${c.tag.slice(0, 6)}`, name: "Fuzz pump" } }),
   "PATCH /api/vessels/[vesselId]/components/[componentId]": () => ({ body: { name: "Fuzz pump renamed" } }),
   "POST /api/vessels/[vesselId]/counters": (c) => ({ body: { name: `Fuzz meter ${c.tag}`, plannedHoursPerDay: 12 } }),

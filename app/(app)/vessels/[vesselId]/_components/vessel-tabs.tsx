@@ -8,6 +8,7 @@ const SECTIONS = [
   { slug: "routines", label: "Routines" },
   { slug: "register", label: "Machinery register" },
   { slug: "stores", label: "Stores" },
+  { slug: "requisitions", label: "Requisitions" },
 ] as const;
 
 export function VesselTabs({ vesselId }: { vesselId: string }) {
