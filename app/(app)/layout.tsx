@@ -46,6 +46,12 @@ export default async function AppLayout({ children }: { children: React.ReactNod
               >
                 Parts
               </Link>
+              <Link
+                href="/requisitions"
+                className="rounded px-2 py-1 font-medium text-ink-700 hover:bg-ink-100 dark:text-ink-200 dark:hover:bg-ink-800"
+              >
+                Requisitions
+              </Link>
               {can(access.role, "fleet:read") && (
                 <Link
                   href="/fleet"

@@ -2,7 +2,7 @@
 // an engine store and a workshop on each vessel, a year's deliveries and counts, and a few critical
 // spares run down below their minimum so the Stores page has something to say. Demo only.
 import { addDays } from "date-fns";
-import { eq } from "drizzle-orm";
+import { and, asc, eq, gt } from "drizzle-orm";
 import type { Db } from "../client";
 import * as s from "../schema";
 import type { PartUnit } from "../schema/parts";
@@ -81,10 +81,12 @@ export async function seedParts(db: Db, companyId: string, now: Date): Promise<v
         const where = i % 2 ? rackB! : store!;
         rows.push({ companyId, vesselId: v.id, partId: p.id, locationId: where.id, kind: "received", quantity: received, reason: "Delivered with the annual spares order", movedBy: storekeeper?.id ?? null, movedAt: at(300) });
         // Used over the year: most stay above the minimum, a few critical spares fall below it.
+        // Aster Gale has used all her ring sets: her Port Kelang overhaul finds them short.
+        const usedUp = v.code === "AG" && demo.number === "BW-1001";
         const runDown = demo.critical && random() < 0.35;
-        const used = runDown ? received - Math.max(0, minimum - 1) : Math.floor(received * (0.2 + random() * 0.3));
+        const used = usedUp ? received : runDown ? received - Math.max(0, minimum - 1) : Math.floor(received * (0.2 + random() * 0.3));
         if (used > 0) rows.push({ companyId, vesselId: v.id, partId: p.id, locationId: where.id, kind: "used", quantity: -used, reason: "Used on planned work", movedBy: storekeeper?.id ?? null, movedAt: at(40 + Math.floor(random() * 200)) });
-        if (i === 0) {
+        if (i === 0 && !usedUp) {
           rows.push({ companyId, vesselId: v.id, partId: p.id, locationId: where.id, kind: "moved-out", quantity: -1, reason: "Ready for the next overhaul", movedBy: storekeeper?.id ?? null, movedAt: at(10) });
           rows.push({ companyId, vesselId: v.id, partId: p.id, locationId: workshop!.id, kind: "moved-in", quantity: 1, reason: "Ready for the next overhaul", movedBy: storekeeper?.id ?? null, movedAt: at(10) });
         }
@@ -93,5 +95,44 @@ export async function seedParts(db: Db, companyId: string, now: Date): Promise<v
       rows.push({ companyId, vesselId: v.id, partId: parts[4]!.id, locationId: store!.id, kind: "counted", quantity: 1, reason: "Quarterly count: one found in the wrong bin", movedBy: storekeeper?.id ?? null, movedAt: addDays(now, -20) });
       await tx.insert(s.stockMovement).values(rows.filter((r) => r.quantity !== 0));
     }
+    await seedRequisitions(tx, companyId, vessels, byNumber, storekeeper?.id ?? null, now);
   });
+}
+
+/**
+ * A requisition delivered on each vessel two months ago (received into its stores), and one sent
+ * to the office for delivery at its next port stay: the Fleet board and the office's list have
+ * something to show. Aster Gale's ring sets are not asked for: her chief finds them short.
+ */
+async function seedRequisitions(
+  tx: Parameters<Parameters<Db["transaction"]>[0]>[0],
+  companyId: string,
+  vessels: { id: string; code: string }[],
+  byNumber: Map<string, string>,
+  by: string | null,
+  now: Date,
+) {
+  for (const v of vessels) {
+    const [store] = await tx.select().from(s.storeLocation).where(eq(s.storeLocation.vesselId, v.id)).limit(1);
+    const [done] = await tx
+      .insert(s.requisition)
+      .values({ companyId, vesselId: v.id, number: `RQ-${v.code}-0001`, state: "delivered", note: "Filters for the generator oil changes.", orderRef: "PO-24-0117", createdBy: by, createdAt: addDays(now, -70), sentAt: addDays(now, -69), orderedAt: addDays(now, -66), deliveredAt: addDays(now, -58) })
+      .returning();
+    const [line] = await tx.insert(s.requisitionLine).values({ companyId, requisitionId: done!.id, partId: byNumber.get("BW-1010")!, quantity: 6, reason: "Under its minimum of 6" }).returning();
+    await tx.insert(s.stockMovement).values({ companyId, vesselId: v.id, partId: line!.partId, locationId: store!.id, kind: "received", quantity: 6, requisitionLineId: line!.id, reason: `Delivered against RQ-${v.code}-0001`, movedBy: by, movedAt: addDays(now, -58) });
+    const [next] = await tx
+      .select({ id: s.portStay.id })
+      .from(s.portStay)
+      .where(and(eq(s.portStay.vesselId, v.id), gt(s.portStay.arrivesAt, now)))
+      .orderBy(asc(s.portStay.arrivesAt))
+      .limit(1);
+    const [sent] = await tx
+      .insert(s.requisition)
+      .values({ companyId, vesselId: v.id, number: `RQ-${v.code}-0002`, portStayId: next?.id ?? null, state: "sent", note: "Critical spares under their minimum.", createdBy: by, createdAt: addDays(now, -4), sentAt: addDays(now, -3) })
+      .returning();
+    await tx.insert(s.requisitionLine).values([
+      { companyId, requisitionId: sent!.id, partId: byNumber.get("BW-1011")!, quantity: 3, reason: "Back to its minimum of 3", position: 0 },
+      { companyId, requisitionId: sent!.id, partId: byNumber.get("BW-1030")!, quantity: 1, reason: "Back to its minimum of 1", position: 1 },
+    ]);
+  }
 }

@@ -2,9 +2,9 @@
 // snapshots for the trends, and the requests awaiting a decision. Two snapshot queries for the
 // whole fleet (no query per vessel) and the deferral list; it never reads work orders one by one.
 import "server-only";
-import { and, asc, eq, gte, sql } from "drizzle-orm";
+import { and, asc, eq, gte, inArray, sql } from "drizzle-orm";
 import { getReadDb } from "@/db/client";
-import { vesselSnapshot } from "@/db/schema";
+import { requisition, vesselSnapshot } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
 import { listFleetPendingDeferrals } from "@/server/deferrals/queries";
 import type { FleetBoard, FleetBoardPending, FleetBoardVessel } from "./contract";
@@ -51,7 +51,7 @@ export async function loadFleetBoard(access: Access, now = new Date()): Promise<
   const db = getReadDb();
   const companyId = access.company.id;
   const days = trendDays(now);
-  const [latest, history, pending] = await Promise.all([
+  const [latest, history, pending, requisitions] = await Promise.all([
     db.execute<LatestRow>(latestSnapshotsQuery(companyId)),
     db
       .select({
@@ -66,7 +66,13 @@ export async function loadFleetBoard(access: Access, now = new Date()): Promise<
       .where(and(eq(vesselSnapshot.companyId, companyId), gte(vesselSnapshot.day, days[0]!)))
       .orderBy(asc(vesselSnapshot.day)),
     listFleetPendingDeferrals(access),
+    db
+      .select({ vesselId: requisition.vesselId, n: sql<number>`count(*)::int` })
+      .from(requisition)
+      .where(and(eq(requisition.companyId, companyId), inArray(requisition.state, ["sent", "ordered"])))
+      .groupBy(requisition.vesselId),
   ]);
+  const requisitionsByVessel = new Map(requisitions.map((r) => [r.vesselId, r.n]));
 
   // Office roles see the whole fleet; anyone else given fleet:read would see their own vessels.
   const mayOpen = (id: string) => access.assignedVesselIds === null || access.assignedVesselIds.includes(id);
@@ -118,6 +124,7 @@ export async function loadFleetBoard(access: Access, now = new Date()): Promise<
       completed90: r.completed90 ?? 0,
       onTimeRate: r.on_time_rate === null ? null : Number(r.on_time_rate),
       pendingDeferrals: pendingByVessel.get(r.id) ?? 0,
+      openRequisitions: requisitionsByVessel.get(r.id) ?? 0,
       tier: boardTier(figures),
       trend: trends.get(r.id)!,
     };

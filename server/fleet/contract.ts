@@ -30,6 +30,8 @@ export type FleetBoardVessel = {
   onTimeRate: number | null;
   /** Requests awaiting a decision now. */
   pendingDeferrals: number;
+  /** Requisitions sent to the office or ordered, not yet delivered. */
+  openRequisitions: number;
   /** 0 critical/class out of tolerance, 1 critical/class late, 2 out of tolerance, 3 late, 4 none. */
   tier: BoardTier;
   /** Late + out of tolerance on each of `FleetBoard.days`; null where no snapshot was taken. */

@@ -49,7 +49,8 @@ export async function copySource(access: Access, target: VesselRef, input: z.out
     files: [],
     keepBaselines: true,
     read: async (tx) => {
-      const rows = await exportRows(access, from);
+      // The sister ship's readings are not copied: they are not read.
+      const rows = await exportRows(access, from, { withReadings: false });
       if (input.onlyMissing) {
         const here = await loadVesselRows(tx, access, target);
         rows.components = rows.components.filter((c) => !here.now.components.has(c.code ?? ""));

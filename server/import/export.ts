@@ -20,7 +20,8 @@ const KEELSON_WORDS = rankWords();
 const yes = (b: boolean) => (b ? "yes" : "no");
 const text = (v: string | number | null | undefined) => (v === null || v === undefined ? "" : String(v));
 
-export async function exportRows(access: Access, vessel: VesselRef): Promise<Record<ImportKind, Row[]>> {
+/** The vessel's plan as import rows; `withReadings: false` leaves out the readings (the largest kind). */
+export async function exportRows(access: Access, vessel: VesselRef, { withReadings = true } = {}): Promise<Record<ImportKind, Row[]>> {
   const db = getDb();
   const rows = await db.transaction((tx) => loadVesselRows(tx, access, vessel), { accessMode: "read only" });
   const codeOf = new Map(rows.components.map((c) => [c.id, c.code]));
@@ -40,12 +41,14 @@ export async function exportRows(access: Access, vessel: VesselRef): Promise<Rec
         .orderBy(workOrder.routineId, desc(completion.doneAt))
     : [];
   const lastDone = new Map(done.map((d) => [d.routineId!, d]));
-  const readings = await db
-    .select({ counterId: reading.counterId, readAt: reading.readAt, meterValue: reading.meterValue, segment: reading.segment, remark: reading.remark })
-    .from(reading)
-    .innerJoin(counter, eq(counter.id, reading.counterId))
-    .where(and(eq(reading.companyId, access.company.id), eq(reading.vesselId, vessel.id)))
-    .orderBy(asc(counter.sortOrder), asc(reading.readAt));
+  const readings = withReadings
+    ? await db
+        .select({ counterId: reading.counterId, readAt: reading.readAt, meterValue: reading.meterValue, segment: reading.segment, remark: reading.remark })
+        .from(reading)
+        .innerJoin(counter, eq(counter.id, reading.counterId))
+        .where(and(eq(reading.companyId, access.company.id), eq(reading.vesselId, vessel.id)))
+        .orderBy(asc(counter.sortOrder), asc(reading.readAt))
+    : [];
 
   return {
     components: [...rows.components]

@@ -4,9 +4,10 @@ import { z } from "zod";
 import { PART_UNITS, type PartUnit, STOCK_MOVES, type StockMove } from "@/db/schema/parts";
 
 export const UNIT_LABEL: Record<PartUnit, string> = { piece: "pcs", set: "sets", litre: "l", kg: "kg", metre: "m" };
-/** A quantity in its unit, as people say it: "1 set", "3 sets", "2 pcs", "20.5 l". */
+/** A quantity in its unit, as people say it: "1 set", "3 sets", "1 pc", "2 pcs", "20.5 l". */
 export function amountText(quantity: number, unit: PartUnit): string {
-  return `${quantity} ${unit === "set" && quantity === 1 ? "set" : UNIT_LABEL[unit]}`;
+  const one = quantity === 1 ? ({ set: "set", piece: "pc" } as Partial<Record<PartUnit, string>>)[unit] : undefined;
+  return `${quantity} ${one ?? UNIT_LABEL[unit]}`;
 }
 /** Units counted whole: a bolt or a gasket set is never 0.5. */
 export const WHOLE_UNITS: readonly PartUnit[] = ["piece", "set"];
@@ -281,7 +282,7 @@ export type RequisitionView = {
   id: string;
   number: string;
   state: import("@/db/schema/parts").RequisitionState;
-  vessel: { id: string; name: string; code: string };
+  vessel: { id: string; name: string; code: string; timeZone: string };
   portStay: { id: string; port: string; arrivesAt: string } | null;
   note: string;
   orderRef: string;

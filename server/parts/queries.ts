@@ -11,16 +11,23 @@ import { can } from "@/server/auth/roles";
 import { AppError, invalidInput } from "@/server/http/problem";
 import { type Catalogue, type CataloguePart, type FittingPart, type MovementValues, type PartValues, type RecentMovement, type StoresView } from "./contract";
 import { countDifference, isLow, q3, stockByLocation, takeProblem, unitProblem } from "./stock";
+import { lockStock } from "./use";
 
 /** A catalogue larger than this is paged by the company's own tools; the page lists this many. */
 export const CATALOGUE_LIMIT = 10_000;
 
 const place = (l: { store: string; rack: string; bin: string }) => [l.store, l.rack && `rack ${l.rack}`, l.bin && `bin ${l.bin}`].filter(Boolean).join(", ");
 
-export async function loadCatalogue(access: Access): Promise<Catalogue> {
+/** The catalogue, or (with `onlyPartId`) the one part a change answers with. */
+export async function loadCatalogue(access: Access, onlyPartId?: string): Promise<Catalogue> {
   const db = getDb();
   const companyId = access.company.id;
-  const parts = await db.select().from(part).where(eq(part.companyId, companyId)).orderBy(asc(part.number)).limit(CATALOGUE_LIMIT);
+  const parts = await db
+    .select()
+    .from(part)
+    .where(and(eq(part.companyId, companyId), onlyPartId ? eq(part.id, onlyPartId) : undefined))
+    .orderBy(asc(part.number))
+    .limit(CATALOGUE_LIMIT);
   const fits = parts.length
     ? await db
         .select({ partId: partFit.partId, id: component.id, code: component.code, name: component.name, vesselCode: vesselTable.code, vesselId: component.vesselId })
@@ -73,7 +80,7 @@ export async function createPart(access: Access, input: PartValues): Promise<Cat
     await setFits(tx, access, row!.id, fits);
     return row!.id;
   });
-  return (await loadCatalogue(access)).parts.find((p) => p.id === id)!;
+  return (await loadCatalogue(access, id)).parts[0]!;
 }
 
 export async function updatePart(access: Access, partId: string, input: Partial<PartValues>): Promise<CataloguePart> {
@@ -95,25 +102,25 @@ export async function updatePart(access: Access, partId: string, input: Partial<
       await setFits(tx, access, partId, fits);
     }
   });
-  return (await loadCatalogue(access)).parts.find((p) => p.id === partId)!;
+  return (await loadCatalogue(access, partId)).parts[0]!;
 }
 
 export async function loadStores(access: Access, vessel: VesselRef): Promise<StoresView> {
   const db = getDb();
   const companyId = access.company.id;
-  const [locations, sums, parts] = [
-    await db
+  const [locations, sums, parts] = await Promise.all([
+    db
       .select()
       .from(storeLocation)
       .where(and(eq(storeLocation.companyId, companyId), eq(storeLocation.vesselId, vessel.id)))
       .orderBy(asc(storeLocation.store), asc(storeLocation.rack), asc(storeLocation.bin)),
-    await db
+    db
       .select({ partId: stockMovement.partId, locationId: stockMovement.locationId, quantity: sql<string>`sum(${stockMovement.quantity})` })
       .from(stockMovement)
       .where(and(eq(stockMovement.companyId, companyId), eq(stockMovement.vesselId, vessel.id)))
       .groupBy(stockMovement.partId, stockMovement.locationId),
-    await db.select().from(part).where(eq(part.companyId, companyId)).orderBy(asc(part.number)).limit(CATALOGUE_LIMIT),
-  ];
+    db.select().from(part).where(eq(part.companyId, companyId)).orderBy(asc(part.number)).limit(CATALOGUE_LIMIT),
+  ]);
   const placeOf = new Map(locations.map((l) => [l.id, place(l)]));
   const byPart = new Map<string, { locationId: string; quantity: number }[]>();
   for (const s of sums) byPart.set(s.partId, [...(byPart.get(s.partId) ?? []), { locationId: s.locationId, quantity: q3(Number(s.quantity)) }]);
@@ -164,7 +171,7 @@ export async function recordMovement(access: Access, vessel: VesselRef, input: M
       if (input.toLocationId === input.locationId) throw invalidInput([{ field: "toLocationId", message: "Choose another location than the one it is taken from." }]);
     }
     // One writer per vessel and part at a time: the stock read below is the stock the row lands on.
-    await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`stock:${vessel.id}:${p.id}`}))`);
+    await lockStock(tx, vessel.id, [p.id]);
     const rows = await tx
       .select({ locationId: stockMovement.locationId, quantity: stockMovement.quantity })
       .from(stockMovement)
@@ -191,11 +198,10 @@ export async function recordMovement(access: Access, vessel: VesselRef, input: M
         { ...base, locationId: input.toLocationId, kind: "moved-in", quantity: input.quantity, moveId, reason: input.reason },
       ]);
     }
-    const [after] = await tx
-      .select({ total: sql<string>`coalesce(sum(${stockMovement.quantity}), 0)` })
-      .from(stockMovement)
-      .where(and(eq(stockMovement.companyId, companyId), eq(stockMovement.vesselId, vessel.id), eq(stockMovement.partId, p.id)));
-    return { changed: true, onBoard: q3(Number(after!.total)) };
+    // What was held, plus the movement (a move between locations leaves the total as it was).
+    const before = [...held.values()].reduce((a, b) => a + b, 0);
+    const delta = input.kind === "received" ? input.quantity : input.kind === "counted" ? countDifference(held.get(input.locationId) ?? 0, input.counted)! : 0;
+    return { changed: true, onBoard: q3(before + delta) };
   });
 }
 

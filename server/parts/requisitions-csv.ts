@@ -5,6 +5,7 @@ import { type CsvColumn, toCsv } from "@/server/export/csv";
 import type { RequisitionLineView, RequisitionView } from "./contract";
 import { STATE_WORDS } from "./requisition-rules";
 import { fleetRequisitions } from "./requisitions";
+import { shipDay } from "@/server/format/hours";
 
 type Row = { r: RequisitionView; l: RequisitionLineView };
 const day = (iso: string | null) => (iso ? iso.slice(0, 10) : "");
@@ -13,7 +14,7 @@ const COLUMNS: CsvColumn<Row>[] = [
   { header: "Vessel", value: ({ r }) => r.vessel.name },
   { header: "Requisition", value: ({ r }) => r.number },
   { header: "State", value: ({ r }) => STATE_WORDS[r.state] },
-  { header: "Deliver at", value: ({ r }) => (r.portStay ? `${r.portStay.port} (arrives ${day(r.portStay.arrivesAt)})` : "") },
+  { header: "Deliver at", value: ({ r }) => (r.portStay ? `${r.portStay.port} (arrives ${shipDay(new Date(r.portStay.arrivesAt), r.vessel.timeZone)}, ship’s day)` : "") },
   { header: "Part number", value: ({ l }) => l.number },
   { header: "Description", value: ({ l }) => l.description },
   { header: "Unit", value: ({ l }) => l.unit },

@@ -39,7 +39,7 @@ function noSuchRequisition() {
 /** Requisitions with their lines and what has been received against each, as views. */
 async function loadViews(db: Db | Tx, access: Access, where: SQL | undefined, limit = REQUISITION_LIST_LIMIT): Promise<RequisitionView[]> {
   const heads = await db
-    .select({ r: requisition, vesselName: vesselTable.name, vesselCode: vesselTable.code, retiredAt: vesselTable.retiredAt, port: portStay.port, arrivesAt: portStay.arrivesAt, createdBy: user.name })
+    .select({ r: requisition, vesselName: vesselTable.name, vesselCode: vesselTable.code, timeZone: vesselTable.timeZone, retiredAt: vesselTable.retiredAt, port: portStay.port, arrivesAt: portStay.arrivesAt, createdBy: user.name })
     .from(requisition)
     .innerJoin(vesselTable, eq(vesselTable.id, requisition.vesselId))
     .leftJoin(portStay, eq(portStay.id, requisition.portStayId))
@@ -70,7 +70,7 @@ async function loadViews(db: Db | Tx, access: Access, where: SQL | undefined, li
       id: r.id,
       number: r.number,
       state: r.state,
-      vessel: { id: r.vesselId, name: h.vesselName, code: h.vesselCode },
+      vessel: { id: r.vesselId, name: h.vesselName, code: h.vesselCode, timeZone: h.timeZone },
       portStay: r.portStayId && h.port && h.arrivesAt ? { id: r.portStayId, port: h.port, arrivesAt: h.arrivesAt.toISOString() } : null,
       note: r.note,
       orderRef: r.orderRef,

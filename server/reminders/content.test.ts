@@ -63,6 +63,25 @@ describe("dueDigestMail", () => {
     ]);
   });
 
+  it("says which critical spares are under their minimum, linked to the stores", () => {
+    const withSpares = dueDigestMail(
+      {
+        vessel,
+        occasion,
+        selection,
+        totals: { late: 5, outOfTolerance: 2 },
+        lowSpares: [{ number: "KP-10432", description: "Piston ring set", unit: "set", onBoard: 1, minimum: 2 }],
+      },
+      links,
+    );
+    const section = withSpares.content.sections.at(-1)!;
+    expect(section.heading).toBe("Critical spares under their minimum");
+    expect(section.lines).toEqual([
+      { text: "KP-10432 Piston ring set", href: "https://keelson.example/vessels/v1/stores", note: "1 set on board, minimum 2 sets" },
+    ]);
+    expect(mail.content.sections.map((s) => s.heading)).not.toContain("Critical spares under their minimum");
+  });
+
   it("cuts a long section with a line to the Backlog", () => {
     const many = Array.from({ length: SECTION_LIMIT + 5 }, (_, i) => item(String(i), "2026-12-03"));
     const long = dueDigestMail(

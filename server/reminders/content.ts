@@ -7,6 +7,11 @@ import type { MailKind } from "@/server/mail/outbox";
 import type { MailContent, MailLine } from "@/server/mail/render";
 import { type DigestOccasion, type MissingReadingsStep, shipDayLabel } from "./schedule";
 import type { DigestItem, DigestSelection } from "./selection";
+import { amountText } from "@/server/parts/contract";
+import type { PartUnit } from "@/db/schema/parts";
+
+/** A critical spare under the company's minimum on board. */
+export type LowSpareLine = { number: string; description: string; unit: PartUnit; onBoard: number; minimum: number };
 
 export type MailLinks = {
   /** An absolute link into the app. */
@@ -77,10 +82,12 @@ export function dueDigestMail(
     selection: DigestSelection;
     /** Every open work order of the vessel late / out of tolerance now, not only the new ones. */
     totals: { late: number; outOfTolerance: number };
+    /** Critical spares under their minimum on board. */
+    lowSpares?: LowSpareLine[];
   },
   links: MailLinks,
 ): Built {
-  const { vessel, occasion, selection, totals } = input;
+  const { vessel, occasion, selection, totals, lowSpares = [] } = input;
   const day = shipDayLabel(occasion.shipDay);
   const since = `${formatShipTime(occasion.previousCutOff, vessel.timeZone)} ship’s time`;
   const standing =
@@ -98,6 +105,16 @@ export function dueDigestMail(
   ]
     .filter((s) => s.items.length > 0)
     .map((s) => ({ heading: s.heading, lines: workOrderLines(vessel.id, s.items, links) }));
+  if (lowSpares.length) {
+    sections.push({
+      heading: "Critical spares under their minimum",
+      lines: lowSpares.slice(0, SECTION_LIMIT).map((p) => ({
+        text: `${p.number} ${p.description}`,
+        href: links.app(`/vessels/${vessel.id}/stores`),
+        note: `${amountText(p.onBoard, p.unit)} on board, minimum ${amountText(p.minimum, p.unit)}`,
+      })),
+    });
+  }
   const counts = digestCounts(selection);
   return {
     subject: `${vessel.name} — due digest for ${day}: ${counts}`,

@@ -30,6 +30,7 @@ import {
   type ReminderCompany,
   type ReminderVessel,
 } from "./queries";
+import { lowCriticalSpares } from "@/server/parts/low-stock";
 import { dueDigest, dueFleetSummary, hoursSince, missingReadingsSteps, reminderKeys } from "./schedule";
 import {
   digestRecipients,
@@ -102,13 +103,14 @@ async function dueDigestsOf(tx: Tx, co: ReminderCompany, v: ReminderVessel, memb
   // Nothing changed and nothing falls due this week: no message rather than an empty one.
   if (isEmptyDigest(selection)) return 0;
   const totals = await loadStandingTotals(tx, co.id, v.id);
+  const lowSpares = await lowCriticalSpares(tx, co.id, v.id);
   return queue(
     tx,
     co.id,
     people,
     "due-digest",
     (userId) => reminderKeys.dueDigest(v.id, occasion.shipDay, userId),
-    (links) => dueDigestMail({ vessel: v, occasion, selection, totals }, links),
+    (links) => dueDigestMail({ vessel: v, occasion, selection, totals, lowSpares }, links),
   );
 }
 

@@ -52,6 +52,8 @@ export const PAGES: Record<string, PageEntry> = {
   "/vessels/[vesselId]/port-stays": section("port-stays"),
   "/vessels/[vesselId]/stores": section("stores", "tbody tr"),
   "/parts": at(CHIEF, "/parts"),
+  "/vessels/[vesselId]/requisitions": section("requisitions", "[data-requisition]"),
+  "/requisitions": office("/requisitions"),
   "/vessels/[vesselId]/port-stays/[stayId]": onVessel((ids) => `/port-stays/${ids.stayId}`),
   "/vessels/[vesselId]/port-stays/[stayId]/sheet": onVessel((ids) => `/port-stays/${ids.stayId}/sheet`),
   "/vessels/[vesselId]/work-orders/[workOrderId]": onVessel((ids) => `/work-orders/${ids.workOrderId}`),

@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as s from "@/db/schema";
 import type { Problem } from "@/server/http/problem";
 import type { CataloguePart, RequisitionList, RequisitionView, StayParts } from "@/server/parts/contract";
+import { lowCriticalSpares } from "@/server/parts/low-stock";
 import { recomputeVessel } from "@/server/scheduling/recompute";
 import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
 import { api, BASE_URL, type Session, signIn } from "../support/http";
@@ -88,6 +89,15 @@ describe("a port stay's parts", () => {
     expect(line(res.body, p.rings)?.toOrder).toBe(3);
     expect(line(res.body, p.gasket)).toMatchObject({ needed: 0, toOrder: 2, low: true });
     expect(res.body.lines[0]?.partId).toBe(p.rings.id);
+  });
+
+  it("tells the daily digest which critical spares are under their minimum (the gasket is not critical)", async () => {
+    expect(await lowCriticalSpares(testDb(), f.companyId, f.vesselA.id)).toEqual([
+      { number: "KP-10432", description: "Piston ring set", unit: "set", onBoard: 1, minimum: 2 },
+    ]);
+    expect(await lowCriticalSpares(testDb(), f.companyId, f.vesselB.id)).toEqual([
+      { number: "KP-10432", description: "Piston ring set", unit: "set", onBoard: 0, minimum: 2 },
+    ]);
   });
 
   it("counts the jobs shown on a timeline not yet accepted, and refuses a malformed list", async () => {
@@ -178,6 +188,7 @@ describe("a requisition", () => {
     expect(rest.body).toMatchObject({ state: "delivered", may: { receive: false, cancel: false } });
     expect(rest.body.deliveredAt).not.toBeNull();
     expect(await onBoard(p.rings.id)).toBe(4);
+    expect(await lowCriticalSpares(testDb(), f.companyId, f.vesselA.id)).toEqual([]);
     const moves = await testDb().select().from(s.stockMovement).where(eq(s.stockMovement.requisitionLineId, gaskets!.id));
     expect(moves.map((m) => [m.kind, m.quantity, m.reason])).toEqual([["received", 4, "Delivered against RQ-ALPHA-0001"]]);
     expect((await api(engineer, "POST", `${base()}/requisitions/${req.id}/receipts`, { items: [], complete: true })).status).toBe(409);
@@ -204,6 +215,6 @@ describe("a requisition", () => {
     const rows = (await res.text()).replace(/^\uFEFF/, "").trim().split("\r\n");
     expect(rows[0]).toBe("Vessel,Requisition,State,Deliver at,Part number,Description,Unit,Asked,Received,Why,Order reference,Drafted (UTC),Sent (UTC),Ordered (UTC),Delivered (UTC),Note");
     expect(rows.filter((r) => r.includes("RQ-ALPHA-0001"))).toHaveLength(2);
-    expect(rows.find((r) => r.includes("GK-77"))).toMatch(/,Delivered,Port Kelang \(arrives \d{4}-\d\d-\d\d\),GK-77,Cover gasket,piece,4,4,Under its minimum,PO-7781,/);
+    expect(rows.find((r) => r.includes("GK-77"))).toMatch(/,Delivered,"Port Kelang \(arrives \d{4}-\d\d-\d\d, ship’s day\)",GK-77,Cover gasket,piece,4,4,Under its minimum,PO-7781,/);
   });
 });

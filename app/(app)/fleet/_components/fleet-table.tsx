@@ -81,6 +81,9 @@ export function FleetTable({ board }: { board: FleetBoard }) {
               <th scope="col" rowSpan={2} className="px-2 py-1.5 text-right align-bottom leading-tight font-semibold">
                 Deferrals pending
               </th>
+              <th scope="col" rowSpan={2} className="px-2 py-1.5 text-right align-bottom leading-tight font-semibold">
+                Requisitions open
+              </th>
               <th scope="col" rowSpan={2} className={`${th} text-left align-bottom`}>
                 Overdue, 90 days
               </th>
@@ -183,6 +186,17 @@ function VesselRow({ v, days, now }: { v: FleetBoardVessel; days: string[]; now:
         what="deferral requests awaiting a decision"
         filter={{ deferral: "pending" }}
       />
+      <td className={td}>
+        {v.openRequisitions === 0 ? (
+          <span className="text-ink-500" aria-label="no requisitions open">
+            0
+          </span>
+        ) : (
+          <Link href={`/requisitions?vessel=${v.code}`} aria-label={`${v.openRequisitions} requisitions open for ${v.name}: open the list`} className="rounded px-1 font-semibold hover:underline">
+            {v.openRequisitions}
+          </Link>
+        )}
+      </td>
       <td className="px-2 py-1.5">
         <TrendSparkline values={v.trend} days={days} label={`${v.name}, late and out of tolerance`} />
       </td>

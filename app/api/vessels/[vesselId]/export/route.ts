@@ -9,7 +9,7 @@ import { ExportQuery } from "@/server/import/template";
  * `?format=zip` a zip of a CSV per kind.
  */
 export const GET = withAccess({ permission: "vessel:read", vessel: true, query: ExportQuery }, async ({ access, vessel, query }) => {
-  const rows = await exportRows(access, vessel);
+  const rows = await exportRows(access, vessel, { withReadings: !query.kind || query.kind === "readings" });
   const name = `${vessel.code}-${new Date().toISOString().slice(0, 10)}`;
   if (query.kind) return csvResponse(kindCsv(query.kind, rows[query.kind]), `${name}-${query.kind}.csv`);
   if (query.format === "zip") {

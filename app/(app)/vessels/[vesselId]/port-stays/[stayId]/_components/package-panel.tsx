@@ -9,6 +9,7 @@ import type { PortStayDetail, ProposalView } from "@/server/port-stays/contract"
 import { ENGINE_STOP_CAUTION } from "../../_components/stay-words";
 import { useAcceptPackage, usePropose } from "../../_components/use-port-stays";
 import { LeftOutList, PlacedList, ProposalFacts } from "./proposal-lists";
+import { StayPartsPanel } from "./stay-parts-panel";
 import { Timeline } from "./timeline";
 import { usePackageDraft } from "./use-package-draft";
 
@@ -85,6 +86,7 @@ export function PackagePanel({ detail, over }: Props) {
             <Timeline stay={stay} timeZone={vessel.timeZone} label="The accepted package on the stay’s timeline" jobs={accepted.map((job) => ({ job, wanted: job.startLocal }))} />
             {caution}
             <PlacedList entries={accepted.map((p) => ({ input: { workOrderId: p.workOrderId, start: p.startLocal }, job: p, placed: p }))} problems={new Map()} />
+            <StayPartsPanel vesselId={vessel.id} stayId={stay.id} port={stay.port} jobs={null} canRequest={detail.may.plan && !over} />
           </>
         )}
       </section>
@@ -128,6 +130,7 @@ export function PackagePanel({ detail, over }: Props) {
       )}
       {caution}
       <PlacedList entries={draft.entries} problems={byItem} onRemove={draft.remove} />
+      <StayPartsPanel vesselId={vessel.id} stayId={stay.id} port={stay.port} jobs={draft.entries.map((e) => e.input.workOrderId)} canRequest={canPlan} />
       <LeftOutList stay={stay} outside={draft.outside} slotMinutes={proposal.slotMinutes} onAdd={draft.add} />
       <ProposalFacts proposal={proposal} crew={stay.crew} />
     </section>
