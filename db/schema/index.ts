@@ -12,3 +12,4 @@ export * from "./plan-problems";
 export * from "./sign-in";
 export * from "./imports";
 export * from "./parts";
+export * from "./defects";

@@ -119,6 +119,7 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
   const [co] = await db.select().from(s.company).where(eq(s.company.slug, demoCompany.slug));
   await onboardDemoVessels(co!.id, now);
   await seedParts(db, co!.id, now);
+  await (await import("./defects")).seedDefects(db, co!.id, now);
   // What the worker would write after the readings: rates, work orders and their states.
   for (const v of await db.select().from(s.vessel).where(eq(s.vessel.companyId, co!.id))) {
     const run = await recomputeVessel(db, co!.id, v.id, now);

@@ -38,6 +38,8 @@ export const BacklogQuery = z.object({
   engineStop: flag,
   critical: flag,
   classRelated: flag,
+  /** Only unplanned work: defect reports (and the follow-ups of measurements out of limits). */
+  defects: flag,
   dueBefore: z.iso.date({ message: "dueBefore is a date, YYYY-MM-DD." }).optional(),
   /** Only work orders with a deferral request awaiting a decision. */
   deferral: z.enum(["pending"], { message: "deferral is pending (or left out)." }).optional(),

@@ -22,6 +22,7 @@ function filters(access: Access, vessel: VesselRef, f: BacklogFilter): SQL[] {
   if (f.engineStop !== undefined) where.push(eq(workOrder.needsEngineStop, f.engineStop));
   if (f.critical !== undefined) where.push(eq(workOrder.critical, f.critical));
   if (f.classRelated !== undefined) where.push(eq(workOrder.classRelated, f.classRelated));
+  if (f.defects !== undefined) where.push(eq(workOrder.kind, f.defects ? "corrective" : "planned"));
   if (f.dueBefore) where.push(lte(workOrder.dueDate, instantOfShipTime(f.dueBefore, "23:59", vessel.timeZone)));
   if (f.deferral === "pending") where.push(PENDING_DEFERRAL);
   if (f.q) {

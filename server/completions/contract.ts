@@ -9,6 +9,7 @@ import { RANKS } from "@/server/routines/ranks";
 import { DUE_FIELDS, HEADING_FIELDS, JOB_FIELDS } from "@/server/work-orders/fields";
 import type { WorkOrderView } from "@/server/work-orders/view";
 import { type FittingPart, MAX_PARTS_USED, PartUsedRow } from "@/server/parts/contract";
+import type { DefectView } from "@/server/defects/contract";
 
 /** The most man-hours one job may take, spent or estimated (a routine's estimate has the same limit). */
 export const MAX_JOB_MAN_HOURS = 9_999;
@@ -99,6 +100,9 @@ export const DecisionInput = z
   .object({
     decision: z.enum(["approve", "return"], { message: "The decision is approve or return." }),
     note: z.string().trim().max(2_000, { message: "Keep the note under 2,000 characters." }).default(""),
+    /** A defect's repair approved closes the defect: what caused it, and what prevents a repeat. */
+    cause: z.string().trim().max(2_000, { message: "Keep the cause under 2,000 characters." }).default(""),
+    action: z.string().trim().max(2_000, { message: "Keep the action under 2,000 characters." }).default(""),
   })
   .superRefine((input, ctx) => {
     if (input.decision === "return" && !input.note) {
@@ -230,6 +234,8 @@ export type WorkOrderDetail = {
   responsibleChoices: { id: string; name: string; role: string; rank: string | null }[];
   /** The catalogue's parts that fit the component (or those above it), with what is on board. */
   partsOnBoard: FittingPart[];
+  /** The defect report this work order repairs, if it is one. */
+  defect: DefectView | null;
 };
 
 export type CompletionResult = { completionId: string; status: CompletionStatus; followUpNumber: string | null };

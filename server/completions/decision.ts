@@ -4,9 +4,10 @@ import "server-only";
 import { and, eq } from "drizzle-orm";
 import { z } from "zod";
 import { getDb } from "@/db/client";
-import { completion, workOrder, workOrderStateChange } from "@/db/schema";
+import { completion, defect, workOrder, workOrderStateChange } from "@/db/schema";
+import { closeProblems } from "@/server/defects/rules";
 import type { Access, VesselRef } from "@/server/auth/access";
-import { AppError } from "@/server/http/problem";
+import { AppError, invalidInput } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { type CompletionStatus, DecisionInput } from "./contract";
 import { lockWorkOrder } from "@/server/work-orders/lock";
@@ -49,6 +50,16 @@ export async function decideCompletion(
         .set({ ...decided, status: "returned" })
         .where(eq(completion.id, c.id));
       return { status: "returned", workOrderState: w.state };
+    }
+    // A defect's repair approved closes the defect, with its cause and the action against a repeat.
+    const [d] = await tx
+      .select({ id: defect.id, closedAt: defect.closedAt })
+      .from(defect)
+      .where(and(eq(defect.companyId, companyId), eq(defect.workOrderId, w.id)));
+    if (d && !d.closedAt) {
+      const problems = closeProblems(decision);
+      if (problems.length) throw invalidInput(problems);
+      await tx.update(defect).set({ cause: decision.cause, action: decision.action, closedAt: now, closedBy: access.user.id }).where(eq(defect.id, d.id));
     }
     await tx
       .update(completion)

@@ -1,10 +1,11 @@
 // The corrective work order that follows a measurement out of the maker's limits (written under
 // the vessel's work-order lock, server/work-orders/lock.ts).
 import "server-only";
-import { and, eq, isNull, ne, sql } from "drizzle-orm";
+import { and, eq, isNull, ne } from "drizzle-orm";
 import type { Tx } from "@/db/client";
-import { vessel, workOrder, workOrderStateChange } from "@/db/schema";
-import { workOrderNumber } from "@/server/scheduling/work-order-diff";
+import { workOrder, workOrderStateChange } from "@/db/schema";
+import { nextWorkOrderNumber } from "@/server/work-orders/number";
+import { insertDefect } from "@/server/defects/queries";
 
 /** Days a follow-up has before it is due: a week, long enough to get parts, short enough to matter. */
 export const FOLLOW_UP_DAYS = 7;
@@ -25,6 +26,10 @@ type FollowUp = {
   classRelated: boolean;
   needsEngineStop: boolean;
   now: Date;
+  /** Who recorded the values: the defect's reporter. */
+  reportedBy?: string | null;
+  /** The values and limits, in words, for the defect's details. */
+  measured?: string;
 };
 
 /**
@@ -52,13 +57,7 @@ export async function createFollowUp(tx: Tx, f: FollowUp): Promise<string | null
     .limit(1);
   if (open) return null;
 
-  const [seq] = await tx
-    .update(vessel)
-    .set({ workOrderSeq: sql`${vessel.workOrderSeq} + 1` })
-    .where(and(eq(vessel.companyId, f.companyId), eq(vessel.id, f.vesselId)))
-    .returning({ code: vessel.code, sequence: vessel.workOrderSeq });
-  if (!seq) throw new Error(`vessel ${f.vesselId} vanished while its completion was recorded`);
-  const number = workOrderNumber(seq.code, seq.sequence);
+  const { number, vesselCode } = await nextWorkOrderNumber(tx, f.companyId, f.vesselId);
   const dueDate = new Date(f.doneAt.getTime() + FOLLOW_UP_DAYS * 86_400_000);
   const [created] = await tx
     .insert(workOrder)
@@ -89,6 +88,24 @@ export async function createFollowUp(tx: Tx, f: FollowUp): Promise<string | null
     fromState: null,
     toState: "window-open",
     changedAt: f.now,
+  });
+  // One kind of unplanned work: the follow-up is a defect report, planned a week ahead.
+  await insertDefect(tx, {
+    companyId: f.companyId,
+    vesselId: f.vesselId,
+    vesselCode,
+    componentId: f.componentId,
+    workOrderId: created!.id,
+    title: `${f.outOfLimits.join(", ")} out of limits`,
+    description: f.measured ?? "",
+    foundAt: f.doneAt,
+    reportedBy: f.reportedBy ?? null,
+    source: "measurement",
+    affectsCritical: f.critical,
+    affectsSafety: false,
+    affectsClass: f.classRelated,
+    needsEngineStop: f.needsEngineStop,
+    plannedAt: f.now,
   });
   return number;
 }

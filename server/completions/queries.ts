@@ -30,6 +30,7 @@ import {
   type WorkOrderDetail,
 } from "./contract";
 import { partsForComponent } from "@/server/parts/queries";
+import { defectOfWorkOrder } from "@/server/defects/queries";
 
 const HISTORY_LIMIT = 25;
 
@@ -100,6 +101,7 @@ export async function loadWorkOrderDetail(
     },
     responsibleChoices: await responsibleChoices(db, companyId, vessel.id),
     partsOnBoard: await partsForComponent(companyId, vessel.id, w.componentId, w.routineId),
+    defect: w.kind === "corrective" ? await defectOfWorkOrder(access, vessel, w.id) : null,
     deferrals: await loadWorkOrderDeferrals(access, vessel, w, now),
   };
 }

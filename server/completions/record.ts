@@ -184,6 +184,11 @@ async function writeCompletion(
       classRelated: w.classRelated,
       needsEngineStop: w.needsEngineStop,
       now,
+      reportedBy: access.user.id,
+      measured: measurements
+        .filter((m) => m.outOfLimits)
+        .map((m) => `${m.name}: ${m.value} ${m.unit} (limits ${m.lower ?? "—"} … ${m.upper ?? "—"} ${m.unit}) when ${w.number} was done.`)
+        .join("\n"),
     });
     // A follow-up raised by a measurement out of limits gets its windows from the worker.
     if (followUpNumber) await requestRecompute(tx, companyId, vessel.id);

@@ -2,9 +2,9 @@
 // snapshots for the trends, and the requests awaiting a decision. Two snapshot queries for the
 // whole fleet (no query per vessel) and the deferral list; it never reads work orders one by one.
 import "server-only";
-import { and, asc, eq, gte, inArray, sql } from "drizzle-orm";
+import { and, asc, eq, gte, inArray, isNull, min, sql } from "drizzle-orm";
 import { getReadDb } from "@/db/client";
-import { requisition, vesselSnapshot } from "@/db/schema";
+import { defect, requisition, vesselSnapshot } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
 import { listFleetPendingDeferrals } from "@/server/deferrals/queries";
 import type { FleetBoard, FleetBoardPending, FleetBoardVessel } from "./contract";
@@ -51,7 +51,7 @@ export async function loadFleetBoard(access: Access, now = new Date()): Promise<
   const db = getReadDb();
   const companyId = access.company.id;
   const days = trendDays(now);
-  const [latest, history, pending, requisitions] = await Promise.all([
+  const [latest, history, pending, requisitions, defects] = await Promise.all([
     db.execute<LatestRow>(latestSnapshotsQuery(companyId)),
     db
       .select({
@@ -71,7 +71,18 @@ export async function loadFleetBoard(access: Access, now = new Date()): Promise<
       .from(requisition)
       .where(and(eq(requisition.companyId, companyId), inArray(requisition.state, ["sent", "ordered"])))
       .groupBy(requisition.vesselId),
+    db
+      .select({
+        vesselId: defect.vesselId,
+        open: sql<number>`count(*)::int`,
+        critical: sql<number>`(count(*) filter (where ${defect.affectsCritical}))::int`,
+        oldest: min(defect.foundAt),
+      })
+      .from(defect)
+      .where(and(eq(defect.companyId, companyId), isNull(defect.closedAt)))
+      .groupBy(defect.vesselId),
   ]);
+  const defectsByVessel = new Map(defects.map((d) => [d.vesselId, d]));
   const requisitionsByVessel = new Map(requisitions.map((r) => [r.vesselId, r.n]));
 
   // Office roles see the whole fleet; anyone else given fleet:read would see their own vessels.
@@ -125,6 +136,12 @@ export async function loadFleetBoard(access: Access, now = new Date()): Promise<
       onTimeRate: r.on_time_rate === null ? null : Number(r.on_time_rate),
       pendingDeferrals: pendingByVessel.get(r.id) ?? 0,
       openRequisitions: requisitionsByVessel.get(r.id) ?? 0,
+      openDefects: defectsByVessel.get(r.id)?.open ?? 0,
+      criticalDefects: defectsByVessel.get(r.id)?.critical ?? 0,
+      oldestDefectDays: (() => {
+        const oldest = defectsByVessel.get(r.id)?.oldest;
+        return oldest ? Math.max(0, Math.floor((now.getTime() - new Date(oldest).getTime()) / 86_400_000)) : null;
+      })(),
       tier: boardTier(figures),
       trend: trends.get(r.id)!,
     };

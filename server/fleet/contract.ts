@@ -32,6 +32,10 @@ export type FleetBoardVessel = {
   pendingDeferrals: number;
   /** Requisitions sent to the office or ordered, not yet delivered. */
   openRequisitions: number;
+  /** Defect reports not yet closed; those on critical equipment; days since the oldest was found. */
+  openDefects: number;
+  criticalDefects: number;
+  oldestDefectDays: number | null;
   /** 0 critical/class out of tolerance, 1 critical/class late, 2 out of tolerance, 3 late, 4 none. */
   tier: BoardTier;
   /** Late + out of tolerance on each of `FleetBoard.days`; null where no snapshot was taken. */

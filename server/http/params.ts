@@ -24,3 +24,4 @@ export const MessageParams = z.object({ messageId: pathId("message") });
 export const UserParams = z.object({ userId: userPathId });
 export const PartParams = z.object({ partId: pathId("part") });
 export const RequisitionParams = z.object({ requisitionId: pathId("requisition") });
+export const DefectParams = z.object({ defectId: pathId("defect report") });

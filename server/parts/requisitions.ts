@@ -5,6 +5,7 @@ import "server-only";
 import { and, asc, desc, eq, gt, inArray, sql, type SQL } from "drizzle-orm";
 import { getDb, type Db, type Tx } from "@/db/client";
 import {
+  defect,
   part,
   portStay,
   requisition,
@@ -322,13 +323,19 @@ export async function stayParts(access: Access, vessel: VesselRef, stayId: strin
           .from(workPackageItem)
           .where(and(eq(workPackageItem.companyId, companyId), eq(workPackageItem.portStayId, stay.id)))
       ).map((r) => r.id);
-  const needs = jobIds.length
-    ? await db
-        .select({ partId: routinePart.partId, quantity: routinePart.quantity, job: workOrder.number })
-        .from(workOrder)
-        .innerJoin(routinePart, eq(routinePart.routineId, workOrder.routineId))
-        .where(and(eq(workOrder.companyId, companyId), eq(workOrder.vesselId, vessel.id), inArray(workOrder.id, jobIds)))
-    : [];
+  const mine = and(eq(workOrder.companyId, companyId), eq(workOrder.vesselId, vessel.id), inArray(workOrder.id, jobIds));
+  const [routineNeeds, repairs] = jobIds.length
+    ? await Promise.all([
+        db
+          .select({ partId: routinePart.partId, quantity: routinePart.quantity, job: workOrder.number })
+          .from(workOrder)
+          .innerJoin(routinePart, eq(routinePart.routineId, workOrder.routineId))
+          .where(mine),
+        // A defect's repair needs the parts its plan names.
+        db.select({ parts: defect.parts, job: workOrder.number }).from(workOrder).innerJoin(defect, eq(defect.workOrderId, workOrder.id)).where(mine),
+      ])
+    : [[], []];
+  const needs = [...routineNeeds, ...repairs.flatMap((r) => r.parts.map((p) => ({ partId: p.partId, quantity: p.quantity, job: r.job })))];
   const keepMinimum = query.minimum === "1";
   const [parts, sums, asked, open] = await Promise.all([
     db.select().from(part).where(eq(part.companyId, companyId)),

@@ -53,6 +53,7 @@ export const PAGES: Record<string, PageEntry> = {
   "/vessels/[vesselId]/stores": section("stores", "tbody tr"),
   "/parts": at(CHIEF, "/parts"),
   "/vessels/[vesselId]/requisitions": section("requisitions", "[data-requisition]"),
+  "/vessels/[vesselId]/defects": section("defects", "[data-defect]"),
   "/requisitions": office("/requisitions"),
   "/vessels/[vesselId]/port-stays/[stayId]": onVessel((ids) => `/port-stays/${ids.stayId}`),
   "/vessels/[vesselId]/port-stays/[stayId]/sheet": onVessel((ids) => `/port-stays/${ids.stayId}/sheet`),

@@ -1,8 +1,8 @@
-import { crc32, deflateSync } from "node:zlib";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "@/db/seed/scenario";
 import { openPage, screenshot, signInThroughForm } from "../support/browser";
+import { gradientPng } from "../support/png";
 
 let browser: Browser;
 let page: Page;
@@ -12,32 +12,6 @@ let workOrderUrl = "";
 // is removed again at the end, so the demo work order is left as it was found.
 const JOB = "Governor: oil change";
 
-/** A small real PNG (RFC 2083): a 96×72 gradient, so the thumbnail shows something. */
-function gradientPng(width = 96, height = 72): Buffer {
-  const chunk = (type: string, data: Buffer) => {
-    const body = Buffer.concat([Buffer.from(type, "ascii"), data]);
-    const length = Buffer.alloc(4);
-    length.writeUInt32BE(data.length);
-    const crc = Buffer.alloc(4);
-    crc.writeUInt32BE(crc32(body));
-    return Buffer.concat([length, body, crc]);
-  };
-  const header = Buffer.alloc(13);
-  header.writeUInt32BE(width, 0);
-  header.writeUInt32BE(height, 4);
-  header.set([8, 2, 0, 0, 0], 8); // 8-bit RGB, no interlace
-  const rows: number[] = [];
-  for (let y = 0; y < height; y++) {
-    rows.push(0); // filter: none
-    for (let x = 0; x < width; x++) rows.push(40 + (x * 160) / width, 90 + (y * 120) / height, 150);
-  }
-  return Buffer.concat([
-    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
-    chunk("IHDR", header),
-    chunk("IDAT", deflateSync(Buffer.from(rows.map(Math.floor)))),
-    chunk("IEND", Buffer.alloc(0)),
-  ]);
-}
 
 const section = () => page.getByRole("region", { name: "Photos and documents" });
 

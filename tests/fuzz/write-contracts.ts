@@ -112,6 +112,10 @@ export const EXAMPLES: Record<string, (c: ExampleContext) => Example> = {
   "PATCH /api/vessels/[vesselId]/requisitions/[requisitionId]": () => ({ body: { note: "Fuzz note" } }),
   "POST /api/vessels/[vesselId]/requisitions/[requisitionId]/state": () => ({ body: { to: "sent" } }),
   "POST /api/vessels/[vesselId]/requisitions/[requisitionId]/receipts": () => ({ body: { items: [], complete: true } }),
+  "POST /api/vessels/[vesselId]/defects": (c) => ({
+    body: { componentId: c.componentId, title: "Fuzz leak at the drain", foundOn: c.shipDay, time: c.time, affectsSafety: true },
+  }),
+  "POST /api/vessels/[vesselId]/defects/[defectId]/plan": (c) => ({ body: { targetDay: c.laterDay, rank: "motorman", manHours: "2,5" } }),
   "POST /api/vessels/[vesselId]/components": (c) => ({ body: { code: `FZ.${c.tag.slice(0, 6)}`, name: "Fuzz pump" } }),
   "PATCH /api/vessels/[vesselId]/components/[componentId]": () => ({ body: { name: "Fuzz pump renamed" } }),
   "POST /api/vessels/[vesselId]/counters": (c) => ({ body: { name: `Fuzz meter ${c.tag}`, plannedHoursPerDay: 12 } }),

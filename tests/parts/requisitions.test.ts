@@ -5,6 +5,8 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as s from "@/db/schema";
+import type { DefectView } from "@/server/defects/contract";
+import { shipClock, shipDay } from "@/server/format/hours";
 import type { Problem } from "@/server/http/problem";
 import type { CataloguePart, RequisitionList, RequisitionView, StayParts } from "@/server/parts/contract";
 import { lowCriticalSpares } from "@/server/parts/low-stock";
@@ -22,6 +24,7 @@ let stayId = "";
 let store = "";
 const p: Record<"rings" | "sealant" | "gasket", CataloguePart> = {} as never;
 let req: RequisitionView;
+let cylinderId = "";
 
 const base = () => `/api/vessels/${f.vesselA.id}`;
 const stayParts = (query = "") => api<StayParts>(chief, "GET", `${base()}/port-stays/${stayId}/parts${query}`);
@@ -43,6 +46,7 @@ beforeAll(async () => {
     .insert(s.component)
     .values([1, 2].map((n) => ({ companyId: f.companyId, vesselId: f.vesselA.id, code: `ME.CYL.${n}`, name: `Cylinder unit ${n}` })))
     .returning();
+  cylinderId = units[0]!.id;
   const routines = await db
     .insert(s.routine)
     .values(units.map((u) => ({ companyId: f.companyId, vesselId: f.vesselA.id, componentId: u.id, title: `${u.code}: piston overhaul`, calendarRule: "FREQ=YEARLY", baselineAt: new Date(Date.now() - 400 * 86_400_000) })))
@@ -216,5 +220,23 @@ describe("a requisition", () => {
     expect(rows[0]).toBe("Vessel,Requisition,State,Deliver at,Part number,Description,Unit,Asked,Received,Why,Order reference,Drafted (UTC),Sent (UTC),Ordered (UTC),Delivered (UTC),Note");
     expect(rows.filter((r) => r.includes("RQ-ALPHA-0001"))).toHaveLength(2);
     expect(rows.find((r) => r.includes("GK-77"))).toMatch(/,Delivered,"Port Kelang \(arrives \d{4}-\d\d-\d\d, ship’s day\)",GK-77,Cover gasket,piece,4,4,Under its minimum,PO-7781,/);
+  });
+});
+
+describe("a defect's repair", () => {
+  it("brings the parts its plan names into the stay's count", async () => {
+    const at = new Date(Date.now() - 3_600_000);
+    const reported = await api<DefectView>(engineer, "POST", `${base()}/defects`, {
+      componentId: cylinderId,
+      title: "Cover gasket leaking",
+      foundOn: shipDay(at, f.vesselA.timeZone),
+      time: shipClock(at, f.vesselA.timeZone),
+    });
+    const target = shipDay(new Date(Date.now() + 11 * 86_400_000), f.vesselA.timeZone);
+    const planned = await api<DefectView>(chief, "POST", `${base()}/defects/${reported.body.id}/plan`, { targetDay: target, rank: "motorman", manHours: 2, parts: [{ partId: p.gasket.id, quantity: 3 }] });
+    expect(planned.status).toBe(200);
+    const res = await stayParts(`?minimum=0&jobs=${reported.body.workOrder.id}`);
+    // 4 gaskets came on RQ-ALPHA-0001: 3 needed, none short.
+    expect(line(res.body, p.gasket)).toMatchObject({ jobs: [reported.body.workOrder.number], needed: 3, onBoard: 4, short: 0 });
   });
 });

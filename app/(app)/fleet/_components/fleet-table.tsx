@@ -82,6 +82,9 @@ export function FleetTable({ board }: { board: FleetBoard }) {
                 Deferrals pending
               </th>
               <th scope="col" rowSpan={2} className="px-2 py-1.5 text-right align-bottom leading-tight font-semibold">
+                Defects open
+              </th>
+              <th scope="col" rowSpan={2} className="px-2 py-1.5 text-right align-bottom leading-tight font-semibold">
                 Requisitions open
               </th>
               <th scope="col" rowSpan={2} className={`${th} text-left align-bottom`}>
@@ -186,6 +189,23 @@ function VesselRow({ v, days, now }: { v: FleetBoardVessel; days: string[]; now:
         what="deferral requests awaiting a decision"
         filter={{ deferral: "pending" }}
       />
+      <td className={td}>
+        {v.openDefects === 0 ? (
+          <span className="text-ink-500" aria-label="no defects open">
+            0
+          </span>
+        ) : (
+          <Link
+            href={backlogHref(v.id, { defects: true })}
+            aria-label={`${v.openDefects} defects open on ${v.name}${v.criticalDefects ? `, ${v.criticalDefects} on critical equipment` : ""}, the oldest ${v.oldestDefectDays} days: open its Backlog`}
+            className="rounded px-1 hover:underline"
+          >
+            <span className={v.criticalDefects ? "font-bold text-alarm-700 dark:text-alarm-300" : "font-semibold"}>{v.openDefects}</span>
+            {v.criticalDefects > 0 && <span className="block text-xs text-alarm-700 dark:text-alarm-300">{v.criticalDefects} critical</span>}
+            <span className="block text-xs text-ink-500">oldest {v.oldestDefectDays} d</span>
+          </Link>
+        )}
+      </td>
       <td className={td}>
         {v.openRequisitions === 0 ? (
           <span className="text-ink-500" aria-label="no requisitions open">

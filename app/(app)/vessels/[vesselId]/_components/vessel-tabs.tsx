@@ -3,6 +3,7 @@ import { SectionTabs } from "@/app/_components/section-tabs";
 const SECTIONS = [
   { slug: "hour-log", label: "Hour log" },
   { slug: "backlog", label: "Backlog" },
+  { slug: "defects", label: "Defects" },
   { slug: "calendar", label: "Calendar" },
   { slug: "port-stays", label: "Port stays" },
   { slug: "routines", label: "Routines" },

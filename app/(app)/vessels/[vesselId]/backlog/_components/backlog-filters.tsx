@@ -13,7 +13,7 @@ import { useRankWords } from "@/app/_components/rank-words-provider";
 /** The filters this bar sets, in the Backlog query's own shape (a value left out is no filter). */
 export type FilterValues = Pick<
   BacklogFilter,
-  "state" | "q" | "rank" | "critical" | "classRelated" | "engineStop" | "dueBefore"
+  "state" | "q" | "rank" | "critical" | "classRelated" | "engineStop" | "defects" | "dueBefore"
 >;
 
 type Props = {
@@ -103,6 +103,7 @@ export function BacklogFilters({ values, counts, ranks, onChange }: Props) {
             ["critical", "Critical only"],
             ["classRelated", "Class items only"],
             ["engineStop", "Engine stop needed"],
+            ["defects", "Defects only"],
           ] as const
         ).map(([key, label]) => (
           <label key={key} className="flex items-center gap-1.5 pb-1.5">

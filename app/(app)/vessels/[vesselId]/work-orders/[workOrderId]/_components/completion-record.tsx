@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { Field } from "@/app/_components/forms/field";
+import { ProblemError } from "@/app/_components/fetch-json";
 import { problemSentence } from "@/app/_components/forms/form-problem";
 import { Notice } from "@/app/_components/notice";
 import { useRankWords } from "@/app/_components/rank-words-provider";
@@ -130,31 +131,45 @@ export function CompletionRecordView({ record, timeZone, counterName }: Props) {
   );
 }
 
-type DecisionProps = { vesselId: string; workOrderId: string; onDecided: (message: string) => void };
+type DecisionProps = {
+  vesselId: string;
+  workOrderId: string;
+  onDecided: (message: string) => void;
+  /** The defect number approving this repair closes: then its cause and action are asked. */
+  closesDefect?: string | null;
+};
 
 /** The chief engineer's answer: approve, or return with a note saying what to correct. */
-export function DecisionForm({ vesselId, workOrderId, onDecided }: DecisionProps) {
+export function DecisionForm({ vesselId, workOrderId, onDecided, closesDefect = null }: DecisionProps) {
   const decide = useDecideCompletion(vesselId, workOrderId);
   const [note, setNote] = useState("");
+  const [cause, setCause] = useState("");
+  const [action, setAction] = useState("");
   const [problem, setProblem] = useState<string | null>(null);
   const [noteError, setNoteError] = useState<string | null>(null);
+  const [closeErrors, setCloseErrors] = useState<Record<string, string>>({});
 
   async function send(decision: "approve" | "return") {
     setProblem(null);
     setNoteError(null);
+    setCloseErrors({});
     if (decision === "return" && !note.trim()) {
       setNoteError("Say what needs correcting before returning it.");
       return;
     }
     try {
-      await decide.mutateAsync({ decision, note });
+      await decide.mutateAsync({ decision, note, cause, action });
       onDecided(
         decision === "approve"
-          ? "Approved: the work order is done and the next occurrence is being scheduled."
+          ? closesDefect
+            ? `Approved: ${closesDefect} is closed with its cause and action.`
+            : "Approved: the work order is done and the next occurrence is being scheduled."
           : "Returned to the engineer with your note.",
       );
     } catch (error) {
-      setProblem(problemSentence(error, "nothing was decided"));
+      const named = error instanceof ProblemError ? (error.problem.errors ?? []).filter((e) => e.field === "cause" || e.field === "action") : [];
+      setCloseErrors(Object.fromEntries(named.map((e) => [e.field, e.message])));
+      setProblem(named.length ? "Nothing was decided: say the cause and the action." : problemSentence(error, "nothing was decided"));
     }
   }
 
@@ -173,10 +188,21 @@ export function DecisionForm({ vesselId, workOrderId, onDecided }: DecisionProps
           aria-describedby={noteError ? "decision-note-error" : undefined}
         />
       </Field>
+      {closesDefect && (
+        <fieldset className="grid gap-3">
+          <legend className="label">Approving closes {closesDefect}: say what caused it and what prevents it again (ISM Code §9)</legend>
+          <Field id="defect-cause" label="Cause found" error={closeErrors.cause}>
+            <textarea id="defect-cause" className="field min-h-16" value={cause} onChange={(e) => setCause(e.target.value)} aria-invalid={closeErrors.cause ? true : undefined} />
+          </Field>
+          <Field id="defect-action" label="Action against a repeat" error={closeErrors.action}>
+            <textarea id="defect-action" className="field min-h-16" value={action} onChange={(e) => setAction(e.target.value)} aria-invalid={closeErrors.action ? true : undefined} />
+          </Field>
+        </fieldset>
+      )}
       <Notice tone="problem" message={problem} />
       <div className="flex gap-2">
         <button type="button" className="btn-primary" disabled={decide.isPending} onClick={() => send("approve")}>
-          Approve
+          {closesDefect ? "Approve and close the defect" : "Approve"}
         </button>
         <button type="button" className="btn-quiet" disabled={decide.isPending} onClick={() => send("return")}>
           Return with note

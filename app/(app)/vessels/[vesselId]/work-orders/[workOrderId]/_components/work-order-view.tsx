@@ -10,6 +10,7 @@ import { Cautions } from "./cautions";
 import { ComponentHistory } from "./component-history";
 import { CompletionForm } from "./completion-form";
 import { CompletionRecordView, DecisionForm } from "./completion-record";
+import { DefectReport } from "./defect-report";
 import { DeferralSection } from "./deferral-section";
 import { useWorkOrder } from "./use-work-order";
 import { WorkOrderSummary } from "./work-order-summary";
@@ -33,6 +34,7 @@ export function WorkOrderView({ vesselId, workOrderId }: Props) {
         </Link>
       </p>
       <WorkOrderSummary detail={detail} />
+      {detail.defect && <DefectReport defect={detail.defect} timeZone={detail.vessel.timeZone} />}
       <Cautions cautions={detail.routine?.cautions ?? []} />
       {(detail.routine?.spareParts || detail.partsOnBoard.length > 0) && (
         <section aria-labelledby="parts-heading" className="panel p-4">
@@ -92,7 +94,7 @@ function CompletionPart({ detail, onMessage }: { detail: WorkOrderDetail; onMess
       <>
         {record}
         {may.approve ? (
-          <DecisionForm vesselId={detail.vessel.id} workOrderId={detail.workOrder.id} onDecided={onMessage} />
+          <DecisionForm vesselId={detail.vessel.id} workOrderId={detail.workOrder.id} onDecided={onMessage} closesDefect={detail.defect?.state === "done" ? detail.defect.number : null} />
         ) : (
           <p className="text-ink-600 dark:text-ink-300">
             The chief engineer approves it; until then it shows as awaiting approval.
