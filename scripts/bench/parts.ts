@@ -2,7 +2,10 @@
 // locations and a year of movements on one vessel (deliveries, weekly use, quarterly counts, moves:
 // about 100,000 rows), then `GET /api/vessels/[id]/stores` — every part's quantity as the sum of its
 // movements, per location, with the minimums — timed over HTTP beside the bare SQL that sums the same
-// movements (`select part, location, sum(quantity) … group by`) in the same run.
+// movements (`select part, location, sum(quantity) … group by`) in the same run. Then a 3-day port
+// stay whose accepted package holds 300 jobs needing 3 parts each: `GET …/port-stays/[id]/parts`
+// (the package's needs against the stores and the open requisitions, back to the minimums) beside
+// the bare SQL that adds up the package's needs and the stock.
 import { writeFileSync } from "node:fs";
 import { performance } from "node:perf_hooks";
 import { sql } from "drizzle-orm";
@@ -46,6 +49,43 @@ for (const [i, p] of parts.entries()) {
 for (let i = 0; i < rows.length; i += 5_000) await db.insert(s.stockMovement).values(rows.slice(i, i + 5_000));
 await db.execute(sql`analyze stock_movement`);
 
+// A port stay whose accepted package holds 300 jobs, each needing 3 of the catalogue's parts.
+const JOBS = 300;
+const [unit] = await db.insert(s.component).values({ companyId, vesselId, code: "BENCH", name: "Bench machinery" }).returning({ id: s.component.id });
+const routines = await db
+  .insert(s.routine)
+  .values(Array.from({ length: JOBS }, (_, i) => ({ companyId, vesselId, componentId: unit!.id, title: `Bench job ${i + 1}`, calendarRule: "FREQ=YEARLY" })))
+  .returning({ id: s.routine.id });
+await db.insert(s.routinePart).values(
+  routines.flatMap((r, i) => [0, 1, 2].map((k) => ({ companyId, routineId: r.id, partId: parts[(i * 7 + k * 1_231) % PARTS]!.id, quantity: 1 + k }))),
+);
+const now = new Date();
+const jobs = await db
+  .insert(s.workOrder)
+  .values(
+    routines.map((r, i) => ({
+      companyId,
+      vesselId,
+      routineId: r.id,
+      componentId: unit!.id,
+      number: `WO-ALPHA-${String(i + 1).padStart(5, "0")}`,
+      occurrence: 1,
+      title: `Bench job ${i + 1}`,
+      state: "window-open" as const,
+      stateChangedAt: now,
+      governing: "calendar" as const,
+      rank: "motorman",
+      computedAt: now,
+    })),
+  )
+  .returning({ id: s.workOrder.id });
+const [stay] = await db
+  .insert(s.portStay)
+  .values({ companyId, vesselId, port: "Bench port", arrivesAt: new Date(now.getTime() + 5 * 86_400_000), departsAt: new Date(now.getTime() + 8 * 86_400_000) })
+  .returning({ id: s.portStay.id });
+await db.insert(s.workPackageItem).values(jobs.map((w) => ({ companyId, vesselId, portStayId: stay!.id, workOrderId: w.id, plannedDate: "2030-01-01", reason: "Bench" })));
+await db.execute(sql`analyze`);
+
 const session = await signIn(f.users.viewer.email, PASSWORD);
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 async function time(run: () => Promise<unknown>): Promise<number> {
@@ -65,6 +105,17 @@ const route = await time(async () => {
 const bare = await time(() =>
   db.execute(sql`select part_id, location_id, sum(quantity) from stock_movement where company_id = ${companyId} and vessel_id = ${vesselId} group by part_id, location_id`),
 );
+const stayRoute = await time(async () => {
+  const res = await api<{ jobs: number; lines: unknown[] }>(session, "GET", `/api/vessels/${vesselId}/port-stays/${stay!.id}/parts`);
+  if (res.status !== 200 || res.body.jobs !== JOBS) throw new Error(`stay parts answered ${res.status} with ${res.body.jobs} jobs`);
+});
+const stayBare = await time(() =>
+  Promise.all([
+    db.execute(sql`select rp.part_id, sum(rp.quantity) from work_package_item i join work_order w on w.id = i.work_order_id
+      join routine_part rp on rp.routine_id = w.routine_id where i.company_id = ${companyId} and i.port_stay_id = ${stay!.id} group by rp.part_id`),
+    db.execute(sql`select part_id, sum(quantity) from stock_movement where company_id = ${companyId} and vessel_id = ${vesselId} group by part_id`),
+  ]),
+);
 await closeTestDb();
 
 const md = [
@@ -72,7 +123,9 @@ const md = [
   "| --- | --- | --- |",
   `| GET /api/vessels/[id]/stores (every part's quantity per location, minimums, the JSON) | ${route.toFixed(0)} | ${(route / bare).toFixed(1)}× |`,
   `| floor: the bare SELECT … SUM(quantity) GROUP BY part, location | ${bare.toFixed(0)} | 1× |`,
+  `| GET …/port-stays/[id]/parts: a package of ${JOBS} jobs × 3 parts against the stores, the open requisitions and the minimums | ${stayRoute.toFixed(0)} | ${(stayRoute / stayBare).toFixed(1)}× |`,
+  `| floor: the bare SELECTs of the package's needs (SUM … GROUP BY part) and the stock per part | ${stayBare.toFixed(0)} | 1× |`,
 ].join("\n");
 writeFileSync("bench-output/parts.md", md + "\n");
-writeFileSync("bench-output/parts.json", JSON.stringify({ parts: PARTS, movements: rows.length, route, bare }, null, 2));
+writeFileSync("bench-output/parts.json", JSON.stringify({ parts: PARTS, movements: rows.length, route, bare, jobs: JOBS, stayRoute, stayBare }, null, 2));
 console.log(md);

@@ -73,6 +73,8 @@ export async function loadWorkOrderDetail(
       };
     }
   }
+  // A corrective work order may be a defect's repair: its report, and the parts its plan names.
+  const repair = w.kind === "corrective" ? await defectOfWorkOrder(access, vessel, w.id, now) : null;
 
   return {
     vessel: { id: vessel.id, name: vessel.name, code: vessel.code, timeZone: vessel.timeZone },
@@ -100,8 +102,8 @@ export async function loadWorkOrderDetail(
       approve: can(access.role, "work:approve"),
     },
     responsibleChoices: await responsibleChoices(db, companyId, vessel.id),
-    partsOnBoard: await partsForComponent(companyId, vessel.id, w.componentId, w.routineId),
-    defect: w.kind === "corrective" ? await defectOfWorkOrder(access, vessel, w.id) : null,
+    partsOnBoard: await partsForComponent(companyId, vessel.id, w.componentId, w.routineId, repair?.parts ?? []),
+    defect: repair,
     deferrals: await loadWorkOrderDeferrals(access, vessel, w, now),
   };
 }

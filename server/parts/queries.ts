@@ -224,7 +224,14 @@ export async function recentMovements(access: Access, vessel: VesselRef, partId:
  * component or the components above it (a cylinder unit's job needs the engine's parts too), each
  * with what the vessel holds and what is short: the work order shows them.
  */
-export async function partsForComponent(companyId: string, vesselId: string, componentId: string, routineId: string | null = null): Promise<FittingPart[]> {
+export async function partsForComponent(
+  companyId: string,
+  vesselId: string,
+  componentId: string,
+  routineId: string | null = null,
+  /** What a defect's plan names, in place of a routine's list. */
+  planned: readonly { partId: string; quantity: number }[] = [],
+): Promise<FittingPart[]> {
   const db = getDb();
   const tree = await db
     .select({ id: component.id, code: component.code, parentId: component.parentId })
@@ -249,7 +256,12 @@ export async function partsForComponent(companyId: string, vesselId: string, com
         .innerJoin(part, eq(part.id, routinePart.partId))
         .where(and(eq(routinePart.companyId, companyId), eq(routinePart.routineId, routineId)))
         .orderBy(asc(part.number))
-    : [];
+    : planned.length
+      ? (await db.select().from(part).where(and(eq(part.companyId, companyId), inArray(part.id, planned.map((n) => n.partId))))).map((p) => ({
+          p,
+          quantity: planned.find((n) => n.partId === p.id)!.quantity,
+        }))
+      : [];
   const ids = [...new Set([...needs.map((n) => n.p.id), ...fitting.map((r) => r.p.id)])];
   if (!ids.length) return [];
   const sums = await db

@@ -1,5 +1,5 @@
 // A defect found on board, in the browser with the demo data: Aster Gale's second engineer reports
-// a leaking seal with a photo; the chief engineer plans its repair into the Port Kelang stay; the
+// an oil leak with a photo; the chief engineer plans its repair into the Port Kelang stay; the
 // superintendent sees the vessel's open defects on the Fleet board and opens them in its Backlog.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -66,7 +66,8 @@ describe("a defect found on board", () => {
     await row.getByRole("button", { name: `Plan ${number}` }).click();
     const panel = page.getByRole("dialog", { name: `Plan ${number}` });
     // Port Kelang: the demo call three days ahead (db/seed/port-stays.ts).
-    const target = await page.evaluate(() => new Date(Date.now() + 3 * 86_400_000).toISOString().slice(0, 10));
+    // Aster Gale's clock (Asia/Singapore): the stay's first ship's day.
+    const target = new Intl.DateTimeFormat("en-CA", { timeZone: "Asia/Singapore" }).format(new Date(Date.now() + 3 * 86_400_000));
     await panel.getByLabel("Target day").fill(target);
     await panel.getByLabel("Rank").selectOption("motorman");
     await panel.getByLabel("Man-hours").fill("0");

@@ -17,8 +17,9 @@ import { queryKeys } from "@/app/_components/query-keys";
 import { SearchField } from "@/app/_components/search-field";
 import { PART_UNITS } from "@/db/schema/parts";
 import { type Catalogue, type CataloguePart, PartInput, UNIT_LABEL } from "@/server/parts/contract";
+import { type Fit, FitsChooser } from "./fits-chooser";
 
-export function PartsCatalogue() {
+export function PartsCatalogue({ vessels }: { vessels: Vessels }) {
   const { data, error, isPending } = useQuery({ queryKey: queryKeys.parts(), queryFn: () => fetchJson<Catalogue>("/api/parts") });
   const [editing, setEditing] = useState<CataloguePart | "new" | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
@@ -102,8 +103,9 @@ export function PartsCatalogue() {
         />
       </section>
       {editing && (
-        <SidePanel title={editing === "new" ? "Add a part" : `Edit ${editing.number}`} onClose={() => setEditing(null)}>
+        <SidePanel title={editing === "new" ? "Add a part" : `Edit ${editing.number}`} onClose={() => setEditing(null)} wide>
           <PartForm
+            vessels={vessels}
             part={editing === "new" ? null : editing}
             onDone={(m) => {
               setEditing(null);
@@ -120,14 +122,15 @@ export function PartsCatalogue() {
 type Values = z.input<typeof PartInput>;
 type Output = z.output<typeof PartInput>;
 
-function PartForm({ part, onDone, onCancel }: { part: CataloguePart | null; onDone: (m: string) => void; onCancel: () => void }) {
+type Vessels = { id: string; name: string; code: string }[];
+
+function PartForm({ part, vessels, onDone, onCancel }: { part: CataloguePart | null; vessels: Vessels; onDone: (m: string) => void; onCancel: () => void }) {
   const client = useQueryClient();
   const save = useMutation({
     mutationFn: (values: Output) =>
       fetchJson<CataloguePart>(part ? `/api/parts/${part.id}` : "/api/parts", {
         method: part ? "PATCH" : "POST",
-        // The components it fits are chosen elsewhere for now: a change keeps them.
-        body: JSON.stringify(part ? { ...values, fits: undefined } : values),
+        body: JSON.stringify(values),
       }),
     onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.parts() }),
   });
@@ -145,8 +148,14 @@ function PartForm({ part, onDone, onCancel }: { part: CataloguePart | null; onDo
   });
   const { register, formState } = form;
   const { errors, isSubmitting } = formState;
+  // The chosen components with their vessel and code, for the chips; the form holds their ids.
+  const [fits, setFits] = useState<Fit[]>(part?.fits ?? []);
+  const chooseFits = (next: Fit[]) => {
+    setFits(next);
+    form.setValue("fits", next.map((f) => f.id), { shouldDirty: true });
+  };
   const { onSubmit, problem } = useSendForm(form, {
-    fields: ["number", "makerRef", "description", "unit", "critical", "minimumOnBoard"],
+    fields: ["number", "makerRef", "description", "unit", "critical", "minimumOnBoard", "fits"],
     send: async (values) => {
       const saved = await save.mutateAsync(values);
       onDone(`${saved.number} ${part ? "saved" : "added to the catalogue"}.`);
@@ -179,6 +188,7 @@ function PartForm({ part, onDone, onCancel }: { part: CataloguePart | null; onDo
       <Field id="part-minimum" label="Minimum on board" hint="On each vessel that stocks it; 0 for none." error={errors.minimumOnBoard?.message}>
         <input className="field w-32 text-right tabular-nums" inputMode="decimal" autoComplete="off" {...describedBy("part-minimum", errors.minimumOnBoard?.message, true)} {...register("minimumOnBoard")} />
       </Field>
+      <FitsChooser vessels={vessels} chosen={fits} onChange={chooseFits} error={errors.fits?.message ?? errors.fits?.root?.message} />
       <FormActions submitLabel={part ? "Save part" : "Add part"} busy={isSubmitting} problem={problem} onCancel={onCancel} />
     </form>
   );
