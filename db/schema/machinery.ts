@@ -4,6 +4,7 @@ import {
   type AnyPgColumn,
   boolean,
   check,
+  doublePrecision,
   index,
   integer,
   numeric,
@@ -28,8 +29,8 @@ export const counter = pgTable(
     /** The meter fitted now; a replacement starts a new segment. */
     currentSegment: integer().notNull().default(1),
     sortOrder: integer().notNull().default(0),
-    /** Written by the worker: hours per day over the look-back, or the planned rate. */
-    runningRate: numeric({ precision: 4, scale: 1, mode: "number" }),
+    /** Written by the worker: hours per day over the look-back, or the planned rate, at full precision (shown rounded). */
+    runningRate: doublePrecision(),
     rateBasis: text({ enum: ["measured", "planned"] }),
     rateComputedAt: instant(),
     createdAt: nowStamp(),

@@ -2,7 +2,7 @@
 // the counter's running rate, where the rate comes from, and the reading the projection starts at.
 import { TZDate } from "@date-fns/tz";
 import { format } from "date-fns";
-import { formatHours } from "@/server/format/hours";
+import { formatHours, formatRate } from "@/server/format/hours";
 
 export type ProjectionFacts = CounterFacts & { dueHours: number | null };
 
@@ -28,7 +28,7 @@ export function projectionWords(c: CounterFacts, timeZone: string): (dueHours: n
   if (c.hoursPerDay === null || c.lastReadAt === null) {
     how = "projected from running hours, but the counter has no reading or rate yet";
   } else {
-    const rate = `${c.hoursPerDay.toFixed(1)} h/day`;
+    const rate = formatRate(c.hoursPerDay);
     const source = c.rateBasis === "planned" ? " (the planned rate: too little history)" : "";
     const reading = format(new TZDate(c.lastReadAt, timeZone), "d MMM");
     const at = c.lastTotalHours !== null ? `, ${formatHours(c.lastTotalHours)}` : "";

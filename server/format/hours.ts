@@ -9,6 +9,15 @@ export function formatHours(value: number): string {
   return `${hoursFormat.format(value)} h`;
 }
 
+/**
+ * A running rate as people read it, from the rate kept at full precision: "12.4 h/day"; a machine
+ * that runs less than 0.1 h a day by the month ("1.0 h in 30 days"), never a misleading "0.0 h/day".
+ */
+export function formatRate(hoursPerDay: number): string {
+  if (hoursPerDay > 0 && hoursPerDay < 0.1) return `${(hoursPerDay * 30).toFixed(1)} h in 30 days`;
+  return `${hoursPerDay.toFixed(1)} h/day`;
+}
+
 /** 36 → "36 man-hours" */
 export function formatManHours(value: number): string {
   return `${hoursFormat.format(value)} man-hours`;

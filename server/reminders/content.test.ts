@@ -132,8 +132,7 @@ describe("the other messages", () => {
     const mail = escalationMail(
       {
         vessel,
-        workOrder: item("9", "2026-11-01", { title: "Purifier bowl overhaul", critical: true }),
-        changedAt: new Date("2026-12-01T02:00:00Z"),
+        items: [{ workOrder: item("9", "2026-11-01", { title: "Purifier bowl overhaul", critical: true }), changedAt: new Date("2026-12-01T02:00:00Z") }],
       },
       links,
     );
@@ -143,6 +142,26 @@ describe("the other messages", () => {
     expect(text).toContain("This work is critical equipment.");
     expect(text).toContain("Open the work order: https://keelson.example/vessels/v1/work-orders/9");
     expect(text).toContain("Unsubscribe: https://keelson.example/unsubscribe?k=escalation");
+  });
+
+  it("escalation: one message for every work order of the vessel that went out of tolerance in the run", () => {
+    const mail = escalationMail(
+      {
+        vessel,
+        items: [
+          { workOrder: item("9", "2026-11-01", { title: "Purifier bowl overhaul", critical: true }), changedAt: new Date("2026-12-01T02:00:00Z") },
+          { workOrder: item("10", "2026-11-02", { title: "Boiler burner cleaning" }), changedAt: new Date("2026-12-01T02:00:05Z") },
+          { workOrder: item("11", "2026-11-03", { title: "Fire pump run", classRelated: true }), changedAt: new Date("2026-12-01T02:00:09Z") },
+        ],
+      },
+      links,
+    );
+    expect(mail.subject).toBe("Aster Gale — 3 work orders went out of tolerance");
+    const { text } = renderMail(mail.content);
+    for (const id of ["9", "10", "11"]) expect(text).toContain(`https://keelson.example/vessels/v1/work-orders/${id}`);
+    expect(text).toContain("Since 1 Dec 2026 10:00 ship’s time these work orders went past the end of their tolerance grace.");
+    expect(text).toContain("2 of them are on critical equipment or class-related.");
+    expect(text).toContain("Open the Backlog: https://keelson.example/vessels/v1/backlog?state=out-of-tolerance");
   });
 
   it("fleet summary: the vessels in order of what is out of tolerance", () => {

@@ -175,24 +175,50 @@ export function missingReadingsMail(
   };
 }
 
+/**
+ * One message per vessel and run: every work order that went out of tolerance in it (each change
+ * still escalated once). One work order is named in the subject; more are counted there and listed.
+ */
 export function escalationMail(
-  input: { vessel: VesselRef; workOrder: DigestItem; changedAt: Date },
+  input: { vessel: VesselRef; items: { workOrder: DigestItem; changedAt: Date }[] },
   links: MailLinks,
 ): Built {
-  const { vessel, workOrder: w, changedAt } = input;
-  const flags = [w.critical ? "critical equipment" : "", w.classRelated ? "class-related" : ""].filter(Boolean);
+  const { vessel, items } = input;
+  const flagsOf = (w: DigestItem) => [w.critical ? "critical equipment" : "", w.classRelated ? "class-related" : ""].filter(Boolean);
+  const decide =
+    "The chief engineer decides how to catch up: do the work at the first safe opportunity, or request a deferral with its reason for the office to decide.";
+  const footer = `You get one message per vessel and run of the reminders, listing every work order that went out of tolerance in it. ${CAUTION}`;
+  if (items.length === 1) {
+    const { workOrder: w, changedAt } = items[0]!;
+    const flags = flagsOf(w);
+    return {
+      subject: `${vessel.name} — ${w.number} is out of tolerance: ${w.title}`,
+      content: {
+        preheader: `${w.number} is past the end of its grace`,
+        title: `${w.number} is out of tolerance`,
+        intro:
+          `${w.number} on ${vessel.name} went past the end of its tolerance grace (noted ${formatShipTime(changedAt, vessel.timeZone)} ship’s time). ${decide}` +
+          (flags.length ? ` This work is ${flags.join(" and ")}.` : ""),
+        sections: [{ heading: "Work order", lines: workOrderLines(vessel.id, [w], links) }],
+        action: { label: "Open the work order", href: links.app(workOrderPath(vessel.id, w.id)) },
+        footer,
+        unsubscribe: unsubscribe("escalation", links),
+      },
+    };
+  }
+  const flagged = items.filter((i) => flagsOf(i.workOrder).length > 0).length;
+  const first = items.reduce((a, b) => (b.changedAt < a.changedAt ? b : a)).changedAt;
   return {
-    subject: `${vessel.name} — ${w.number} is out of tolerance: ${w.title}`,
+    subject: `${vessel.name} — ${items.length} work orders went out of tolerance`,
     content: {
-      preheader: `${w.number} is past the end of its grace`,
-      title: `${w.number} is out of tolerance`,
+      preheader: `${items.length} work orders past the end of their grace`,
+      title: `${items.length} work orders went out of tolerance on ${vessel.name}`,
       intro:
-        `${w.number} on ${vessel.name} went past the end of its tolerance grace (noted ${formatShipTime(changedAt, vessel.timeZone)} ship’s time). ` +
-        `The chief engineer decides how to catch up: do the work at the first safe opportunity, or request a deferral with its reason for the office to decide.` +
-        (flags.length ? ` This work is ${flags.join(" and ")}.` : ""),
-      sections: [{ heading: "Work order", lines: workOrderLines(vessel.id, [w], links) }],
-      action: { label: "Open the work order", href: links.app(workOrderPath(vessel.id, w.id)) },
-      footer: `You get one message per work order going out of tolerance. ${CAUTION}`,
+        `Since ${formatShipTime(first, vessel.timeZone)} ship’s time these work orders went past the end of their tolerance grace. ${decide}` +
+        (flagged ? ` ${plural(flagged, "of them is", "of them are")} on critical equipment or class-related.` : ""),
+      sections: [{ heading: "Work orders", lines: workOrderLines(vessel.id, items.map((i) => i.workOrder), links) }],
+      action: { label: "Open the Backlog", href: links.app(`${backlogPath(vessel.id)}?state=out-of-tolerance`) },
+      footer,
       unsubscribe: unsubscribe("escalation", links),
     },
   };

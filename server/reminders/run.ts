@@ -140,19 +140,19 @@ async function escalationsOf(tx: Tx, co: ReminderCompany, v: ReminderVessel, mem
   const { send, markOnly } = splitEscalations(rows, now);
   const people = escalationRecipients(members, v.id);
   let queued = 0;
-  for (const change of send) {
-    const row = rows.find((r) => r.id === change.id)!;
+  // One message per vessel and run, keyed by the run's first change (each change is in one run only).
+  if (send.length) {
+    const items = send.map((change) => {
+      const row = rows.find((r) => r.id === change.id)!;
+      return { workOrder: toDigestItem(row.workOrder, v.timeZone), changedAt: row.changedAt };
+    });
     queued += await queue(
       tx,
       co.id,
       people,
       "escalation",
-      (userId) => reminderKeys.escalation(change.id, userId),
-      (links) =>
-        escalationMail(
-          { vessel: v, workOrder: toDigestItem(row.workOrder, v.timeZone), changedAt: row.changedAt },
-          links,
-        ),
+      (userId) => reminderKeys.escalation(send[0]!.id, userId),
+      (links) => escalationMail({ vessel: v, items }, links),
     );
   }
   await markEscalated(

@@ -36,5 +36,6 @@ export function runningRate(
   const spanDays = (last.readAt.getTime() - first.readAt.getTime()) / 86_400_000;
   if (spanDays < MIN_SPAN_DAYS) return planned;
   const rate = (last.totalHours - first.totalHours) / spanDays;
-  return { hoursPerDay: round1(Math.min(24, Math.max(0, rate))), basis: "measured", spanDays: round1(spanDays) };
+  // Kept at full precision: an emergency generator's 1 h a month is 0.033 h/day, not 0.0 (shown rounded).
+  return { hoursPerDay: Math.min(24, Math.max(0, rate)), basis: "measured", spanDays: round1(spanDays) };
 }

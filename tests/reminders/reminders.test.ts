@@ -2,7 +2,7 @@
 // and that a rerun queues nothing again. The scenario is set in March 2031 so that the worker's
 // own runs (on the real clock) find nothing of it due: its readings and state changes lie in
 // the future for them.
-import { and, eq, inArray, like } from "drizzle-orm";
+import { and, eq, inArray, like, or } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as s from "@/db/schema";
 import { runReminders } from "@/server/reminders/run";
@@ -222,6 +222,32 @@ describe("escalation", () => {
       .from(s.mailOutbox)
       .where(like(s.mailOutbox.dedupeKey, `escalation:${sc!.id}:%`));
     expect(rows).toHaveLength(2);
+  });
+
+  it("sends one message per vessel and run for every work order that went out of tolerance in it", async () => {
+    // Issue 14: the first start sent the superintendent twenty messages within a minute, one per work order.
+    const [a, b] = await testDb()
+      .insert(s.workOrderStateChange)
+      .values(
+        ["w1", "w8"].map((k) => ({
+          companyId: f.companyId,
+          workOrderId: wo[`${f.companyId}:${k}`]!.id,
+          fromState: "deferred" as const,
+          toState: "out-of-tolerance" as const,
+          changedAt: h(3, NOW),
+        })),
+      )
+      .returning();
+    const counts = await runReminders(testDb(), h(3.5, NOW), { companyIds: [f.companyId] });
+    // One message each for the chief engineer and the superintendent, not one per work order.
+    expect(counts.escalations).toBe(2);
+    const rows = await testDb()
+      .select()
+      .from(s.mailOutbox)
+      .where(or(like(s.mailOutbox.dedupeKey, `escalation:${a!.id}:%`), like(s.mailOutbox.dedupeKey, `escalation:${b!.id}:%`)));
+    expect(rows.map((r) => r.subject)).toEqual([`${f.vesselA.name} — 2 work orders went out of tolerance`, `${f.vesselA.name} — 2 work orders went out of tolerance`]);
+    const handled = await testDb().select().from(s.workOrderStateChange).where(inArray(s.workOrderStateChange.id, [a!.id, b!.id]));
+    expect(handled.every((c) => c.escalatedAt !== null)).toBe(true);
   });
 });
 

@@ -2,7 +2,7 @@
 
 import type { UseFormRegisterReturn } from "react-hook-form";
 import { ageOf } from "@/app/_components/relative-age";
-import { formatHours, formatShipTime } from "@/server/format/hours";
+import { formatHours, formatRate, formatShipTime } from "@/server/format/hours";
 import { type HourLogCounter, MeterValue } from "@/server/readings/contract";
 import { hoursPerDay, readingProblem, round1 } from "@/server/readings/rules";
 
@@ -131,7 +131,7 @@ export function CounterRow({
       <td className="px-3 py-2 whitespace-nowrap text-ink-600 tabular-nums dark:text-ink-300">
         {counter.rate ? (
           <>
-            {counter.rate.hoursPerDay} h/day
+            {formatRate(counter.rate.hoursPerDay)}
             <span className="block text-xs text-ink-500">
               {counter.rate.basis === "measured" ? "last 30 days" : "planned"}
             </span>

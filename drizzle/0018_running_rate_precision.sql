@@ -1,0 +1,1 @@
+ALTER TABLE "counter" ALTER COLUMN "running_rate" SET DATA TYPE double precision;
