@@ -71,6 +71,7 @@ export const BACKLOG_FIELDS = [
   "plannedDate",
   ...JOB_FIELDS,
   "computedAt",
+  "completedAt",
 ] as const;
 
 export type BacklogItem = WorkOrderView<(typeof BACKLOG_FIELDS)[number]> & {

@@ -43,4 +43,20 @@ describe("the demo chief engineer reads the Backlog", () => {
     expect(await page.getByLabel("Class items only").isChecked()).toBe(true);
     await screenshot(page, "backlog-class-items");
   });
+
+  it("shows a defect not yet planned as such, and done work with what was due and when it was done", async () => {
+    // The demo's steering-gear pump bearing (db/seed/defects.ts) is reported, not planned.
+    await page.goto(page.url().replace(/\/backlog.*$/, "/backlog?defects=true"));
+    const defect = page.locator("tbody tr").filter({ hasText: "Noisy bearing, steering gear pump 1" });
+    await defect.waitFor();
+    expect(await defect.getByText("not planned yet").count()).toBe(1);
+    // Done work: due …, done … — never a projection "≈ at 0 h".
+    await page.goto(page.url().replace(/\/backlog.*$/, "/backlog?state=done"));
+    const rows = page.locator("tbody tr");
+    await rows.first().waitFor();
+    const texts = await rows.allTextContents();
+    expect(texts.every((t) => /done \d{1,2} [A-Z][a-z]{2}/.test(t))).toBe(true);
+    expect(texts.some((t) => t.includes("≈ at 0 h"))).toBe(false);
+    await screenshot(page, "backlog-done");
+  });
 });

@@ -60,8 +60,18 @@ export function backlogColumns(timeZone: string) {
       header: "Due",
       cell: ({ row }) => {
         const w = row.original;
-        if (!w.dueDate) return <span className="text-ink-500">no reading yet</span>;
-        const projected = w.governing === "hours";
+        // Done: what was due, and when it was done (not a projection from a counter long past it).
+        if (w.state === "done") {
+          return (
+            <span className="whitespace-nowrap">
+              {w.dueDate ? `due ${formatShipDate(new Date(w.dueDate), timeZone)}` : w.dueHours !== null ? `due at ${formatHours(w.dueHours)}` : "—"}
+              <span className="block text-xs text-ink-500">{w.completedAt ? `done ${formatShipDate(new Date(w.completedAt), timeZone)}` : "done"}</span>
+            </span>
+          );
+        }
+        // A defect not yet planned has no due day; an hours routine with no reading cannot be projected.
+        if (!w.dueDate) return <span className="text-ink-500">{w.kind === "corrective" ? "not planned yet" : "needs a first reading"}</span>;
+        const projected = w.governing === "hours" && w.dueHours !== null;
         return (
           <span
             className="whitespace-nowrap"
