@@ -4,9 +4,9 @@
 import "server-only";
 import { and, asc, eq, gte, inArray, isNull, min, sql } from "drizzle-orm";
 import { getReadDb } from "@/db/client";
-import { defect, requisition, vesselSnapshot } from "@/db/schema";
+import { counter, defect, requisition, vesselSnapshot, workOrder } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
-import { listFleetPendingDeferrals } from "@/server/deferrals/queries";
+import { listFleetPendingDeferrals, mayDecide } from "@/server/deferrals/queries";
 import type { FleetBoard, FleetBoardPending, FleetBoardVessel } from "./contract";
 import { boardTier, compareForBoard, daysSinceReading, stoppedReporting, trendDays } from "./figures";
 
@@ -105,8 +105,10 @@ export async function loadFleetBoard(access: Access, now = new Date()): Promise<
     fleetOut[i] = (fleetOut[i] ?? 0) + h.outOfTolerance;
     fleetLate[i] = (fleetLate[i] ?? 0) + h.late;
     if (h.onTimeRate !== null) {
-      fleetDone[i]!.completed += h.completed90;
-      fleetDone[i]!.onTime += Math.round(h.onTimeRate * h.completed90);
+      // Judged: the completions and the open work out of tolerance that day (server/fleet/figures.ts).
+      const judged = h.completed90 + h.outOfTolerance;
+      fleetDone[i]!.completed += judged;
+      fleetDone[i]!.onTime += Math.round(h.onTimeRate * judged);
     }
   }
 
@@ -148,18 +150,40 @@ export async function loadFleetBoard(access: Access, now = new Date()): Promise<
   });
   vessels.sort(compareForBoard);
 
+  // The counters the pending requests' work orders run on, with their rates and last readings.
+  const pendingIds = pending.map((p) => p.workOrder.id);
+  const counterRows = pendingIds.length
+    ? await db
+        .select({
+          workOrderId: workOrder.id,
+          name: counter.name,
+          rate: counter.runningRate,
+          basis: counter.rateBasis,
+          lastReadAt: sql<Date | null>`(select max(r.read_at) from reading r where r.company_id = ${counter.companyId} and r.counter_id = ${counter.id})`,
+        })
+        .from(workOrder)
+        .innerJoin(counter, eq(counter.id, workOrder.counterId))
+        .where(and(eq(workOrder.companyId, companyId), inArray(workOrder.id, pendingIds)))
+    : [];
+  const countersOf = new Map(counterRows.map((c) => [c.workOrderId, { ...c, lastReadAt: c.lastReadAt ? new Date(c.lastReadAt) : null }]));
   const pendingDeferrals: FleetBoardPending[] = pending
     .filter((p) => mayOpen(p.vessel.id))
-    .map((p) => ({
-      id: p.id,
-      vessel: p.vessel,
-      workOrder: p.workOrder,
-      proposedDueDay: p.proposedDueDay,
-      proposedDueHours: p.proposedDueHours,
-      needsOffice: p.needsOffice,
-      requestedBy: p.requestedBy,
-      requestedAt: p.requestedAt,
-    }));
+    .map((p) => {
+      const c = countersOf.get(p.workOrder.id);
+      return {
+        id: p.id,
+        vessel: p.vessel,
+        workOrder: p.workOrder,
+        proposedDueDay: p.proposedDueDay,
+        proposedDueHours: p.proposedDueHours,
+        needsOffice: p.needsOffice,
+        requestedBy: p.requestedBy,
+        requestedAt: p.requestedAt,
+        reason: p.reason,
+        counter: c ? { name: c.name, hoursPerDay: c.rate, basis: c.basis, lastReadAt: c.lastReadAt?.toISOString() ?? null } : null,
+        mayDecide: mayDecide(access, p.needsOffice),
+      };
+    });
 
   return {
     generatedAt: now.toISOString(),

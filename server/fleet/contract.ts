@@ -51,6 +51,12 @@ export type FleetBoardPending = {
   needsOffice: boolean;
   requestedBy: string | null;
   requestedAt: string;
+  /** Why the chief engineer asks. */
+  reason: string;
+  /** The counter the work order runs on, with its running rate: is the machine really on stand-by? */
+  counter: { name: string; hoursPerDay: number | null; basis: "measured" | "planned" | null; lastReadAt: string | null } | null;
+  /** This person may decide it here (the office decides critical and class work). */
+  mayDecide: boolean;
 };
 
 export type FleetBoard = {

@@ -65,7 +65,7 @@ describe("isOnTime", () => {
 
 describe("onTimeRate", () => {
   it("is null with no completion", () => {
-    expect(onTimeRate([])).toEqual({ completed: 0, onTime: 0, rate: null });
+    expect(onTimeRate([])).toEqual({ completed: 0, onTime: 0, overdue: 0, rate: null });
   });
 
   it("counts the on-time share, to four decimals", () => {
@@ -76,7 +76,17 @@ describe("onTimeRate", () => {
       { ...none, graceEndsAt, doneAt: at("2026-03-12T08:00:00Z") },
       { ...none, graceEndsAt, doneAt: at("2026-03-20T08:00:00Z") },
     ];
-    expect(onTimeRate(rows)).toEqual({ completed: 3, onTime: 2, rate: 0.6667 });
+    expect(onTimeRate(rows)).toEqual({ completed: 3, onTime: 2, overdue: 0, rate: 0.6667 });
+  });
+
+  it("counts open work out of tolerance against the rate (issue 14: 100 % beside work 166 days overdue)", () => {
+    // Hand-worked: 4 jobs done in the 90 days, all on time, and 1 class item out of tolerance for 166
+    // days, still open → 4 on time of 5 judged = 80 %, not 100 %.
+    const graceEndsAt = at("2026-03-15T23:59:59Z");
+    const done = [1, 2, 3, 4].map(() => ({ ...none, graceEndsAt }));
+    expect(onTimeRate(done, 1)).toEqual({ completed: 4, onTime: 4, overdue: 1, rate: 0.8 });
+    // Nothing done, one open overdue: 0 %, not "no figure".
+    expect(onTimeRate([], 1)).toEqual({ completed: 0, onTime: 0, overdue: 1, rate: 0 });
   });
 });
 

@@ -45,13 +45,19 @@ export function isOnTime(c: CompletionLimits): boolean {
   return checks.every(Boolean);
 }
 
-export type OnTimeFigures = { completed: number; onTime: number; rate: number | null };
+export type OnTimeFigures = { completed: number; onTime: number; overdue: number; rate: number | null };
 
-/** The share of completions done on time; `rate` is null with no completion to judge. */
-export function onTimeRate(completions: readonly CompletionLimits[]): OnTimeFigures {
+/**
+ * The on-time rate (Keelson's definition, issue 14): of the work judged — every completion approved
+ * in the last 90 days, and every open work order out of tolerance now — the share done within its
+ * tolerance. Open work past its grace counts against the rate until it is done, so a vessel cannot
+ * read 100 % beside critical work months out of tolerance. `rate` is null with nothing to judge.
+ */
+export function onTimeRate(completions: readonly CompletionLimits[], openOutOfTolerance = 0): OnTimeFigures {
   const onTime = completions.filter(isOnTime).length;
   const completed = completions.length;
-  return { completed, onTime, rate: completed === 0 ? null : Math.round((onTime / completed) * 10_000) / 10_000 };
+  const judged = completed + openOutOfTolerance;
+  return { completed, onTime, overdue: openOutOfTolerance, rate: judged === 0 ? null : Math.round((onTime / judged) * 10_000) / 10_000 };
 }
 
 /** Whether a vessel has entered no reading for longer than the company allows (or never has). */

@@ -74,7 +74,8 @@ export async function takeVesselSnapshot(
       dueDate: asDate(due),
     }),
   );
-  const rate = onTimeRate(done);
+  // Open work out of tolerance now counts against the rate (server/fleet/figures.ts).
+  const rate = onTimeRate(done, f.out_of_tolerance);
 
   const figures = {
     scheduled: f.scheduled,

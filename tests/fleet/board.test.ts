@@ -278,11 +278,17 @@ describe("the board's figures", () => {
     expect(b.vessels.map((v) => v.id)).toEqual([...b.vessels].sort(compareForBoard).map((v) => v.id));
   });
 
-  it("gives the on-time rate of the last 90 days (2 of 3, worked by hand above)", async () => {
+  it("gives the on-time rate of the last 90 days: 2 on time of the 3 done and the open work out of tolerance", async () => {
     const v = vesselOf(await board(), f.vesselA.id);
     expect(v.completed90).toBe(3);
-    expect(v.onTimeRate).toBe(0.6667);
-    expect(vesselOf(await board(), f.vesselB.id).onTimeRate).toBeNull();
+    // The plan above leaves open work out of tolerance on vessel A; each counts against the rate.
+    expect(v.outOfTolerance).toBeGreaterThan(0);
+    expect(v.onTimeRate).toBe(Math.round((2 / (3 + v.outOfTolerance)) * 10_000) / 10_000);
+    // Vessel B did nothing in the 90 days and its monthly winch brake test, last done 45 days ago, is
+    // out of tolerance: 0 on time of 1 judged, 0 % — not "no figure".
+    const b = vesselOf(await board(), f.vesselB.id);
+    expect(b.outOfTolerance).toBe(1);
+    expect(b.onTimeRate).toBe(0);
   });
 
   it("lists the pending deferral request with its vessel, number, flags and who asked", async () => {
@@ -295,6 +301,10 @@ describe("the board's figures", () => {
       needsOffice: true,
       // The fixture names each user after their role (tests/support/fixtures.ts).
       requestedBy: expect.stringMatching(/^chief-engineer /),
+      // What the superintendent decides on, and may decide right there.
+      reason: "The class surveyor attends at the next port; spares are on board.",
+      counter: { name: expect.any(String), basis: expect.stringMatching(/^(measured|planned)$/) },
+      mayDecide: true,
     });
     expect(vesselOf(b, f.vesselA.id).pendingDeferrals).toBe(1);
     expect(vesselOf(b, f.vesselB.id).pendingDeferrals).toBe(0);

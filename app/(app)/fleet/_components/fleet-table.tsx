@@ -41,7 +41,9 @@ export function FleetTable({ board }: { board: FleetBoard }) {
         </h2>
         <p className="text-xs text-ink-500">
           Figures are open work orders; each one opens that vessel’s Backlog filtered the same way. A vessel with no
-          reading for over {board.missingReadingsHours} h is marked “stopped reporting”.
+          reading for over {board.missingReadingsHours} h is marked “stopped reporting”. On time, 90 days: the jobs done within
+          their tolerance, out of those done in the last 90 days plus the work out of tolerance now — open overdue work counts
+          against it until it is done.
         </p>
       </div>
       <div className="overflow-x-auto">
@@ -179,7 +181,9 @@ function VesselRow({ v, days, now }: { v: FleetBoardVessel; days: string[]; now:
         ) : (
           <>
             <span className="font-semibold">{Math.round(v.onTimeRate * 100)} %</span>
-            <span className="block text-xs text-ink-500">of {v.completed90} done</span>
+            <span className="block text-xs text-ink-500">
+              of {v.completed90} done{v.outOfTolerance ? ` + ${v.outOfTolerance} overdue` : ""}
+            </span>
           </>
         )}
       </td>
