@@ -63,8 +63,9 @@ export function FleetTrendChart({ board }: { board: FleetBoard }) {
           <figcaption className="mt-1 text-xs text-ink-500">
             Work orders out of tolerance and late across the fleet at each day’s snapshot:{" "}
             {(first.outOfTolerance ?? 0) + (first.late ?? 0)} on {first.day},{" "}
-            {(last.outOfTolerance ?? 0) + (last.late ?? 0)} on {last.day}. The dashed line is the share of the fleet’s
-            completions of the 90 days before each day done before their grace ended.
+            {(last.outOfTolerance ?? 0) + (last.late ?? 0)} on {last.day}. The dashed line is the on-time rate: of the
+            fleet’s completions of the 90 days before each day and the work out of tolerance that day, the share done
+            before its grace ended.
           </figcaption>
           <TrendTable days={known} />
         </figure>
