@@ -4,8 +4,9 @@ const nextConfig = {
   // The tests build into their own folder so that they never clobber a running `npm start`.
   distDir: process.env.KEELSON_DIST_DIR ?? ".next",
   reactStrictMode: true,
-  // pg, pg-boss and exceljs (the import's workbooks) are server-side packages that must not be bundled.
-  serverExternalPackages: ["pg", "pg-boss", "exceljs"],
+  // pg, pg-boss, exceljs (the import's workbooks) and pdfkit (the reports; it reads its own files at run
+  // time) are server-side packages that must not be bundled.
+  serverExternalPackages: ["pg", "pg-boss", "exceljs", "pdfkit"],
   typedRoutes: false,
   // The fixed security headers, on every page, route handler and static file. A page's
   // Content-Security-Policy (with its nonce) and HSTS over https are set per request in proxy.ts.

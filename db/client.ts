@@ -1,6 +1,7 @@
 import { drizzle } from "drizzle-orm/node-postgres";
-import { Pool } from "pg";
+import { Pool, type PoolClient } from "pg";
 import { env } from "../server/env";
+import { actorStamp, currentActor } from "./actor";
 import * as schema from "./schema";
 
 // The one arrow from db/ to server/: the connection URL is configuration like any other, checked
@@ -36,7 +37,48 @@ function poolFor(connectionString: string): Pool {
   // it here; unheard, that report ended the worker (tests/faults/database-outage.test.ts). The next
   // query opens a new connection, or fails as any query does while the database is away.
   pool.on("error", (error) => console.error(`[db] an idle connection ended: ${error.message}`));
+  stampActorOnConnect(pool);
   return pool;
+}
+
+type StampedClient = PoolClient & { keelsonActor?: string };
+
+/**
+ * Every connection taken from the pool (by `pool.query`, a transaction, anything) carries the
+ * acting person of the caller's context in its settings, for the audit trigger (db/actor.ts). The
+ * actor is read when `connect` is called, in the caller's own async context, and set only when it
+ * differs from what the connection already carries: one extra round trip when the actor changes.
+ */
+function stampActorOnConnect(pool: Pool): void {
+  const connect = pool.connect.bind(pool) as () => Promise<PoolClient>;
+  const stamped = async (): Promise<PoolClient> => {
+    const actor = currentActor();
+    const stamp = actorStamp(actor);
+    const client = (await connect()) as StampedClient;
+    if ((client.keelsonActor ?? "|") !== stamp) {
+      try {
+        await client.query("select set_config('keelson.actor', $1, false), set_config('keelson.company', $2, false)", [
+          actor?.actor ?? "",
+          actor?.companyId ?? "",
+        ]);
+      } catch (error) {
+        client.release(error as Error);
+        throw error;
+      }
+      client.keelsonActor = stamp;
+    }
+    return client;
+  };
+  // pg-pool's own `query` calls `this.connect(callback)`; keep both forms.
+  pool.connect = ((callback?: (error: Error | undefined, client?: PoolClient, done?: () => void) => void) => {
+    const pending = stamped();
+    if (!callback) return pending;
+    pending.then(
+      (client) => callback(undefined, client, client.release),
+      (error: Error) => callback(error),
+    );
+    return undefined;
+  }) as Pool["connect"];
 }
 
 export function getDb(): Db {

@@ -1,6 +1,7 @@
 // The worker process: pg-boss on the application's PostgreSQL, working every job of the registry
 // (server/jobs/registry.ts). Several workers may run at once; pg-boss hands each job to one of them.
 import PgBoss from "pg-boss";
+import { actingAs, systemActor } from "@/db/actor";
 import { closeDb, getDb } from "@/db/client";
 import { envOrExit } from "@/server/env";
 import { databaseUnavailableProblem } from "@/server/http/problem";
@@ -38,7 +39,7 @@ const db = getDb();
 for (const job of jobRegistry) {
   await boss.work(job.name, job.work ?? {}, async (jobs) => {
     for (const { data } of jobs) {
-      const line = await job.run(data, { db });
+      const line = await actingAs(systemActor(`worker ${job.name}`), () => job.run(data, { db }));
       if (line) console.log(`[worker] ${job.name}: ${line}`);
     }
   });

@@ -1,12 +1,17 @@
 // Every TanStack Query key in one place, so a mutation knows what to invalidate.
 export const queryKeys = {
   hourLog: (vesselId: string) => ["vessel", vesselId, "hour-log"] as const,
+  shipClock: (vesselId: string) => ["vessel", vesselId, "ship-clock"] as const,
   readingHistory: (vesselId: string, counterId: string, days: number) =>
     ["vessel", vesselId, "readings", counterId, days] as const,
   readings: (vesselId: string) => ["vessel", vesselId, "readings"] as const,
   register: (vesselId: string) => ["vessel", vesselId, "register"] as const,
   backlog: (vesselId: string, search: string) => ["vessel", vesselId, "backlog", search] as const,
   workOrder: (vesselId: string, workOrderId: string) => ["vessel", vesselId, "work-order", workOrderId] as const,
+  trail: (vesselId: string, table: string, record: string) => ["vessel", vesselId, "trail", table, record] as const,
+  /** Under the work order's key, so an approval that adds a value refreshes the trends too. */
+  workOrderTrends: (vesselId: string, workOrderId: string, routineId: string) =>
+    ["vessel", vesselId, "work-order", workOrderId, "trends", routineId] as const,
   /** Under the work order's key, so whatever refreshes the work order refreshes its files too. */
   workOrderAttachments: (vesselId: string, workOrderId: string) =>
     ["vessel", vesselId, "work-order", workOrderId, "attachments"] as const,

@@ -13,3 +13,4 @@ export * from "./sign-in";
 export * from "./imports";
 export * from "./parts";
 export * from "./defects";
+export * from "./audit";

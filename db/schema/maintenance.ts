@@ -41,6 +41,8 @@ export const toleranceRule = pgTable(
     graceAfterUnit: toleranceUnit().notNull(),
     capHours: hours(),
     keepsAnniversary: boolean().notNull().default(false),
+    /** Class-survey style: done or open anywhere inside the grace still counts as on time (no `late`). */
+    graceOnTime: boolean().notNull().default(false),
     sortOrder: integer().notNull().default(0),
     createdAt: nowStamp(),
     updatedAt: nowStamp(),

@@ -80,3 +80,30 @@ export const vesselAssignment = pgTable(
   },
   (t) => [unique().on(t.companyId, t.userId, t.vesselId), index().on(t.companyId, t.vesselId)],
 );
+
+/**
+ * The ship's clock changes on passage (issue 14): from `effectiveAt` the ship keeps `timeZone` (an
+ * IANA zone; a whole-hour offset is stored as `Etc/GMT∓h`). Entered by the chief engineer; the
+ * worker moves `vessel.time_zone` to the zone in force (server/vessels/clock.ts), so every reader of
+ * the vessel's zone follows the history.
+ */
+export const vesselClockChange = pgTable(
+  "vessel_clock_change",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    companyId: uuid()
+      .notNull()
+      .references(() => company.id, { onDelete: "cascade" }),
+    vesselId: uuid()
+      .notNull()
+      .references(() => vessel.id, { onDelete: "cascade" }),
+    effectiveAt: timestamp({ withTimezone: true }).notNull(),
+    /** The zone kept before the change, for the history's words. */
+    fromTimeZone: text().notNull(),
+    timeZone: text().notNull(),
+    note: text().notNull().default(""),
+    enteredBy: text().references(() => user.id, { onDelete: "set null" }),
+    enteredAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique().on(t.vesselId, t.effectiveAt), index().on(t.companyId, t.vesselId, t.effectiveAt.desc())],
+);

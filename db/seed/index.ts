@@ -4,9 +4,11 @@ import { TZDate } from "@date-fns/tz";
 import { addDays, format } from "date-fns";
 import { hashPassword } from "better-auth/crypto";
 import { eq } from "drizzle-orm";
+import { actingAs, systemActor } from "../actor";
 import { closeDb, getDb, type Tx } from "../client";
 import * as s from "../schema";
 import { seedHistory } from "./history";
+import { seedLinerWear } from "./liner-wear";
 import { onboardDemoVessels } from "./onboarding";
 import { seedParts } from "./parts";
 import { seedPortStays } from "./port-stays";
@@ -115,6 +117,14 @@ export async function seedDemo(now = new Date()): Promise<"created" | "present">
         now,
       );
     }
+    // Aster Gale's liner wear creeping toward its limit over five overhauls: the measurement trends' demo.
+    await seedLinerWear(
+      tx,
+      companyId,
+      { id: vesselIds.get("AG")!, code: "AG", seed: demoVessels.find((v) => v.code === "AG")!.seed },
+      { doneBy: userIds.get(engineerOf("AG")) ?? null, decidedBy: userIds.get(chiefOf("AG")) ?? null },
+      now,
+    );
   });
   const [co] = await db.select().from(s.company).where(eq(s.company.slug, demoCompany.slug));
   await onboardDemoVessels(co!.id, now);
@@ -202,7 +212,7 @@ async function seedReadings(
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const result = await seedDemo();
+  const result = await actingAs(systemActor("demo set-up"), () => seedDemo());
   console.log(result === "created" ? "[keelson] demo data seeded" : "[keelson] demo data already present");
   await closeDb();
 }

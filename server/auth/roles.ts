@@ -22,7 +22,8 @@ export type Permission =
   | "fleet:read"
   | "parts:edit"
   | "stores:write"
-  | "requisitions:order";
+  | "requisitions:order"
+  | "clock:set";
 
 const GRANTS: Record<Permission, readonly Role[]> = {
   "vessel:read": ROLES,
@@ -42,6 +43,8 @@ const GRANTS: Record<Permission, readonly Role[]> = {
   "stores:write": ["chief-engineer", "engineer"],
   /** The office's side of a requisition: ordering what the vessel sent (drafting and sending is work:plan). */
   "requisitions:order": ["admin", "superintendent"],
+  /** The ship's clock changes on passage: the chief engineer on board (and the administrator). */
+  "clock:set": ["chief-engineer", "admin"],
 };
 
 export function can(role: Role, permission: Permission): boolean {

@@ -12,6 +12,7 @@ import { requestRecompute } from "@/server/jobs/recompute-vessel";
 import { type CompletionStatus, DecisionInput } from "./contract";
 import { lockWorkOrder } from "@/server/work-orders/lock";
 import { putBackPartsUsed } from "@/server/parts/use";
+import { giveReason } from "@/server/audit/reason";
 
 export type Decision = z.output<typeof DecisionInput>;
 
@@ -24,6 +25,7 @@ export async function decideCompletion(
 ): Promise<{ status: CompletionStatus; workOrderState: string }> {
   const companyId = access.company.id;
   return getDb().transaction(async (tx) => {
+    await giveReason(tx, decision.note);
     // Under the worker's lock: a recompute running now must not put a done work order back to late.
     const w = await lockWorkOrder(tx, access, vessel, workOrderId);
     const [c] = await tx

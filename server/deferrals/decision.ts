@@ -12,6 +12,7 @@ import { AppError } from "@/server/http/problem";
 import { endOfShipDate, shipDateFromKey } from "@/server/scheduling/ship-date";
 import { COMPANY_OFFICE_MESSAGE, type DeferralDecision, type DeferralResult, OFFICE_ONLY_MESSAGE } from "./contract";
 import { chiefDecidesDeferrals } from "./queries";
+import { giveReason } from "@/server/audit/reason";
 
 export async function decideDeferral(
   access: Access,
@@ -23,6 +24,7 @@ export async function decideDeferral(
   const companyId = access.company.id;
   const chiefDecides = await chiefDecidesDeferrals(companyId);
   return getDb().transaction(async (tx) => {
+    await giveReason(tx, decision.note);
     // The worker's lock: a recompute running now must not write the old state over the new one.
     await lockVesselWorkOrders(tx, vessel.id);
     const [row] = await tx

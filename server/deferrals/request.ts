@@ -10,6 +10,7 @@ import { AppError, invalidInput } from "@/server/http/problem";
 import type { DeferralRequest, DeferralRequestResult, DeferralResult } from "./contract";
 import { chiefDecidesDeferrals, limitInForce, needsOfficeDecision, routineIntervalHours } from "./queries";
 import { deferralLimitProblems } from "./rules";
+import { giveReason } from "@/server/audit/reason";
 
 const NO_WORK_ORDER = "There is no such work order on this vessel.";
 const NO_DEFERRAL = "There is no such deferral request on this vessel.";
@@ -23,6 +24,7 @@ export async function requestDeferral(
 ): Promise<DeferralRequestResult> {
   const companyId = access.company.id;
   return getDb().transaction(async (tx) => {
+    await giveReason(tx, input.reason);
     // The row lock makes two requests for the same work order wait for each other.
     const [w] = await tx
       .select()

@@ -1,5 +1,6 @@
 import "server-only";
 import type { z } from "zod";
+import { actingAs, personActor } from "@/db/actor";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { TRUSTED_ORIGINS } from "@/server/auth/auth";
 import { resolveAccess } from "@/server/auth/resolve-access";
@@ -71,7 +72,8 @@ export function withAccess<
       const body = options.body ? parseWith(options.body, await readJson(request), "") : undefined;
 
       const ctx = { request, access, vessel, params, body, query } as HandlerContext<V, P, B, Q>;
-      const result = await handler(ctx);
+      // Every connection the handler takes carries the person for the audit trail (db/actor.ts).
+      const result = await actingAs(personActor(access.user.id, access.company.id), () => handler(ctx));
       return result instanceof Response ? result : Response.json(result);
     } catch (error) {
       return problemResponse(error);

@@ -30,6 +30,7 @@ describe("the job registry", () => {
       "fleet-snapshot-daily",
       "mail-send",
       "reminders",
+      "ship-clocks",
     ]);
   });
 

@@ -7,6 +7,7 @@ import { mailSendJob } from "./mail-send";
 import { recomputeFleetJob } from "./recompute-fleet";
 import { recomputeVesselJob } from "./recompute-vessel";
 import { remindersJob } from "./reminders";
+import { shipClocksJob } from "./ship-clocks";
 
 export const jobRegistry: readonly WorkableJob[] = [
   recomputeVesselJob,
@@ -14,4 +15,5 @@ export const jobRegistry: readonly WorkableJob[] = [
   mailSendJob,
   fleetSnapshotJob,
   remindersJob,
+  shipClocksJob,
 ];

@@ -13,6 +13,7 @@ import { AppError, invalidInput } from "@/server/http/problem";
 import type { ReadingCorrection, ReadingCorrectionEntry, ReadingCorrectionResult } from "./contract";
 import { loadNeighbours } from "./neighbours";
 import { readingProblem, removalProblem, round1 } from "./rules";
+import { giveReason } from "@/server/audit/reason";
 
 type Scope = { access: Access; vessel: VesselRef };
 type Locked = {
@@ -26,6 +27,7 @@ export async function correctReading(
   input: ReadingCorrection,
 ): Promise<ReadingCorrectionResult> {
   return getDb().transaction(async (tx) => {
+    await giveReason(tx, input.reason);
     const locked = await lockReading(tx, { access, vessel }, readingId);
     const { reading: old } = locked;
     const remark = input.remark === undefined ? old.remark : input.remark || null;
@@ -73,6 +75,7 @@ export async function removeReading(
   reason: string,
 ): Promise<ReadingCorrectionResult> {
   return getDb().transaction(async (tx) => {
+    await giveReason(tx, reason);
     const { reading: old } = await lockReading(tx, { access, vessel }, readingId);
     const neighbours = (await loadNeighbours(tx, access.company.id, [old.counterId], old.readAt, old.id)).get(
       old.counterId,

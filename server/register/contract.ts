@@ -149,6 +149,8 @@ export type RegisterCounter = {
   id: string;
   name: string;
   plannedHoursPerDay: number;
+  /** The worker's running rate in hours a day (full precision); null before it has one. */
+  runningRate: number | null;
   /** The meter fitted now: 1 for the first, 2 after one replacement, … */
   segment: number;
   /** When the meter fitted now was fitted; null for a counter's first meter. */

@@ -9,6 +9,7 @@ import { type DigestOccasion, type MissingReadingsStep, shipDayLabel } from "./s
 import type { DigestItem, DigestSelection } from "./selection";
 import { amountText } from "@/server/parts/contract";
 import type { PartUnit } from "@/db/schema/parts";
+import type { TrendWarning } from "@/server/measurements/contract";
 
 /** A critical spare under the company's minimum on board. */
 export type LowSpareLine = { number: string; description: string; unit: PartUnit; onBoard: number; minimum: number };
@@ -84,10 +85,12 @@ export function dueDigestMail(
     totals: { late: number; outOfTolerance: number };
     /** Critical spares under their minimum on board. */
     lowSpares?: LowSpareLine[];
+    /** Measurements whose straight line reaches its limit before the job falls due (server/measurements). */
+    trendWarnings?: TrendWarning[];
   },
   links: MailLinks,
 ): Built {
-  const { vessel, occasion, selection, totals, lowSpares = [] } = input;
+  const { vessel, occasion, selection, totals, lowSpares = [], trendWarnings = [] } = input;
   const day = shipDayLabel(occasion.shipDay);
   const since = `${formatShipTime(occasion.previousCutOff, vessel.timeZone)} ship’s time`;
   const standing =
@@ -112,6 +115,16 @@ export function dueDigestMail(
         text: `${p.number} ${p.description}`,
         href: links.app(`/vessels/${vessel.id}/stores`),
         note: `${amountText(p.onBoard, p.unit)} on board, minimum ${amountText(p.minimum, p.unit)}`,
+      })),
+    });
+  }
+  if (trendWarnings.length) {
+    sections.push({
+      heading: "Measurements reaching their limit before the job falls due",
+      lines: trendWarnings.slice(0, SECTION_LIMIT).map((t) => ({
+        text: `${t.number} ${t.title}`,
+        href: links.app(workOrderPath(vessel.id, t.workOrderId)),
+        note: t.sentence,
       })),
     });
   }

@@ -31,6 +31,7 @@ import {
   type ReminderVessel,
 } from "./queries";
 import { lowCriticalSpares } from "@/server/parts/low-stock";
+import { loadTrendWarnings } from "@/server/measurements/queries";
 import { dueDigest, dueFleetSummary, hoursSince, missingReadingsSteps, reminderKeys } from "./schedule";
 import {
   digestRecipients,
@@ -104,13 +105,14 @@ async function dueDigestsOf(tx: Tx, co: ReminderCompany, v: ReminderVessel, memb
   if (isEmptyDigest(selection)) return 0;
   const totals = await loadStandingTotals(tx, co.id, v.id);
   const lowSpares = await lowCriticalSpares(tx, co.id, v.id);
+  const trendWarnings = await loadTrendWarnings(tx, co.id, v);
   return queue(
     tx,
     co.id,
     people,
     "due-digest",
     (userId) => reminderKeys.dueDigest(v.id, occasion.shipDay, userId),
-    (links) => dueDigestMail({ vessel: v, occasion, selection, totals, lowSpares }, links),
+    (links) => dueDigestMail({ vessel: v, occasion, selection, totals, lowSpares, trendWarnings }, links),
   );
 }
 

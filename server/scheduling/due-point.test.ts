@@ -28,6 +28,35 @@ const hoursCase = {
   timeZone: "UTC",
 };
 
+describe("computeDuePoint: a due point the counter has passed stays on the day it was passed", () => {
+  // Hand-worked (issue 14's report): due at 14,000 h; readings 13,990 h on 24 Aug 09:00 and
+  // 14,014 h on 25 Aug 09:00 put the passing at 19:00 on 24 Aug; one more reading (14,040 h on
+  // 26 Aug) must not move it to 25 Aug, as the projection back at the running rate did.
+  const passedAt = (hours: number) => (hours === 14_000 ? new Date("2026-08-24T19:00:00Z") : null);
+  const after = (totalHours: number, readAt: string) => ({
+    ...hoursCase,
+    counter: { totalHours, readAt: new Date(readAt), hoursPerDay: 26, passedAt },
+    now: new Date(readAt),
+  });
+
+  it("is dated by the readings, with each new reading", () => {
+    for (const [total, readAt] of [
+      [14_014, "2026-08-25T09:00:00Z"],
+      [14_040, "2026-08-26T09:00:00Z"],
+    ] as const) {
+      const due = computeDuePoint(after(total, readAt));
+      expect(due.dueDate).toEqual(new Date("2026-08-24T19:00:00Z"));
+      expect(due.remainingHours).toBe(14_000 - total);
+    }
+  });
+
+  it("without the readings' answer it is projected back at the rate, and moves (the old behaviour)", () => {
+    const a = computeDuePoint({ ...after(14_014, "2026-08-25T09:00:00Z"), counter: { totalHours: 14_014, readAt: new Date("2026-08-25T09:00:00Z"), hoursPerDay: 24 } });
+    const b = computeDuePoint({ ...after(14_040, "2026-08-26T09:00:00Z"), counter: { totalHours: 14_040, readAt: new Date("2026-08-26T09:00:00Z"), hoursPerDay: 30 } });
+    expect(a.dueDate).not.toEqual(b.dueDate);
+  });
+});
+
 describe("computeDuePoint: running hours", () => {
   it("due 14,000 h, 800 h left, projected 40 days on at 20 h/day", () => {
     expect(computeDuePoint(hoursCase)).toEqual({

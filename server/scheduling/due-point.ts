@@ -30,7 +30,13 @@ export type DuePointInput = {
    */
   anchorDate?: Date | null;
   /** The counter's latest reading and running rate (running-rate.ts). */
-  counter?: { totalHours: number; readAt: Date; hoursPerDay: number } | null;
+  counter?: {
+    totalHours: number;
+    readAt: Date;
+    hoursPerDay: number;
+    /** When the counter passed hours it has passed, from its readings: a passed due point stays put. */
+    passedAt?: (hours: number) => Date | null;
+  } | null;
   now: Date;
   timeZone: string;
 };
@@ -78,7 +84,9 @@ export function computeDuePoint(input: DuePointInput): DuePoint {
     if (counter) {
       const remaining = dueHours - counter.totalHours;
       remainingHours = round1(remaining);
-      if (counter.hoursPerDay > 0)
+      const passed = remaining <= 0 ? (counter.passedAt?.(dueHours) ?? null) : null;
+      if (passed) projectedDate = passed;
+      else if (counter.hoursPerDay > 0)
         projectedDate = new Date(counter.readAt.getTime() + (remaining / counter.hoursPerDay) * DAY_MS);
     }
   }

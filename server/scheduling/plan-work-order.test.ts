@@ -93,8 +93,21 @@ describe("planWorkOrder", () => {
     });
     expect(plan.calendarWindow!.opensAt.toISOString().slice(0, 10)).toBe("2026-01-16");
     expect(plan.calendarWindow!.graceEndsAt.toISOString().slice(0, 10)).toBe("2026-07-15");
-    // 15 June is after the anniversary, inside the grace: late.
-    expect(plan.state).toBe("late");
+    // 15 June is after the anniversary, inside the grace: on time for class (HSSC, IMO Res.
+    // A.1104(29) 4.2.1, within 3 months after the anniversary), so the window is still open.
+    expect(plan.state).toBe("window-open");
+    // Under a company rule that counts the grace late, the same day is late.
+    const plain = rules.map((r) => ({ ...r, graceOnTime: false }));
+    expect(
+      planWorkOrder({
+        routine: routine({ calendarRule: "FREQ=YEARLY", anchored: true, anchorDate: "2026-04-15" }),
+        rules: plain,
+        last: null,
+        counter: null,
+        now,
+        timeZone: "UTC",
+      }).state,
+    ).toBe("late");
   });
 });
 
@@ -142,8 +155,9 @@ describe("deferred work orders: the tolerance rules apply to the new limit", () 
     deferral: { dueDate: new Date("2026-09-30T12:00:00Z"), dueHours: null },
   };
 
-  it("a calendar deferral to 30 Sep: deferred now, late in October, out of tolerance after 30 Dec", () => {
-    expect(planWorkOrder({ ...annual, deferral: null, now }).state).toBe("late");
+  it("a calendar deferral to 30 Sep: deferred now, on time in October (class grace), out of tolerance after 30 Dec", () => {
+    // The annual preset counts its grace on time (HSSC, IMO Res. A.1104(29) 4.2.1).
+    expect(planWorkOrder({ ...annual, deferral: null, now }).state).toBe("window-open");
     const plan = planWorkOrder({ ...annual, now });
     expect(plan.state).toBe("deferred");
     // 3 months before 30 Sep is 30 Jun, so the window opens on 1 Jul; the grace ends 30 Dec.
@@ -152,7 +166,9 @@ describe("deferred work orders: the tolerance rules apply to the new limit", () 
     // 15 Jun → 30 Sep: 15 + 31 + 31 + 30 = 107 days.
     expect(plan.remainingDays).toBe(107);
     expect(plan.calendarDue?.toISOString().slice(0, 10)).toBe("2026-06-01"); // the computed due stays
-    expect(planWorkOrder({ ...annual, now: new Date("2026-10-05T04:00:00Z") }).state).toBe("late");
+    expect(planWorkOrder({ ...annual, now: new Date("2026-10-05T04:00:00Z") }).state).toBe("window-open");
+    const plain = { ...annual, rules: rules.map((r) => ({ ...r, graceOnTime: false })) };
+    expect(planWorkOrder({ ...plain, now: new Date("2026-10-05T04:00:00Z") }).state).toBe("late");
     expect(planWorkOrder({ ...annual, now: new Date("2026-12-31T04:00:00Z") }).state).toBe("out-of-tolerance");
   });
 

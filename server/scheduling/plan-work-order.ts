@@ -55,7 +55,12 @@ export type PlanInput = {
   routine: PlannedRoutine;
   rules: readonly ToleranceRule[];
   last: LastCompletion | null;
-  counter: { totalHours: number; readAt: Date; hoursPerDay: number } | null;
+  counter: {
+    totalHours: number;
+    readAt: Date;
+    hoursPerDay: number;
+    passedAt?: (hours: number) => Date | null;
+  } | null;
   now: Date;
   timeZone: string;
   /** An approved deferral in force: its limits replace the routine's. */
@@ -66,6 +71,9 @@ type CounterNow = NonNullable<PlanInput["counter"]>;
 
 /** When the counter reaches `hours` at its running rate; null at a rate of 0 or with no counter. */
 export function projectHours(hours: number, counter: CounterNow | null): Date | null {
+  // Hours already passed are dated by the readings, so the date stays as new readings arrive.
+  const passed = counter && hours <= counter.totalHours ? (counter.passedAt?.(hours) ?? null) : null;
+  if (passed) return passed;
   if (!counter || !(counter.hoursPerDay > 0)) return null;
   return new Date(counter.readAt.getTime() + ((hours - counter.totalHours) / counter.hoursPerDay) * 86_400_000);
 }

@@ -90,6 +90,8 @@ export const TOLERANCE_PRESETS: readonly TolerancePreset[] = [
     windowBefore: { value: 3, unit: "months" },
     graceAfter: { value: 3, unit: "months" },
     keepsAnniversary: true,
+    // Class counts the whole window on time: a survey item done after the anniversary but inside it is not late.
+    graceOnTime: true,
     source:
       "HSSC, IMO Resolution A.1104(29) 1.3 and 4.2.1: annual surveys within 3 months before or after each anniversary date (seen); IACS booklet example 16 Jan – 15 Jul (seen)",
   },
@@ -102,6 +104,8 @@ export const TOLERANCE_PRESETS: readonly TolerancePreset[] = [
     windowBefore: { value: 3, unit: "months" },
     graceAfter: { value: 3, unit: "months" },
     keepsAnniversary: true,
+    // Class counts the whole window on time: a survey item done after the anniversary but inside it is not late.
+    graceOnTime: true,
     source:
       "HSSC, IMO Resolution A.1104(29): intermediate survey within 3 months either side of the 2nd or 3rd anniversary (seen); boilers: up to 3 months' extension of the 36-month interval in one society's rules (seen)",
   },

@@ -10,7 +10,13 @@ import { DEFAULT_LOOKBACK_DAYS, type RateReading, runningRate } from "./running-
 import { lockVesselWorkOrders } from "@/server/work-orders/lock";
 import { writeWorkOrders, type WorkOrderRunSummary } from "./work-order-writer";
 
-export type CounterNow = { totalHours: number; readAt: Date; hoursPerDay: number };
+export type CounterNow = {
+  totalHours: number;
+  readAt: Date;
+  hoursPerDay: number;
+  /** When the counter passed a value it has passed, from its readings (passed-at.ts); null if unknown. */
+  passedAt?: (hours: number) => Date | null;
+};
 
 /** Recomputes one vessel. Rerunning it changes nothing; two workers at once queue on a lock. */
 export async function recomputeVessel(

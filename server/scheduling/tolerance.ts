@@ -36,11 +36,24 @@ export type ToleranceRule = {
   capHours?: number;
   /** Anchored routines completed inside the window keep their anniversary (due-point.ts). */
   keepsAnniversary: boolean;
+  /**
+   * Class-survey style: the whole range from the window's opening to the grace's end counts as on
+   * time — a survey item done two months after its anniversary is not late (HSSC, IMO Res.
+   * A.1104(29) 4.2.1: annual surveys within 3 months before or after each anniversary date) — and
+   * the day after it is out of tolerance. Without it the grace is `late`.
+   */
+  graceOnTime?: boolean;
 };
 
 export type ToleranceMatch = { rule: ToleranceRule; basis: "override" | "matched" | "fallback" };
 
-export type CalendarWindow = { opensAt: Date; dueAt: Date; graceEndsAt: Date };
+export type CalendarWindow = {
+  opensAt: Date;
+  dueAt: Date;
+  graceEndsAt: Date;
+  /** The rule's graceOnTime: the grace is still `window-open`, never `late`. */
+  graceOnTime?: boolean;
+};
 export type HoursWindow = { opensAtHours: number; dueHours: number; graceEndsHours: number };
 
 /** The routine's limits as matching needs them. */
@@ -206,7 +219,7 @@ export function calendarWindow(
   const lastDayBefore = spanEnd(dueDay, rule.windowBefore, -1, rule, intervalDays);
   const opensAt = lastDayBefore < dueDay ? startOfShipDate(addShipDays(lastDayBefore, 1), timeZone) : dueAt;
   const graceEndsAt = endOfShipDate(spanEnd(dueDay, rule.graceAfter, 1, rule, intervalDays), timeZone);
-  return { opensAt, dueAt, graceEndsAt };
+  return { opensAt, dueAt, graceEndsAt, ...(rule.graceOnTime ? { graceOnTime: true } : {}) };
 }
 
 function spanHours(span: ToleranceSpan, intervalHours: number, rule: ToleranceRule): number {

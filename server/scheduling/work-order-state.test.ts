@@ -14,6 +14,8 @@ const rule = (id: string): ToleranceRule => {
 };
 // IACS booklet (SOURCES.md, seen): anniversary 15 April → window 16 January to 15 July, overdue after.
 const survey = calendarWindow(at(2026, 4, 15, 12), rule("preset-annual"), "UTC");
+/** The same window under a company rule that keeps `late` for its grace. */
+const plainSurvey = calendarWindow(at(2026, 4, 15, 12), { ...rule("preset-annual"), graceOnTime: false }, "UTC");
 // Worked by hand (tolerance.test.ts): due 14,000 h, window from 13,800 h, grace to 14,100 h.
 const engine = hoursWindow(14_000, 2_000, rule("preset-running-hours"));
 
@@ -22,11 +24,23 @@ describe("workOrderState on a calendar window", () => {
     [at(2026, 1, 15, 23, 59, 59, 999), "scheduled"],
     [at(2026, 1, 16), "window-open"],
     [at(2026, 4, 15, 23, 59, 59, 999), "window-open"],
-    [at(2026, 4, 16), "late"],
-    [at(2026, 7, 15, 23, 59, 59, 999), "late"],
+    // HSSC, IMO Res. A.1104(29) 4.2.1: within 3 months before or after the anniversary is on time,
+    // so the class preset has no `late`: window open to the end of 15 July, out of tolerance after.
+    [at(2026, 4, 16), "window-open"],
+    [at(2026, 6, 1), "window-open"],
+    [at(2026, 7, 15, 23, 59, 59, 999), "window-open"],
     [at(2026, 7, 16), "out-of-tolerance"],
   ] as const)("IACS 15 April: at %s it is %s", (now, state) => {
     expect(workOrderState({ now, currentHours: null, calendar: survey })).toBe(state);
+  });
+
+  it.each([
+    [at(2026, 4, 15, 23, 59, 59, 999), "window-open"],
+    [at(2026, 4, 16), "late"],
+    [at(2026, 7, 15, 23, 59, 59, 999), "late"],
+    [at(2026, 7, 16), "out-of-tolerance"],
+  ] as const)("the same window under a rule whose grace is not on time: at %s it is %s", (now, state) => {
+    expect(workOrderState({ now, currentHours: null, calendar: plainSurvey })).toBe(state);
   });
 });
 
@@ -54,7 +68,9 @@ describe("whichever first: the limit further along decides", () => {
     );
   });
   it("calendar late, hours not yet in the window → late", () => {
-    expect(workOrderState({ now: at(2026, 5, 1), currentHours: 13_000, hours: engine, calendar: survey })).toBe("late");
+    expect(workOrderState({ now: at(2026, 5, 1), currentHours: 13_000, hours: engine, calendar: plainSurvey })).toBe(
+      "late",
+    );
   });
   it("hours past the grace while the calendar window is open → out-of-tolerance", () => {
     expect(workOrderState({ now: at(2026, 2, 1), currentHours: 14_200, hours: engine, calendar: survey })).toBe(
@@ -65,14 +81,20 @@ describe("whichever first: the limit further along decides", () => {
 
 describe("deferral", () => {
   it("shows deferred until the deferred-to due point, then late in its grace, out-of-tolerance past it", () => {
-    // The deferred-to due point is 15 April 2026 with 3 months either side (preset-annual).
-    const state = (now: Date) => workOrderState({ now, currentHours: null, calendar: survey, deferred: true });
+    // The deferred-to due point is 15 April 2026 with 3 months either side, grace not on time.
+    const state = (now: Date) => workOrderState({ now, currentHours: null, calendar: plainSurvey, deferred: true });
     expect(state(at(2026, 1, 10))).toBe("deferred"); // before the window
     expect(state(at(2026, 4, 1))).toBe("deferred"); // inside the window
     expect(state(at(2026, 5, 1))).toBe("late"); // past 15 April, inside the grace
-    expect(workOrderState({ now: at(2026, 8, 1), currentHours: null, calendar: survey, deferred: true })).toBe(
-      "out-of-tolerance",
-    );
+    expect(state(at(2026, 8, 1))).toBe("out-of-tolerance");
+  });
+
+  it("under a class rule, the deferral shows until its new due point, then the grace is on time", () => {
+    // HSSC, IMO Res. A.1104(29) 4.2.1: the 3 months after the anniversary still count as on time.
+    const state = (now: Date) => workOrderState({ now, currentHours: null, calendar: survey, deferred: true });
+    expect(state(at(2026, 4, 1))).toBe("deferred");
+    expect(state(at(2026, 5, 1))).toBe("window-open");
+    expect(state(at(2026, 7, 16))).toBe("out-of-tolerance");
   });
 });
 
@@ -103,7 +125,7 @@ describe("property: without a completion, the state never moves backwards", () =
     max: new Date("2030-01-01T00:00:00Z"),
     noInvalidDate: true,
   });
-  const base = rule("preset-annual");
+  const base: ToleranceRule = { ...rule("preset-annual"), graceOnTime: false };
 
   it("scheduled < window-open < late < out-of-tolerance as time passes and hours run", () => {
     fc.assert(

@@ -14,6 +14,12 @@ export function toleranceRank(state: ToleranceState): number {
 }
 
 export function calendarState(now: Date, window: CalendarWindow): ToleranceState {
+  const state = calendarLimitState(now, window);
+  return state === "late" && window.graceOnTime ? "window-open" : state;
+}
+
+/** The calendar state before a class-style rule counts its grace on time: past due is `late`. */
+function calendarLimitState(now: Date, window: CalendarWindow): ToleranceState {
   if (now < window.opensAt) return "scheduled";
   if (now <= window.dueAt) return "window-open";
   if (now <= window.graceEndsAt) return "late";
@@ -48,11 +54,21 @@ export type WorkOrderStateInput = {
  */
 export function workOrderState(input: WorkOrderStateInput): ToleranceState | "deferred" {
   const states: ToleranceState[] = [];
-  if (input.calendar) states.push(calendarState(input.now, input.calendar));
-  if (input.hours && input.currentHours !== null) states.push(hoursState(input.currentHours, input.hours));
-  const state = states.reduce<ToleranceState>((a, b) => (toleranceRank(b) > toleranceRank(a) ? b : a), "scheduled");
-  if (input.deferred && toleranceRank(state) <= toleranceRank("window-open")) return "deferred";
-  return state;
+  // Past due, before any grace counts as on time: a deferral shows only until its new due point.
+  const pastDue: ToleranceState[] = [];
+  if (input.calendar) {
+    states.push(calendarState(input.now, input.calendar));
+    pastDue.push(calendarLimitState(input.now, input.calendar));
+  }
+  if (input.hours && input.currentHours !== null) {
+    const state = hoursState(input.currentHours, input.hours);
+    states.push(state);
+    pastDue.push(state);
+  }
+  const furthest = (list: ToleranceState[]) =>
+    list.reduce<ToleranceState>((a, b) => (toleranceRank(b) > toleranceRank(a) ? b : a), "scheduled");
+  if (input.deferred && toleranceRank(furthest(pastDue)) <= toleranceRank("window-open")) return "deferred";
+  return furthest(states);
 }
 
 /** Escalation fires once, on the change into out-of-tolerance (a new work order counts as a change). */

@@ -2,7 +2,7 @@
 // transaction). A routine's open work order is its next occurrence; the unique index on
 // (routine, occurrence) makes a second writer's insert a no-op, never a duplicate.
 import "server-only";
-import { and, desc, eq, inArray, isNotNull, isNull, ne } from "drizzle-orm";
+import { and, desc, eq, inArray, isNotNull, isNull, ne, sql } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { completion, component, portStay, routine, toleranceRule, vessel, workOrder } from "@/db/schema";
 import { resolveCounters } from "@/server/register/tree";
@@ -16,6 +16,7 @@ import {
   type WorkOrderPlan,
 } from "./plan-work-order";
 import { planEventWorkOrder } from "./plan-event-work-order";
+import { passedAt, passedKey } from "./passed-at";
 import { presetToleranceRules } from "./presets";
 import type { CounterNow } from "./recompute";
 import type { ToleranceRule } from "./tolerance";
@@ -96,7 +97,16 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
         .where(and(eq(portStay.companyId, companyId), eq(portStay.vesselId, vesselId)))
     : [];
 
-  const planned: PlannedWorkOrder[] = [];
+  type Entry = {
+    r: (typeof routines)[number];
+    counterId: string | null;
+    counterNow: CounterNow | null;
+    done: (typeof lastDone)[number] | undefined;
+    existing: WorkOrderRow | null;
+    plan: WorkOrderPlan;
+    replan: ((counter: CounterNow | null) => WorkOrderPlan) | null;
+  };
+  const entries: Entry[] = [];
   for (const r of routines) {
     const eff = effective.get(r.componentId);
     const counterId = eff && eff.kind !== "none" ? eff.counterId : null;
@@ -111,6 +121,7 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
       : null;
     const existing = openByRoutine.get(r.id) ?? null;
     let plan: WorkOrderPlan;
+    let replan: Entry["replan"] = null;
     if (r.portEvent && r.portEventHours) {
       const tied = planEventWorkOrder({
         tie: { event: r.portEvent, withinHours: r.portEventHours },
@@ -124,7 +135,7 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
       if (!tied) continue;
       plan = tied;
     } else try {
-      plan = planWorkOrder({
+      const planWith = (counter: CounterNow | null) => planWorkOrder({
         routine: {
           intervalHours: r.intervalHours,
           calendarRule: r.calendarRule,
@@ -140,15 +151,31 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
         },
         rules,
         last,
-        counter: counterNow,
+        counter,
         now,
         timeZone: ctx.vessel.timeZone,
         deferral: existing ? deferralOf(existing) : null,
       });
+      plan = planWith(counterNow);
+      replan = planWith;
     } catch (error) {
       summary.skipped.push({ routineId: r.id, reason: error instanceof Error ? error.message : String(error) });
       continue;
     }
+    entries.push({ r, counterId, counterNow, done, existing, plan, replan });
+  }
+
+  // Hours limits the counters have already passed are dated by the readings around them, not
+  // projected back at today's rate: a passed due date stays put as new readings arrive.
+  const passed = await passedLookup(tx, companyId, entries.flatMap((e) => passedHours(e.plan, e.counterId, e.counterNow)));
+  const planned: PlannedWorkOrder[] = [];
+  for (const e of entries) {
+    const { r, counterId, done, existing } = e;
+    const needs = passedHours(e.plan, counterId, e.counterNow);
+    const plan =
+      needs.length > 0 && e.replan && e.counterNow && counterId
+        ? e.replan({ ...e.counterNow, passedAt: (hours) => passed.get(passedKey(counterId, hours)) ?? null })
+        : e.plan;
     const fields = routineFields(r, counterId, plan);
     planned.push(
       existing
@@ -205,4 +232,57 @@ function openCorrective(tx: Tx, companyId: string, vesselId: string) {
         isNotNull(workOrder.dueDate),
       ),
     );
+}
+
+type PassedQuestion = { counterId: string; hours: number };
+
+/** The hours of a plan's limits (window, due, grace) its counter has already passed. */
+function passedHours(plan: WorkOrderPlan, counterId: string | null, counter: CounterNow | null): PassedQuestion[] {
+  const w = plan.hoursWindow;
+  if (!w || !counterId || !counter) return [];
+  return [w.opensAtHours, w.dueHours, w.graceEndsHours]
+    .filter((hours) => hours <= counter.totalHours)
+    .map((hours) => ({ counterId, hours }));
+}
+
+/**
+ * When each counter passed each value, in one statement: the last reading below the value and the
+ * first reading at or above it after that one (totals never fall, so both are found from the
+ * newest end of the counter's index, where a recently passed limit lies).
+ */
+async function passedLookup(tx: Tx, companyId: string, questions: PassedQuestion[]): Promise<Map<string, Date>> {
+  const unique = [...new Map(questions.map((q) => [passedKey(q.counterId, q.hours), q])).values()];
+  const result = new Map<string, Date>();
+  if (unique.length === 0) return result;
+  const rows = await tx.execute<{
+    counter_id: string;
+    hours: string;
+    below_at: Date | null;
+    below_hours: string | null;
+    reached_at: Date | null;
+    reached_hours: string | null;
+  }>(sql`
+    select q.counter_id, q.hours, b.read_at as below_at, b.total_hours as below_hours,
+           a.read_at as reached_at, a.total_hours as reached_hours
+      from unnest(${`{${unique.map((q) => q.counterId).join(",")}}`}::uuid[],
+                  ${`{${unique.map((q) => q.hours).join(",")}}`}::numeric[]) as q(counter_id, hours)
+      left join lateral (
+        select r.read_at, r.total_hours from reading r
+         where r.company_id = ${companyId} and r.counter_id = q.counter_id and r.total_hours < q.hours
+         order by r.read_at desc limit 1) b on true
+      left join lateral (
+        select r.read_at, r.total_hours from reading r
+         where r.company_id = ${companyId} and r.counter_id = q.counter_id and r.total_hours >= q.hours
+           and (b.read_at is null or r.read_at > b.read_at)
+         order by r.read_at asc limit 1) a on true`);
+  for (const row of rows.rows) {
+    const hours = Number(row.hours);
+    const at = passedAt(
+      hours,
+      row.below_at ? { at: new Date(row.below_at), totalHours: Number(row.below_hours) } : null,
+      row.reached_at ? { at: new Date(row.reached_at), totalHours: Number(row.reached_hours) } : null,
+    );
+    if (at) result.set(passedKey(row.counter_id, hours), at);
+  }
+  return result;
 }

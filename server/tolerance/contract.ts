@@ -59,6 +59,8 @@ const ruleFields = {
     .nullable()
     .optional(),
   keepsAnniversary: z.boolean({ message: "Keeps the anniversary is true or false." }),
+  /** Left out on a new rule: false. */
+  graceOnTime: z.boolean({ message: "On time through the grace is true or false." }).optional(),
 };
 
 type RuleFields = z.output<z.ZodObject<typeof ruleFields>>;
@@ -106,6 +108,7 @@ export type AdminToleranceRule = {
   graceAfter: { value: number; unit: ToleranceUnit };
   capHours: number | null;
   keepsAnniversary: boolean;
+  graceOnTime: boolean;
   /** Routines that chose this rule over the matched one. */
   overridingRoutines: number;
 };

@@ -29,6 +29,7 @@ function toAdminRule(r: ToleranceRuleRow, overridingRoutines: number): AdminTole
     graceAfter: { value: r.graceAfterValue, unit: r.graceAfterUnit },
     capHours: r.capHours,
     keepsAnniversary: r.keepsAnniversary,
+    graceOnTime: r.graceOnTime,
     overridingRoutines,
   };
 }

@@ -21,6 +21,7 @@ export function toleranceRuleColumns(rule: RuleFields) {
     // A cap only means something on an hours rule; the contract refuses one elsewhere.
     capHours: rule.capHours ?? null,
     keepsAnniversary: rule.keepsAnniversary,
+    graceOnTime: rule.graceOnTime ?? false,
   };
 }
 
@@ -35,6 +36,7 @@ export function toleranceRuleFromRow(r: ToleranceRuleRow): ToleranceRule {
     graceAfter: { value: r.graceAfterValue, unit: r.graceAfterUnit },
     ...(r.capHours !== null ? { capHours: r.capHours } : {}),
     keepsAnniversary: r.keepsAnniversary,
+    ...(r.graceOnTime ? { graceOnTime: true } : {}),
   };
 }
 

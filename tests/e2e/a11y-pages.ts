@@ -49,6 +49,7 @@ export const PAGES: Record<string, PageEntry> = {
   "/vessels/[vesselId]/routines": section("routines"),
   "/vessels/[vesselId]/register": section("register"),
   "/vessels/[vesselId]/register/import": section("register/import"),
+  "/vessels/[vesselId]/class-items": section("class-items", "tbody tr"),
   "/vessels/[vesselId]/port-stays": section("port-stays"),
   "/vessels/[vesselId]/stores": section("stores", "tbody tr"),
   "/parts": at(CHIEF, "/parts"),
@@ -60,12 +61,14 @@ export const PAGES: Record<string, PageEntry> = {
   "/vessels/[vesselId]/work-orders/[workOrderId]": onVessel((ids) => `/work-orders/${ids.workOrderId}`),
   "/fleet": office("/fleet"),
   "/fleet/overdue": office("/fleet/overdue"),
+  "/fleet/class-items": office("/fleet/class-items"),
   "/admin": admin("/admin"),
   "/admin/people": admin("/admin/people"),
   "/admin/vessels": admin("/admin/vessels"),
   "/admin/tolerance-rules": admin("/admin/tolerance-rules"),
   "/admin/settings": admin("/admin/settings"),
   "/admin/mail": admin("/admin/mail"),
+  "/admin/audit": admin("/admin/audit"),
 };
 
 /** Every page route of app/, from its `page.tsx` files: `(group)` folders are not in the URL. */

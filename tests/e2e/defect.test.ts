@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "@/db/seed/scenario";
 import { openPage, screenshot, signInThroughForm } from "../support/browser";
 import { gradientPng } from "../support/png";
+import { formatDayKey } from "@/server/format/dates";
 
 let browser: Browser;
 let page: Page;
@@ -77,7 +78,8 @@ describe("a defect found on board", () => {
     await panel.getByRole("button", { name: "Add a part" }).click();
     await panel.getByLabel("Part 1", { exact: true }).selectOption({ label: "BW-1030 — Mechanical seal, sea water pump" });
     await panel.getByRole("button", { name: "Plan the repair" }).click();
-    await page.getByRole("status").filter({ hasText: `${number} planned for ${target}.` }).waitFor({ timeout: 15_000 });
+    // The message says the day in Keelson's one date style ("8 Dec 2026").
+    await page.getByRole("status").filter({ hasText: `${number} planned for ${formatDayKey(target)}.` }).waitFor({ timeout: 15_000 });
     expect(await row.getByText("Planned", { exact: true }).count()).toBe(1);
     await screenshot(page, "defects-planned");
   });

@@ -34,6 +34,8 @@ const cells = async (row: Locator) => (await row.locator("td:not(:last-child)").
 const panel = (name: string | RegExp): Locator => page.getByRole("dialog", { name });
 const preview = (form: Locator) =>
   form.locator("[aria-live=polite]").filter({ hasText: "In plain words" }).locator("p").nth(1);
+const states = (form: Locator) =>
+  form.locator("[aria-live=polite]").filter({ hasText: "In plain words" }).locator("p").nth(2);
 
 beforeAll(async () => {
   ({ browser, page } = await openPage());
@@ -52,9 +54,10 @@ describe("the demo administrator keeps the tolerance rules", () => {
     await page.getByRole("heading", { name: "Calendar intervals" }).waitFor();
 
     // Each preset as a person reads it: what it matches, the window, the grace, the cap.
-    // The annual survey preset: HSSC's 3 months either side of the anniversary (presets.ts).
-    expect(await cells(rowOf(ANNUAL))).toEqual(["calendar intervals of 301–500 days", "3 months", "3 months", "yes"]);
-    expect(await cells(rowOf(RENEWAL))).toEqual(["calendar intervals of 1,201–36,525 days", "3 months", "none", "yes"]);
+    // The annual survey preset: HSSC's 3 months either side of the anniversary, all of it on time
+    // (IMO Res. A.1104(29) 4.2.1; presets.ts).
+    expect(await cells(rowOf(ANNUAL))).toEqual(["calendar intervals of 301–500 days", "3 months", "3 months", "yes", "yes"]);
+    expect(await cells(rowOf(RENEWAL))).toEqual(["calendar intervals of 1,201–36,525 days", "3 months", "none", "yes", "no"]);
     expect(await cells(rowOf(HOURS))).toEqual([
       "running-hours intervals of 0–1,000,000 h",
       "10 % of the interval",
@@ -84,6 +87,10 @@ describe("the demo administrator keeps the tolerance rules", () => {
       .toBe(
         "Opens 3 months before the due date; out of tolerance 1 month after; an early completion moves the anniversary, one inside the window keeps it.",
       );
+    // What each state means under the rule, said beside it.
+    expect(await states(form).textContent()).toBe(
+      "States: scheduled until the window opens; window open from 3 months before the due date to the due date; late for 1 month after it; out of tolerance from the day after.",
+    );
     // The range is said in words too.
     expect(await form.getByText("Applies to calendar intervals of 1,201–36,525 days.").count()).toBe(1);
     await screenshot(page, "tolerance-rules-edit-preview");
@@ -170,7 +177,7 @@ describe("the demo administrator keeps the tolerance rules", () => {
     await expect.poll(() => rowOf(RENEWAL).count(), { timeout: 15_000 }).toBe(0);
     await page.getByRole("button", { name: "Restore the presets" }).click();
     await expect.poll(() => page.getByText(`Restored 1 preset: ${RENEWAL}.`).count(), { timeout: 15_000 }).toBe(1);
-    expect(await cells(rowOf(RENEWAL))).toEqual(["calendar intervals of 1,201–36,525 days", "3 months", "none", "yes"]);
+    expect(await cells(rowOf(RENEWAL))).toEqual(["calendar intervals of 1,201–36,525 days", "3 months", "none", "yes", "no"]);
     await screenshot(page, "tolerance-rules-restored");
     // As found: the same rules with the same figures, in the same order.
     expect(await storedRules()).toEqual(found);
@@ -186,6 +193,11 @@ describe("the demo administrator keeps the tolerance rules", () => {
     await screenshot(page, "tolerance-rules-night-tablet");
     await page.getByRole("button", { name: `Edit ${ANNUAL}` }).click();
     await panel(`Edit “${ANNUAL}”`).waitFor();
+    // Class counts the whole window on time (HSSC, IMO Res. A.1104(29) 4.2.1): no late under it.
+    expect(await panel(`Edit “${ANNUAL}”`).getByLabel("The whole window counts as on time (class surveys)").isChecked()).toBe(true);
+    expect(await states(panel(`Edit “${ANNUAL}”`)).textContent()).toBe(
+      "States: scheduled until the window opens; window open — on time — from 3 months before the due date to 3 months after the due date; out of tolerance from the day after. Nothing is ever late under this rule.",
+    );
     await screenshot(page, "tolerance-rules-edit-night-tablet");
     await panel(`Edit “${ANNUAL}”`).getByRole("button", { name: "Close" }).click();
     await page

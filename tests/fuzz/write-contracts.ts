@@ -116,6 +116,15 @@ export const EXAMPLES: Record<string, (c: ExampleContext) => Example> = {
     body: { componentId: c.componentId, title: "Fuzz leak at the drain", foundOn: c.shipDay, time: c.time, affectsSafety: true },
   }),
   "POST /api/vessels/[vesselId]/defects/[defectId]/plan": (c) => ({ body: { targetDay: c.laterDay, rank: "motorman", manHours: "2,5" } }),
+  // Tomorrow, so the fixture vessel keeps its zone while the other routes are fuzzed.
+  "POST /api/vessels/[vesselId]/clock": (c) => ({
+    body: {
+      shipDay: new Date(Date.parse(`${c.shipDay}T00:00:00Z`) + 86_400_000).toISOString().slice(0, 10),
+      time: "02:00",
+      zone: "UTC-5",
+      note: "Fuzz passage",
+    },
+  }),
   "POST /api/vessels/[vesselId]/components": (c) => ({ body: { code: `FZ.${c.tag.slice(0, 6)}`, name: "Fuzz pump" } }),
   "PATCH /api/vessels/[vesselId]/components/[componentId]": () => ({ body: { name: "Fuzz pump renamed" } }),
   "POST /api/vessels/[vesselId]/counters": (c) => ({ body: { name: `Fuzz meter ${c.tag}`, plannedHoursPerDay: 12 } }),

@@ -15,9 +15,14 @@ export default async function FleetBoardPage() {
     <main>
       <div className="mb-1 flex flex-wrap items-baseline justify-between gap-2">
         <h1 className="text-lg font-bold">Fleet board</h1>
-        <Link className="btn-quiet" href="/fleet/overdue">
-          Overdue list, every vessel
-        </Link>
+        <span className="flex gap-2">
+          <Link className="btn-quiet" href="/fleet/class-items">
+            Class items, every vessel
+          </Link>
+          <Link className="btn-quiet" href="/fleet/overdue">
+            Overdue list, every vessel
+          </Link>
+        </span>
       </div>
       <p className="mb-4 text-ink-600 dark:text-ink-300">
         Every vessel of {access.company.name} at a glance: critical and class-related work gone out of tolerance or late

@@ -7,6 +7,7 @@ const SECTIONS = [
   { href: "/admin/tolerance-rules", label: "Tolerance rules" },
   { href: "/admin/mail", label: "Mail" },
   { href: "/admin/settings", label: "Settings" },
+  { href: "/admin/audit", label: "Audit trail" },
 ] as const;
 
 export function AdminTabs() {

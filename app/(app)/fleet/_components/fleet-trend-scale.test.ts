@@ -74,12 +74,12 @@ describe("trendTicks", () => {
     const month = Array.from({ length: 30 }, (_, i) => row(i + 1, 0, 0, null));
     // Slots of 100/30: a gap of 20 needs every 6th day, from the 30th back.
     const ticks = trendTicks(month, plot, 20);
-    expect(ticks.map((t) => t.label)).toEqual(["11-06", "11-12", "11-18", "11-24", "11-30"]);
+    expect(ticks.map((t) => t.label)).toEqual(["6 Nov", "12 Nov", "18 Nov", "24 Nov", "30 Nov"]);
     expect(ticks.at(-1)!.at).toBeCloseTo(10 + 29.5 * (100 / 30));
   });
 
   it("labels every day of a short history, and none of an empty one", () => {
-    expect(trendTicks(days, plot, 20).map((t) => t.label)).toEqual(["11-01", "11-02", "11-03", "11-04"]);
+    expect(trendTicks(days, plot, 20).map((t) => t.label)).toEqual(["1 Nov", "2 Nov", "3 Nov", "4 Nov"]);
     expect(trendTicks([], plot)).toEqual([]);
   });
 });

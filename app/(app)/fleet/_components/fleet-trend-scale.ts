@@ -2,6 +2,7 @@
 // Days sit in slots of equal width; the counts are stacked as steps across each day's slot (the
 // figure holds all day, from one snapshot to the next), the on-time rate is a line through the
 // slots' centres.
+import { formatDayMonth } from "@/server/format/dates";
 
 export type Plot = { left: number; top: number; width: number; height: number };
 export type TrendDay = {
@@ -101,5 +102,5 @@ export function trendTicks(days: TrendDay[], plot: Plot, gap = 72): Tick[] {
   const every = Math.max(1, Math.ceil(gap / slots[0]!.width));
   return slots
     .filter((_, i) => (slots.length - 1 - i) % every === 0)
-    .map((s) => ({ at: s.x + s.width / 2, label: s.day.day.slice(5) }));
+    .map((s) => ({ at: s.x + s.width / 2, label: formatDayMonth(s.day.day) }));
 }

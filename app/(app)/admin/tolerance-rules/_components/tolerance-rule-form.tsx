@@ -12,7 +12,7 @@ import {
   type ToleranceRuleValues,
   UNITS_FOR_KIND,
 } from "@/server/tolerance/contract";
-import { matchesWords, previewWords } from "./tolerance-words";
+import { matchesWords, previewWords, stateWords } from "./tolerance-words";
 import { useSaveToleranceRule } from "./use-tolerance-rules";
 
 const FIELDS = [
@@ -26,6 +26,7 @@ const FIELDS = [
   "graceAfter.unit",
   "capHours",
   "keepsAnniversary",
+  "graceOnTime",
 ] as const satisfies readonly Path<ToleranceRuleInput>[];
 
 const UNIT_LABEL: Record<ToleranceUnit, string> = {
@@ -45,6 +46,7 @@ const NEW_RULE: Record<ToleranceKind, ToleranceRuleInput> = {
     graceAfter: { value: 0, unit: "days" },
     capHours: null,
     keepsAnniversary: true,
+    graceOnTime: false,
   },
   hours: {
     name: "",
@@ -55,6 +57,7 @@ const NEW_RULE: Record<ToleranceKind, ToleranceRuleInput> = {
     graceAfter: { value: 0, unit: "hours" },
     capHours: null,
     keepsAnniversary: false,
+    graceOnTime: false,
   },
 };
 
@@ -70,7 +73,8 @@ function useRuleValues(control: Control<ToleranceRuleInput, unknown, ToleranceRu
   const graceAfter = useWatch({ control, name: "graceAfter" });
   const capHours = useWatch({ control, name: "capHours" });
   const keepsAnniversary = useWatch({ control, name: "keepsAnniversary" });
-  return { name, kind, minInterval, maxInterval, windowBefore, graceAfter, capHours, keepsAnniversary };
+  const graceOnTime = useWatch({ control, name: "graceOnTime" });
+  return { name, kind, minInterval, maxInterval, windowBefore, graceAfter, capHours, keepsAnniversary, graceOnTime };
 }
 
 const numberOrNull = (raw: unknown) => (raw === "" || raw === null || raw === undefined ? null : Number(raw));
@@ -89,6 +93,7 @@ export function ToleranceRuleForm({ rule, kind, onDone }: Props) {
           graceAfter: rule.graceAfter,
           capHours: rule.capHours,
           keepsAnniversary: rule.keepsAnniversary,
+          graceOnTime: rule.graceOnTime,
         }
       : NEW_RULE[kind],
   });
@@ -227,9 +232,23 @@ export function ToleranceRuleForm({ rule, kind, onDone }: Props) {
           </span>
         </span>
       </label>
+      {values.kind === "calendar" && (
+        <label className="flex items-start gap-2">
+          <input type="checkbox" className="mt-1" {...register("graceOnTime")} />
+          <span>
+            The whole window counts as on time (class surveys)
+            <span className="block text-xs text-ink-500 dark:text-ink-400">
+              Work done or still open after the due date but inside the grace is not late; the day after the grace
+              it is out of tolerance. Class surveys work this way (HSSC, IMO Res. A.1104(29) 4.2.1: within 3 months
+              before or after each anniversary).
+            </span>
+          </span>
+        </label>
+      )}
       <div className="rounded-md bg-ink-50 px-3 py-2 text-ink-700 dark:bg-ink-850 dark:text-ink-200" aria-live="polite">
         <p className="text-xs font-semibold tracking-wide text-ink-500 uppercase dark:text-ink-400">In plain words</p>
         <p>{previewWords(values)}</p>
+        <p className="mt-1 text-sm">{stateWords(values)}</p>
         {Number.isFinite(values.minInterval) && Number.isFinite(values.maxInterval) && (
           // The range in words too: a calendar range is typed in days but thought of in months.
           <p className="mt-1 text-xs text-ink-500 dark:text-ink-400">Applies to {matchesWords(values)}.</p>

@@ -174,6 +174,15 @@ function RuleTable({ ruleKind, rules, onAdd, onEdit, onDelete }: RuleTableProps)
         ]
       : []),
     { id: "anniversary", header: "Keeps anniversary", cell: (rule) => (rule.keepsAnniversary ? "yes" : "no") },
+    ...(hours
+      ? []
+      : [
+          {
+            id: "on-time",
+            header: "Grace on time",
+            cell: (rule) => (rule.graceOnTime ? "yes" : "no"),
+          } satisfies DataColumn<AdminToleranceRule>,
+        ]),
     {
       id: "actions",
       header: "Actions",

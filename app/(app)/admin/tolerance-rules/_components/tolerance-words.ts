@@ -10,6 +10,7 @@ type RuleWords = {
   graceAfter: Span;
   capHours?: number | null;
   keepsAnniversary: boolean;
+  graceOnTime?: boolean;
 };
 
 const number = (n: number) => n.toLocaleString("en-GB", { maximumFractionDigits: 2 });
@@ -55,4 +56,24 @@ export function previewWords(rule: RuleWords): string {
     ? "an early completion moves the anniversary, one inside the window keeps it"
     : "every completion moves the anniversary, even one inside the window";
   return `${opens}; ${grace}; ${anniversary}.`;
+}
+
+/**
+ * What each state of a work order means under the rule, in the order a job passes through them:
+ * "Scheduled until the window opens; window open from 3 months before the due date to the due
+ * date; late for 3 months after it; out of tolerance from the day after."
+ */
+export function stateWords(rule: RuleWords): string {
+  const due = rule.kind === "hours" ? "the due hours" : "the due date";
+  const cap = rule.kind === "hours" ? rule.capHours : null;
+  const opens = rule.windowBefore.value === 0 ? `at ${due}` : `${spanWords(rule.windowBefore, cap)} before ${due}`;
+  const after = rule.kind === "hours" ? "once past them" : "from the day after";
+  if (rule.graceAfter.value === 0) {
+    return `States: scheduled until the window opens; window open from ${opens} to ${due}; out of tolerance ${after} — there is no late.`;
+  }
+  const grace = spanWords(rule.graceAfter, cap);
+  if (rule.graceOnTime && rule.kind === "calendar") {
+    return `States: scheduled until the window opens; window open — on time — from ${opens} to ${grace} after ${due}; out of tolerance from the day after. Nothing is ever late under this rule.`;
+  }
+  return `States: scheduled until the window opens; window open from ${opens} to ${due}; late for ${grace} after it; out of tolerance ${rule.kind === "hours" ? "past that" : "from the day after"}.`;
 }

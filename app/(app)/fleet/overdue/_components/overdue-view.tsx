@@ -135,6 +135,9 @@ export function OverdueView() {
           <a className="btn-quiet" href={`/api/fleet/overdue/export${search ? `?${search}` : ""}`} download>
             Download CSV
           </a>
+          <a className="btn-quiet" href={`/api/fleet/overdue/pdf${search ? `?${search}` : ""}`} download>
+            Download PDF
+          </a>
           <button type="button" className="btn-quiet" onClick={() => window.print()}>
             Print
           </button>

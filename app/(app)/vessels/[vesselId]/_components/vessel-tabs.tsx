@@ -8,6 +8,7 @@ const SECTIONS = [
   { slug: "port-stays", label: "Port stays" },
   { slug: "routines", label: "Routines" },
   { slug: "register", label: "Machinery register" },
+  { slug: "class-items", label: "Class items" },
   { slug: "stores", label: "Stores" },
   { slug: "requisitions", label: "Requisitions" },
 ] as const;

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { Suspense } from "react";
 import { requirePageVessel } from "@/server/auth/access";
+import { SurveyReportForm } from "../_components/survey-report-form";
 import { BacklogView } from "./_components/backlog-view";
 
 export const metadata: Metadata = { title: "Backlog" };
@@ -15,6 +16,7 @@ export default async function BacklogPage({ params }: { params: Promise<{ vessel
       <Suspense fallback={<div className="h-96 animate-pulse panel" aria-busy="true" />}>
         <BacklogView vesselId={vessel.id} timeZone={vessel.timeZone} />
       </Suspense>
+      <SurveyReportForm vesselId={vessel.id} timeZone={vessel.timeZone} />
     </main>
   );
 }

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { requirePageVessel } from "@/server/auth/access";
 import { HourLog } from "./_components/hour-log";
+import { ShipClock } from "./_components/ship-clock";
 
 export const metadata: Metadata = { title: "Hour log" };
 
@@ -8,9 +9,10 @@ export default async function HourLogPage({ params }: { params: Promise<{ vessel
   const { vesselId } = await params;
   const { vessel } = await requirePageVessel(vesselId);
   return (
-    <main>
+    <main className="space-y-4">
       <h1 className="sr-only">Hour log of {vessel.name}</h1>
       <HourLog vesselId={vessel.id} />
+      <ShipClock vesselId={vessel.id} />
     </main>
   );
 }

@@ -12,6 +12,7 @@ import { UNIT_LABEL } from "@/server/parts/contract";
 import { RANKS } from "@/server/routines/contract";
 import { useCatalogue } from "../../stores/_components/use-stores";
 import { usePlanDefect } from "./use-defects";
+import { formatDayKey } from "@/server/format/dates";
 
 type Props = { vesselId: string; defect: DefectView; today: string; onDone: (message: string) => void; onCancel: () => void };
 
@@ -34,7 +35,7 @@ export function PlanForm({ vesselId, defect, today, onDone, onCancel }: Props) {
     setErrors({});
     try {
       const saved = await plan.mutateAsync({ targetDay, rank: rank as (typeof RANKS)[number], manHours, parts });
-      onDone(`${saved.number} planned for ${saved.targetDay}.`);
+      onDone(`${saved.number} planned for ${saved.targetDay ? formatDayKey(saved.targetDay) : "no day yet"}.`);
     } catch (error) {
       const named = error instanceof ProblemError ? (error.problem.errors ?? []) : [];
       setErrors(Object.fromEntries(named.map((e) => [e.field, e.message])));

@@ -85,7 +85,7 @@ export function CounterRow({
           <>
             <span className="block font-medium tabular-nums">{formatHours(last.meterValue)}</span>
             <span className="block text-xs text-ink-500 dark:text-ink-400">
-              {formatShipTime(lastAt, timeZone)} · {ageOf(lastAt, now)}
+              {formatShipTime(lastAt, timeZone)} · {ageOf(lastAt, now, timeZone)}
             </span>
           </>
         ) : (

@@ -2,6 +2,7 @@
 // (recharts weighed 117 kB compressed on a page whose budget is 150 kB in all).
 import { formatHours } from "@/server/format/hours";
 import { dailyBars, type DailyHours, dayTicks, HOUR_TICKS, hourY } from "./daily-hours-scale";
+import { formatDayKey } from "@/server/format/dates";
 
 // Drawn in these units and scaled to the panel's width; text stays legible from a phone to a desk.
 // The right margin holds half of the last day's label, which is centred on its bar.
@@ -34,7 +35,7 @@ export function DailyHoursChart({ daily, label }: { daily: DailyHours[]; label: 
         {bars.map((b) => (
           <rect key={b.day} x={b.x} y={b.y} width={b.width} height={b.height} fill="#23879a">
             {/* The pointer's tooltip, as the chart library gave before. */}
-            <title>{`Ship's day ${b.day}: ran ${formatHours(b.hours)}`}</title>
+            <title>{`Ship's day ${formatDayKey(b.day)}: ran ${formatHours(b.hours)}`}</title>
           </rect>
         ))}
         {dayTicks(daily, plot).map((t) => (
@@ -55,7 +56,7 @@ export function DailyHoursChart({ daily, label }: { daily: DailyHours[]; label: 
         <tbody>
           {daily.map((d) => (
             <tr key={d.day}>
-              <th scope="row">{d.day}</th>
+              <th scope="row">{formatDayKey(d.day)}</th>
               <td>{formatHours(d.hours)}</td>
             </tr>
           ))}

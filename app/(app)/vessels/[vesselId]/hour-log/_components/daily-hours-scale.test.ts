@@ -32,12 +32,12 @@ describe("dayTicks", () => {
   it("labels about seven days of ninety, counted back from the last", () => {
     const ticks = dayTicks(days(Array.from({ length: 30 }, () => 8)), plot);
     // 30 days in 7 labels: every 5th day, from the 30th back to the 5th.
-    expect(ticks.map((t) => t.label)).toEqual(["11-05", "11-10", "11-15", "11-20", "11-25", "11-30"]);
+    expect(ticks.map((t) => t.label)).toEqual(["5 Nov", "10 Nov", "15 Nov", "20 Nov", "25 Nov", "30 Nov"]);
     expect(ticks.at(-1)!.at).toBeCloseTo(10 + 29 * (100 / 30) + 100 / 60);
   });
 
   it("labels every day of a short history, and none of an empty one", () => {
-    expect(dayTicks(days([1, 2, 3]), plot).map((t) => t.label)).toEqual(["11-01", "11-02", "11-03"]);
+    expect(dayTicks(days([1, 2, 3]), plot).map((t) => t.label)).toEqual(["1 Nov", "2 Nov", "3 Nov"]);
     expect(dayTicks([], plot)).toEqual([]);
   });
 });

@@ -1,4 +1,5 @@
 // The geometry of the daily running-hours chart: pure, so it is tested without a browser.
+import { formatDayMonth } from "@/server/format/dates";
 
 export type DailyHours = { day: string; hours: number };
 export type Bar = { x: number; y: number; width: number; height: number; day: string; hours: number };
@@ -39,7 +40,7 @@ export function dayTicks(daily: DailyHours[], plot: Plot, count = 7): Tick[] {
   const step = Math.max(1, Math.ceil(daily.length / count));
   const ticks: Tick[] = [];
   for (let i = daily.length - 1; i >= 0; i -= step) {
-    ticks.unshift({ at: plot.left + i * slot + slot / 2, label: daily[i]!.day.slice(5) });
+    ticks.unshift({ at: plot.left + i * slot + slot / 2, label: formatDayMonth(daily[i]!.day) });
   }
   return ticks;
 }

@@ -87,7 +87,7 @@ function CounterItem({
             <span className="font-medium">{formatHours(last.meterValue)}</span>
             {last.totalHours !== last.meterValue && ` (total ${formatHours(last.totalHours)})`} on{" "}
             {formatShipTime(new Date(last.readAt), timeZone)},{" "}
-            <span className="text-ink-500 dark:text-ink-400">{ageOf(last.readAt, view.now)}</span>
+            <span className="text-ink-500 dark:text-ink-400">{ageOf(last.readAt, view.now, view.vessel.timeZone)}</span>
           </>
         ) : (
           <span className="text-ink-500">

@@ -5,6 +5,7 @@ import { useState } from "react";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
 import type { RegisterView } from "@/server/register/contract";
+import { RecordTrail } from "@/app/_components/record-trail";
 import { ComponentForm } from "./component-form";
 import { type ComponentAction, ComponentTree } from "./component-tree";
 import { CounterForm } from "./counter-form";
@@ -109,6 +110,9 @@ function SheetFor({
       return sheet.kind === "edit-component" ? (
         <SidePanel title={`Edit ${component.code}`} subtitle={component.name} onClose={onCancel}>
           <ComponentForm view={view} target={{ component }} {...props} />
+          <div className="mt-4">
+            <RecordTrail vesselId={view.vessel.id} table="component" record={component.id} />
+          </div>
         </SidePanel>
       ) : (
         <SidePanel title={`Move ${component.code}`} subtitle={component.name} onClose={onCancel}>

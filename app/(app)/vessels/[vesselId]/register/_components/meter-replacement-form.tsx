@@ -9,6 +9,7 @@ import { FormActions } from "@/app/_components/forms/form-actions";
 import { useSendForm } from "@/app/_components/forms/use-send-form";
 import {
   formatHours,
+  formatRate,
   formatShipTime,
   instantOfShipTime,
   shipClock,
@@ -18,6 +19,7 @@ import {
 import { MeterReplacementInput, type RegisterCounter, type RegisterView } from "@/server/register/contract";
 import { MeterValue } from "@/server/readings/contract";
 import { readingProblem, round1 } from "@/server/readings/rules";
+import { estimateFinal } from "@/server/register/meter-estimate";
 import { useReplaceMeter } from "./use-register";
 
 type Values = z.input<typeof MeterReplacementInput>;
@@ -76,13 +78,31 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
         )
       : null;
   const offsetNow = last ? round1(last.totalHours - last.meterValue) : null;
+  // No final value read: the old meter's hours since its last reading, estimated at the running rate.
+  const rate = counter.runningRate ?? counter.plannedHoursPerDay;
+  const estimate = estimateFinal(last, replacedAt, rate);
   const totalAtChange =
-    final?.success && offsetNow !== null ? round1(final.data + offsetNow) : (last?.totalHours ?? null);
+    final?.success && offsetNow !== null
+      ? round1(final.data + offsetNow)
+      : estimate && offsetNow !== null
+        ? round1(estimate.value + offsetNow)
+        : (last?.totalHours ?? null);
 
   const { onSubmit, problem } = useSendForm(form, {
     fields: FIELDS,
     send: async (values) => {
-      const result = await replace.mutateAsync({ id: counter.id, input: values });
+      // Left empty: the estimate is the old meter's final value, and the reason says so.
+      const input =
+        values.oldMeterFinal === undefined || values.oldMeterFinal === null
+          ? estimate
+            ? {
+                ...values,
+                oldMeterFinal: estimate.value,
+                reason: `${values.reason} (old meter not read: its final value ${formatHours(estimate.value)} estimated at ${formatRate(rate)})`,
+              }
+            : values
+          : values;
+      const result = await replace.mutateAsync({ id: counter.id, input });
       onDone(
         `${counter.name}: meter ${result.segment} fitted; totals carry on with an offset of ${formatHours(result.offsetHours)}.`,
       );
@@ -151,7 +171,11 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
       <Field
         id="old-meter-final"
         label="Final value on the old meter (h)"
-        hint="Leave empty only if the old meter could not be read."
+        hint={
+          estimate
+            ? `Leave empty only if the old meter could not be read: Keelson then takes ${formatHours(estimate.value)}, its last reading plus ${formatHours(estimate.ran)} at the running rate of ${formatRate(rate)}, and says so in the reason.`
+            : "Leave empty only if the old meter could not be read."
+        }
         error={errors.oldMeterFinal?.message ?? liveProblem ?? undefined}
       >
         <input
@@ -159,7 +183,7 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
           inputMode="decimal"
           autoComplete="off"
           autoFocus
-          placeholder={last ? String(last.meterValue) : ""}
+          placeholder={estimate ? `≈ ${estimate.value}` : last ? String(last.meterValue) : ""}
           {...describedBy("old-meter-final", errors.oldMeterFinal?.message ?? liveProblem ?? undefined, true)}
           {...register("oldMeterFinal")}
         />
@@ -192,8 +216,9 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
 
       {totalAtChange !== null && start.success && !liveProblem && (
         <p className="rounded-md bg-ink-100 px-3 py-2 text-ink-700 tabular-nums dark:bg-ink-850 dark:text-ink-200">
-          Total at the change {formatHours(totalAtChange)}; the new meter’s readings count on from there (offset{" "}
-          {formatHours(round1(totalAtChange - start.data))}).
+          Total at the change {formatHours(totalAtChange)}
+          {!final?.success && estimate ? " (estimated from the running rate: the old meter was not read)" : ""}; the new
+          meter’s readings count on from there (offset {formatHours(round1(totalAtChange - start.data))}).
         </p>
       )}
 
@@ -207,3 +232,4 @@ export function MeterReplacementForm({ view, counter, onDone, onCancel }: Props)
     </form>
   );
 }
+

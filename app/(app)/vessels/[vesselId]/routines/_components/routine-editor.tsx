@@ -1,6 +1,7 @@
 "use client";
 
 import { LoadProblem } from "@/app/_components/notice";
+import { RecordTrail } from "@/app/_components/record-trail";
 import type { RoutineList } from "@/server/routines/contract";
 import { RoutineForm } from "./routine-form";
 import { useRoutine } from "./use-routines";
@@ -17,5 +18,12 @@ function StoredRoutine({ list, routineId, onDone, onCancel }: Props & { routineI
   const { data, error, isPending } = useRoutine(list.vessel.id, routineId);
   if (isPending) return <p aria-busy="true">Loading the routine…</p>;
   if (error) return <LoadProblem what="routine" error={error} />;
-  return <RoutineForm list={list} routine={data} onDone={onDone} onCancel={onCancel} />;
+  return (
+    <>
+      <RoutineForm list={list} routine={data} onDone={onDone} onCancel={onCancel} />
+      <div className="mt-4">
+        <RecordTrail vesselId={list.vessel.id} table="routine" record={routineId} />
+      </div>
+    </>
+  );
 }

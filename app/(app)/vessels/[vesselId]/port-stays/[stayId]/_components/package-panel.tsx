@@ -68,6 +68,11 @@ export function PackagePanel({ detail, over }: Props) {
                 Package sheet
               </Link>
             )}
+            {(accepted.length > 0 || canPlan) && (
+              <a href={`/api/vessels/${vessel.id}/port-stays/${stay.id}/package/pdf`} className="btn-quiet" download>
+                {accepted.length > 0 ? "Work package (PDF)" : "Proposal (PDF)"}
+              </a>
+            )}
             {canPlan && (
               <button type="button" className="btn-primary" disabled={propose.isPending} onClick={runProposal}>
                 {propose.isPending ? "Proposing…" : accepted.length ? "Re-plan" : "Propose a package"}

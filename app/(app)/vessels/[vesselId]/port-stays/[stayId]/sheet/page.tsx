@@ -10,7 +10,7 @@ import { AppError } from "@/server/http/problem";
 import { loadPackageSheet, type SheetJob } from "@/server/port-stays/sheet";
 import { Cautions } from "../../../work-orders/[workOrderId]/_components/cautions";
 import { dayLabel, ENGINE_STOP_CAUTION, engineStopWords, personLabel, stayPeriod } from "../../_components/stay-words";
-import { PrintButton } from "./print-button";
+import { PrintButton } from "@/app/_components/print-button";
 
 export const metadata: Metadata = { title: "Work package sheet" };
 

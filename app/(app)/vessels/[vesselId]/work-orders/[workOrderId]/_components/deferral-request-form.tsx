@@ -9,6 +9,7 @@ import { type DeferralRequest, DeferralRequestInput, type WorkOrderWithDeferrals
 import { formatHours, formatShipDate } from "@/server/format/hours";
 import { addShipDays, shipDateFromKey, shipDateKey } from "@/server/scheduling/ship-date";
 import { useRequestDeferral } from "./use-work-order";
+import { formatDayKey } from "@/server/format/dates";
 
 const FIELDS = ["reason", "proposedDueDay", "proposedDueHours"] as const;
 
@@ -83,7 +84,7 @@ export function DeferralRequestForm({ detail, onDone }: Props) {
         id="deferral-proposedDueDay"
         label="New due day (ship’s day)"
         error={errors.proposedDueDay?.message}
-        hint={`After today and after the current due day; at most two years ahead (up to ${d.latestDay}).`}
+        hint={`After today and after the current due day; at most two years ahead (up to ${formatDayKey(d.latestDay)}).`}
       >
         <input
           type="date"

@@ -30,9 +30,9 @@ export function WorkOrderSummary({ detail }: Props) {
         </div>
         <div className="flex items-center gap-2">
           <StateBadge state={w.state} />
-          <button type="button" className="no-print btn-quiet" onClick={() => window.print()}>
-            Print job card
-          </button>
+          <a className="no-print btn-quiet" href={`/api/vessels/${vessel.id}/work-orders/${w.id}/card`} download>
+            Job card (PDF)
+          </a>
         </div>
       </div>
       <dl className="mt-4 grid grid-cols-2 gap-x-6 gap-y-2 text-sm sm:grid-cols-4">

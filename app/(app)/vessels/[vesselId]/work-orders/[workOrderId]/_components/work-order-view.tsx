@@ -12,6 +12,7 @@ import { CompletionForm } from "./completion-form";
 import { CompletionRecordView, DecisionForm } from "./completion-record";
 import { DefectReport } from "./defect-report";
 import { DeferralSection } from "./deferral-section";
+import { MeasurementTrends } from "./measurement-trends";
 import { useWorkOrder } from "./use-work-order";
 import { WorkOrderSummary } from "./work-order-summary";
 
@@ -34,6 +35,9 @@ export function WorkOrderView({ vesselId, workOrderId }: Props) {
         </Link>
       </p>
       <WorkOrderSummary detail={detail} />
+      {detail.routine && detail.routine.measurements.length > 0 && (
+        <MeasurementTrends vesselId={vesselId} workOrderId={workOrderId} routineId={detail.routine.id} timeZone={detail.vessel.timeZone} />
+      )}
       {detail.defect && <DefectReport defect={detail.defect} timeZone={detail.vessel.timeZone} />}
       <Cautions cautions={detail.routine?.cautions ?? []} />
       {(detail.routine?.spareParts || detail.partsOnBoard.length > 0) && (
