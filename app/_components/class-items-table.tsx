@@ -3,6 +3,7 @@ import type { ClassItem, ClassItemSort } from "@/server/class-items/contract";
 import { formatDayKey } from "@/server/format/dates";
 import { formatHours } from "@/server/format/hours";
 import { DataTable } from "./data-table";
+import { PrintButton } from "./print-button";
 import { StateBadge } from "./state-badge";
 
 const SORT_LABEL: Record<ClassItemSort, string> = {
@@ -43,9 +44,7 @@ export function ClassItemsTable({
           cellClassName: "font-mono whitespace-nowrap",
           cell: (i) => i.reference ?? <span className="text-ink-500 italic">no reference</span>,
         },
-        ...(showVessel
-          ? [{ id: "vessel", header: "Vessel", cell: (i: ClassItem) => i.vessel.name }]
-          : []),
+        ...(showVessel ? [{ id: "vessel", header: "Vessel", cell: (i: ClassItem) => i.vessel.name }] : []),
         {
           id: "component",
           header: "Component and routine",
@@ -54,7 +53,9 @@ export function ClassItemsTable({
               <span className="font-mono text-xs">{i.component.code}</span> {i.component.name}
               <span className="block">
                 {i.title}
-                {i.critical ? <span className="ml-1 text-xs font-semibold text-alarm-700 dark:text-alarm-300">critical</span> : null}
+                {i.critical ? (
+                  <span className="ml-1 text-xs font-semibold text-alarm-700 dark:text-alarm-300">critical</span>
+                ) : null}
               </span>
               <span className="block text-xs text-ink-500 dark:text-ink-400">{i.interval}</span>
             </>
@@ -103,7 +104,10 @@ export function ClassItemsTable({
           header: "State",
           cell: (i) =>
             i.workOrder ? (
-              <Link href={`/vessels/${i.vessel.id}/work-orders/${i.workOrder.id}`} className="inline-flex flex-col gap-0.5">
+              <Link
+                href={`/vessels/${i.vessel.id}/work-orders/${i.workOrder.id}`}
+                className="inline-flex flex-col gap-0.5"
+              >
                 <StateBadge state={i.workOrder.state} />
                 <span className="font-mono text-xs underline">{i.workOrder.number}</span>
               </Link>
@@ -138,9 +142,48 @@ export function ClassItemsSort({ sort, base }: { sort: ClassItemSort; base: stri
       {(Object.keys(SORT_LABEL) as ClassItemSort[]).map((s, n) => (
         <span key={s}>
           {n > 0 && " · "}
-          {s === sort ? <strong aria-current="true">{SORT_LABEL[s]}</strong> : <Link href={`${base}?sort=${s}`}>{SORT_LABEL[s]}</Link>}
+          {s === sort ? (
+            <strong aria-current="true">{SORT_LABEL[s]}</strong>
+          ) : (
+            <Link href={`${base}?sort=${s}`}>{SORT_LABEL[s]}</Link>
+          )}
         </span>
       ))}
     </p>
+  );
+}
+
+/** A class-items page: its heading and words, the print button, the sort links and the table. */
+export function ClassItemsView({
+  heading,
+  intro,
+  items,
+  sort,
+  base,
+  showVessel,
+}: {
+  heading: string;
+  intro: React.ReactNode;
+  items: ClassItem[];
+  sort: ClassItemSort;
+  base: string;
+  showVessel: boolean;
+}) {
+  return (
+    <>
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1 id="class-items-heading" className="text-lg font-bold">
+            {heading}
+          </h1>
+          <p className="max-w-3xl text-sm text-ink-600 dark:text-ink-300">{intro}</p>
+        </div>
+        <div className="no-print">
+          <PrintButton />
+        </div>
+      </div>
+      <ClassItemsSort sort={sort} base={base} />
+      <ClassItemsTable items={items} showVessel={showVessel} labelledBy="class-items-heading" />
+    </>
   );
 }

@@ -98,7 +98,9 @@ export type ReadingCorrectionEntry = {
 export type HistoryReading = {
   id: string;
   readAt: string;
+  /** The ship's day and the zone the ship kept when it was read (its clock changes on passage). */
   shipDay: string;
+  zone: string;
   meterValue: number;
   totalHours: number;
   segment: number;

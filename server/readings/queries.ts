@@ -12,6 +12,7 @@ import { correctionsSince } from "./corrections";
 import { dailyRunningHours } from "./daily";
 import { loadNeighbours } from "./neighbours";
 import { isInFuture, readingProblem, round1 } from "./rules";
+import { vesselZoneAt } from "@/server/vessels/clock";
 
 export async function loadHourLog(access: Access, vessel: VesselRef, now = new Date()): Promise<HourLogView> {
   const db = getDb();
@@ -184,13 +185,15 @@ export async function readingHistory(
   const sinceDay = shipDay(since, vessel.timeZone);
 
   const audit = await correctionsSince(access.company.id, counterId, since);
+  const zoneAt = await vesselZoneAt(access.company.id, vessel);
 
   return {
     counter: found,
     readings: inWindow.map((r) => ({
       id: r.id,
       readAt: r.readAt.toISOString(),
-      shipDay: shipDay(r.readAt, vessel.timeZone),
+      shipDay: shipDay(r.readAt, zoneAt(r.readAt)),
+      zone: zoneAt(r.readAt),
       meterValue: r.meterValue,
       totalHours: r.totalHours,
       segment: r.segment,

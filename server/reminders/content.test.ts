@@ -82,6 +82,29 @@ describe("dueDigestMail", () => {
     expect(mail.content.sections.map((s) => s.heading)).not.toContain("Critical spares under their minimum");
   });
 
+  it("tells the chief engineer which work waits for a first reading of its counter, linked to the Hour log", () => {
+    const waiting = dueDigestMail(
+      {
+        vessel,
+        occasion,
+        selection,
+        totals: { late: 5, outOfTolerance: 2 },
+        firstReadings: [{ workOrderId: "w9", number: "WO-X-00009", title: "Emergency generator 500 h service", counter: "Emergency generator" }],
+      },
+      links,
+    );
+    const section = waiting.content.sections.at(-1)!;
+    expect(section.heading).toBe("Waiting for a first reading of their counter");
+    expect(section.lines).toEqual([
+      {
+        text: "WO-X-00009 Emergency generator 500 h service",
+        href: "https://keelson.example/vessels/v1/hour-log",
+        note: "Emergency generator has no reading yet: until it is read, Keelson cannot say when this falls due.",
+      },
+    ]);
+    expect(mail.content.sections.map((s) => s.heading)).not.toContain("Waiting for a first reading of their counter");
+  });
+
   it("cuts a long section with a line to the Backlog", () => {
     const many = Array.from({ length: SECTION_LIMIT + 5 }, (_, i) => item(String(i), "2026-12-03"));
     const long = dueDigestMail(

@@ -87,10 +87,12 @@ export function dueDigestMail(
     lowSpares?: LowSpareLine[];
     /** Measurements whose straight line reaches its limit before the job falls due (server/measurements). */
     trendWarnings?: TrendWarning[];
+    /** Work by running hours whose counter was never read: no due date until it is. */
+    firstReadings?: { workOrderId: string; number: string; title: string; counter: string }[];
   },
   links: MailLinks,
 ): Built {
-  const { vessel, occasion, selection, totals, lowSpares = [], trendWarnings = [] } = input;
+  const { vessel, occasion, selection, totals, lowSpares = [], trendWarnings = [], firstReadings = [] } = input;
   const day = shipDayLabel(occasion.shipDay);
   const since = `${formatShipTime(occasion.previousCutOff, vessel.timeZone)} ship’s time`;
   const standing =
@@ -125,6 +127,16 @@ export function dueDigestMail(
         text: `${t.number} ${t.title}`,
         href: links.app(workOrderPath(vessel.id, t.workOrderId)),
         note: t.sentence,
+      })),
+    });
+  }
+  if (firstReadings.length) {
+    sections.push({
+      heading: "Waiting for a first reading of their counter",
+      lines: firstReadings.slice(0, SECTION_LIMIT).map((w) => ({
+        text: `${w.number} ${w.title}`,
+        href: links.app(`/vessels/${vessel.id}/hour-log`),
+        note: `${w.counter} has no reading yet: until it is read, Keelson cannot say when this falls due.`,
       })),
     });
   }

@@ -44,6 +44,7 @@ import {
   splitEscalations,
   toDigestItem,
 } from "./selection";
+import { awaitingFirstReading } from "@/server/readings/first-reading";
 
 export type ReminderCounts = {
   companies: number;
@@ -106,13 +107,14 @@ async function dueDigestsOf(tx: Tx, co: ReminderCompany, v: ReminderVessel, memb
   const totals = await loadStandingTotals(tx, co.id, v.id);
   const lowSpares = await lowCriticalSpares(tx, co.id, v.id);
   const trendWarnings = await loadTrendWarnings(tx, co.id, v);
+  const firstReadings = await awaitingFirstReading(tx, co.id, v.id);
   return queue(
     tx,
     co.id,
     people,
     "due-digest",
     (userId) => reminderKeys.dueDigest(v.id, occasion.shipDay, userId),
-    (links) => dueDigestMail({ vessel: v, occasion, selection, totals, lowSpares, trendWarnings }, links),
+    (links) => dueDigestMail({ vessel: v, occasion, selection, totals, lowSpares, trendWarnings, firstReadings }, links),
   );
 }
 

@@ -1,7 +1,7 @@
 // The survey and audit report's data for a vessel and a period of ship's days, scoped by the access
 // door's company and vessel. The critical and class-related routines are read by a query of the
-// report's own (the class-item view is being built beside it and may share one later); deferrals
-// and defects come from their areas' own lists.
+// report's own: the class items (server/class-items) hold class-related routines only, the report
+// critical equipment too. Deferrals and defects come from their areas' own lists.
 import "server-only";
 import { and, asc, desc, eq, gte, inArray, isNull, lt, ne, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";

@@ -69,3 +69,23 @@ export function clockMoveWords(fromZone: string, toZone: string, at: Date): stri
   const amount = size % 60 === 0 ? `${size / 60} h` : size > 60 ? `${Math.floor(size / 60)} h ${size % 60} min` : `${size} min`;
   return `Clocks go ${minutes > 0 ? "forward" : "back"} ${amount}`;
 }
+
+export type ClockChangePoint = { effectiveAt: Date; fromTimeZone: string; timeZone: string };
+
+/**
+ * The zone the ship kept at each instant, from its clock changes (any order) and the zone it keeps
+ * now: the zone of the last change at or before the instant; before the first change, the zone
+ * that change left. A past reading is shown on the clock it was read by.
+ */
+export function zoneAtFrom(changes: readonly ClockChangePoint[], zoneNow: string): (at: Date) => string {
+  const sorted = [...changes].sort((a, b) => a.effectiveAt.getTime() - b.effectiveAt.getTime());
+  if (sorted.length === 0) return () => zoneNow;
+  return (at) => {
+    let zone = sorted[0]!.fromTimeZone;
+    for (const c of sorted) {
+      if (c.effectiveAt <= at) zone = c.timeZone;
+      else break;
+    }
+    return zone;
+  };
+}

@@ -8,7 +8,7 @@ import { can } from "@/server/auth/roles";
 import { formatShipTime, instantOfShipTime } from "@/server/format/hours";
 import { AppError, invalidInput } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
-import { clockMoveWords, zoneWords } from "./clock-rules";
+import { clockMoveWords, zoneAtFrom, zoneWords } from "./clock-rules";
 import type { ClockChangeValues, ShipClockView } from "./clock-contract";
 
 const WEEK_MS = 7 * 86_400_000;
@@ -143,4 +143,17 @@ export async function applyDueClockChanges(db: Db, now = new Date()): Promise<nu
     for (const r of rows) await requestRecompute(tx, r.company_id, r.id);
     return rows.length;
   });
+}
+
+/** The zone the vessel kept at each instant (its clock changes; `zoneAtFrom`). */
+export async function vesselZoneAt(companyId: string, target: VesselRef): Promise<(at: Date) => string> {
+  const changes = await getDb()
+    .select({
+      effectiveAt: vesselClockChange.effectiveAt,
+      fromTimeZone: vesselClockChange.fromTimeZone,
+      timeZone: vesselClockChange.timeZone,
+    })
+    .from(vesselClockChange)
+    .where(and(eq(vesselClockChange.companyId, companyId), eq(vesselClockChange.vesselId, target.id)));
+  return zoneAtFrom(changes, target.timeZone);
 }

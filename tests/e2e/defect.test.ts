@@ -4,7 +4,7 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "@/db/seed/scenario";
-import { openPage, screenshot, signInThroughForm } from "../support/browser";
+import { openPage, screenshot, switchUser } from "../support/browser";
 import { gradientPng } from "../support/png";
 import { formatDayKey } from "@/server/format/dates";
 
@@ -19,11 +19,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signInAs(email: string) {
-  await page.context().clearCookies();
-  await page.goto("about:blank");
-  await signInThroughForm(page, email, DEMO_PASSWORD);
-}
+const signInAs = (email: string) => switchUser(page, email, DEMO_PASSWORD);
 
 describe("a defect found on board", () => {
   it("is reported by the second engineer, refused first without its component", async () => {

@@ -5,7 +5,7 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "@/db/seed/scenario";
-import { openPage, screenshot, signInThroughForm } from "../support/browser";
+import { openPage, screenshot, switchUser } from "../support/browser";
 
 let browser: Browser;
 let page: Page;
@@ -18,11 +18,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signInAs(email: string) {
-  await page.context().clearCookies();
-  await page.goto("about:blank");
-  await signInThroughForm(page, email, DEMO_PASSWORD);
-}
+const signInAs = (email: string) => switchUser(page, email, DEMO_PASSWORD);
 
 describe("parts before a port stay", () => {
   it("shows the chief engineer the parts the Port Kelang jobs lack", async () => {

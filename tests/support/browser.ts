@@ -42,3 +42,10 @@ export async function signInThroughForm(page: Page, email: string, password: str
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
 }
+
+/** Signs out whoever was signed in on the page and signs `email` in through the form. */
+export async function switchUser(page: Page, email: string, password: string): Promise<void> {
+  await page.context().clearCookies();
+  await page.goto("about:blank");
+  await signInThroughForm(page, email, password);
+}

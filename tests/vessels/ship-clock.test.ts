@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as s from "@/db/schema";
 import { shipClock, shipDay } from "@/server/format/hours";
 import { applyDueClockChanges } from "@/server/vessels/clock";
+import type { ReadingHistory } from "@/server/readings/contract";
 import type { ShipClockView } from "@/server/vessels/clock-contract";
 import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
 import { api, type Session, signIn } from "../support/http";
@@ -74,6 +75,12 @@ describe("a change of the ship's clock", () => {
     });
     expect(res.status).toBe(201);
     expect(shipClock(next, "Etc/GMT-7")).toBe(shipClock(L, "Asia/Singapore"));
+
+    // Each reading is shown on the clock it was read by: both at the same ship's time, a day apart.
+    const history = await api<ReadingHistory>(chief, "GET", `/api/vessels/${f.vesselA.id}/readings?counterId=${f.counters.main.id}&days=10`);
+    const byValue = new Map(history.body.readings.map((r) => [r.meterValue, r]));
+    expect(byValue.get(1000)).toMatchObject({ zone: "Asia/Singapore", shipDay: shipDay(L, "Asia/Singapore") });
+    expect(byValue.get(1025)).toMatchObject({ zone: "Etc/GMT-7", shipDay: shipDay(next, "Etc/GMT-7") });
   });
 
   it("one entered ahead waits, then the worker's step moves the zone when it falls due", async () => {

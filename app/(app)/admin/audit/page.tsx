@@ -51,47 +51,39 @@ export default async function AuditTrailPage({ searchParams }: { searchParams: S
         </div>
       </div>
 
-      <form method="get" className="no-print panel grid gap-3 p-4 sm:grid-cols-3 lg:grid-cols-6" aria-label="Search the trail">
-        <div>
-          <label htmlFor="audit-person" className="label">
-            Person
-          </label>
-          <select id="audit-person" name="person" defaultValue={given.person ?? ""} className="field">
-            <option value="">Anyone</option>
-            <option value="system">Keelson itself</option>
-            {people.map((p) => (
-              <option key={p.id} value={p.id}>
-                {p.name}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="audit-vessel" className="label">
-            Vessel
-          </label>
-          <select id="audit-vessel" name="vessel" defaultValue={given.vessel ?? ""} className="field">
-            <option value="">Any vessel</option>
-            {vessels.map((v) => (
-              <option key={v.id} value={v.id}>
-                {v.name}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="audit-kind" className="label">
-            Kind of record
-          </label>
-          <select id="audit-kind" name="kind" defaultValue={given.kind ?? ""} className="field">
-            <option value="">Any kind</option>
-            {AUDIT_KIND_KEYS.map((k) => (
-              <option key={k} value={k}>
-                {AUDIT_KINDS[k].label}
-              </option>
-            ))}
-          </select>
-        </div>
+      <form
+        method="get"
+        className="no-print grid gap-3 panel p-4 sm:grid-cols-3 lg:grid-cols-6"
+        aria-label="Search the trail"
+      >
+        <Choice
+          id="audit-person"
+          name="person"
+          label="Person"
+          value={given.person}
+          options={[
+            { value: "", label: "Anyone" },
+            { value: "system", label: "Keelson itself" },
+            ...people.map((p) => ({ value: p.id, label: p.name })),
+          ]}
+        />
+        <Choice
+          id="audit-vessel"
+          name="vessel"
+          label="Vessel"
+          value={given.vessel}
+          options={[{ value: "", label: "Any vessel" }, ...vessels.map((v) => ({ value: v.id, label: v.name }))]}
+        />
+        <Choice
+          id="audit-kind"
+          name="kind"
+          label="Kind of record"
+          value={given.kind}
+          options={[
+            { value: "", label: "Any kind" },
+            ...AUDIT_KIND_KEYS.map((k) => ({ value: k, label: AUDIT_KINDS[k].label })),
+          ]}
+        />
         <div>
           <label htmlFor="audit-from" className="label">
             From (UTC day)
@@ -141,7 +133,8 @@ export default async function AuditTrailPage({ searchParams }: { searchParams: S
               {
                 id: "by",
                 header: "By",
-                cell: (i) => (i.byPerson ? i.by : <span className="text-ink-500 italic dark:text-ink-400">{i.by}</span>),
+                cell: (i) =>
+                  i.byPerson ? i.by : <span className="text-ink-500 italic dark:text-ink-400">{i.by}</span>,
               },
               { id: "vessel", header: "Vessel", className: "hidden md:table-cell", cell: (i) => i.vessel ?? "—" },
               {
@@ -168,5 +161,35 @@ export default async function AuditTrailPage({ searchParams }: { searchParams: S
         </>
       )}
     </main>
+  );
+}
+
+/** A labelled list of the search form; its choice stays selected after the search. */
+function Choice({
+  id,
+  name,
+  label,
+  value,
+  options,
+}: {
+  id: string;
+  name: string;
+  label: string;
+  value: string | undefined;
+  options: { value: string; label: string }[];
+}) {
+  return (
+    <div>
+      <label htmlFor={id} className="label">
+        {label}
+      </label>
+      <select id={id} name={name} defaultValue={value ?? ""} className="field">
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    </div>
   );
 }

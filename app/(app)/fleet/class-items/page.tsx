@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { ClassItemsSort, ClassItemsTable } from "@/app/_components/class-items-table";
-import { PrintButton } from "@/app/_components/print-button";
+import { ClassItemsView } from "@/app/_components/class-items-table";
 import { requirePageAccess } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { ClassItemsQuery } from "@/server/class-items/contract";
@@ -17,26 +16,22 @@ export default async function FleetClassItemsPage({
   const access = await requirePageAccess();
   if (!can(access.role, "fleet:read")) notFound();
   const raw = await searchParams;
-  const { sort } = ClassItemsQuery.catch({ sort: "reference" }).parse({ sort: typeof raw.sort === "string" ? raw.sort : undefined });
+  const { sort } = ClassItemsQuery.catch({ sort: "reference" }).parse({
+    sort: typeof raw.sort === "string" ? raw.sort : undefined,
+  });
   const items = await listClassItems(access, null, sort);
   return (
     <main className="space-y-3">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <h1 id="class-items-heading" className="text-lg font-bold">
-            Class items across the fleet
-          </h1>
-          <p className="max-w-3xl text-sm text-ink-600 dark:text-ink-300">
-            Every class-related routine of {access.company.name}’s vessels, with its last completion, due point, window,
-            state and any deferral: {items.length} {items.length === 1 ? "item" : "items"}. Days are each ship’s own.
-          </p>
-        </div>
-        <div className="no-print">
-          <PrintButton />
-        </div>
-      </div>
-      <ClassItemsSort sort={sort} base="/fleet/class-items" />
-      <ClassItemsTable items={items} showVessel labelledBy="class-items-heading" />
+      <ClassItemsView
+        heading="Class items across the fleet"
+        intro={`Every class-related routine of ${access.company.name}’s vessels, with its last completion, due point, window, state and any deferral: ${items.length} ${
+          items.length === 1 ? "item" : "items"
+        }. Days are each ship’s own.`}
+        items={items}
+        sort={sort}
+        base="/fleet/class-items"
+        showVessel
+      />
     </main>
   );
 }

@@ -2,6 +2,7 @@
 
 import { useId, useState } from "react";
 import { formatHours, formatShipTime } from "@/server/format/hours";
+import { zoneWords } from "@/server/vessels/clock-rules";
 import type { HistoryReading, ReadingCorrectionEntry, ReadingHistory } from "@/server/readings/contract";
 import type { Neighbour } from "@/server/readings/rules";
 import { CorrectionPanel } from "./correction-panel";
@@ -34,7 +35,8 @@ export function RecentReadings({ vesselId, history, timeZone, canWrite, onChange
           return (
             <li key={r.id} className="flex items-center justify-between gap-2">
               <span className="whitespace-nowrap text-ink-500 dark:text-ink-400">
-                {formatShipTime(new Date(r.readAt), timeZone)}
+                {formatShipTime(new Date(r.readAt), r.zone)}
+                {r.zone !== timeZone && <span className="text-xs text-ink-500"> ({zoneWords(r.zone)})</span>}
               </span>
               <span className="ml-auto flex items-center gap-1.5 whitespace-nowrap">
                 {r.corrections.length > 0 && <CorrectedMark reading={r} timeZone={timeZone} />}
@@ -47,7 +49,7 @@ export function RecentReadings({ vesselId, history, timeZone, canWrite, onChange
                 <button
                   type="button"
                   className="-my-0.5 w-14 rounded px-1.5 py-1 text-right text-xs text-tide-700 underline-offset-2 hover:underline dark:text-tide-300"
-                  aria-label={`Correct the reading of ${formatShipTime(new Date(r.readAt), timeZone)}, ${formatHours(r.meterValue)}`}
+                  aria-label={`Correct the reading of ${formatShipTime(new Date(r.readAt), r.zone)}, ${formatHours(r.meterValue)}`}
                   onClick={() => setEditing(r.id)}
                 >
                   Correct
