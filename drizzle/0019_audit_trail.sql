@@ -49,7 +49,8 @@ BEGIN
       INTO changed_after, changed_before
       FROM jsonb_each(new_row) n
       WHERE n.value IS DISTINCT FROM old_row -> n.key
-        AND n.key NOT IN ('updated_at', 'computed_at');
+        -- Bookkeeping the worker rewrites on every recompute: not a change anyone made to the record.
+        AND n.key NOT IN ('updated_at', 'computed_at', 'running_rate', 'rate_basis', 'rate_computed_at', 'work_order_seq');
     IF changed_after IS NULL THEN RETURN NULL; END IF;
   ELSE
     changed_before := old_row;

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray, isNull, or, sql } from "drizzle-orm";
 import { type Db, getDb, type Tx } from "@/db/client";
-import { counter, vessel, vesselAssignment } from "@/db/schema";
+import { counter, vessel, vesselAssignment, vesselClockChange } from "@/db/schema";
 import type { Access } from "@/server/auth/access";
 import { AppError, type FieldError, invalidInput } from "@/server/http/problem";
 import type { AdminVessel, VesselChanges, VesselValues } from "./contract";
@@ -85,7 +85,7 @@ export async function updateVessel(access: Access, vesselId: string, changes: Ve
   const companyId = access.company.id;
   const { retired, ...fields } = changes;
   const set = { ...fields, ...(retired === false ? { retiredAt: null } : {}) };
-  await loadCompanyVessel(access, vesselId);
+  const before = await loadCompanyVessel(access, vesselId);
   if (Object.keys(set).length) {
     await db.transaction(async (tx) => {
       await assertUniqueVessel(tx, companyId, fields, vesselId);
@@ -93,6 +93,19 @@ export async function updateVessel(access: Access, vesselId: string, changes: Ve
         .update(vessel)
         .set(set)
         .where(and(eq(vessel.companyId, companyId), eq(vessel.id, vesselId)));
+      // A zone set here is a change of the ship's clock from now: kept in its history, so the
+      // worker's step (server/vessels/clock.ts), which follows the history, keeps it too.
+      if (fields.timeZone && fields.timeZone !== before.timeZone) {
+        await tx.insert(vesselClockChange).values({
+          companyId,
+          vesselId,
+          effectiveAt: new Date(),
+          fromTimeZone: before.timeZone,
+          timeZone: fields.timeZone,
+          note: "Set by the administrator under Company → Vessels",
+          enteredBy: access.user.id,
+        });
+      }
     });
   }
   return loadCompanyVessel(access, vesselId);

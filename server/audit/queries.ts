@@ -14,6 +14,7 @@ import {
   RECORD_FAMILIES,
   recordLabel,
   systemActorWords,
+  type TrailRecordTable,
 } from "./kinds";
 
 export const SEARCH_PAGE = 100;
@@ -125,6 +126,10 @@ export async function recordTrail(
   target: VesselRef,
   { table, record }: RecordTrailRequest,
 ): Promise<{ items: AuditItem[]; more: boolean }> {
+  // The record must be this vessel's (the company's parts and tolerance rules are everyone's): some
+  // of its family's rows (a meter, a routine's parts) carry no vessel of their own, so without this
+  // another vessel's record could be read through this vessel's door.
+  if (!(await belongsToVessel(access.company.id, target.id, table, record))) return { items: [], more: false };
   const family = RECORD_FAMILIES[table] as readonly (readonly [string, string])[];
   // An entry of a child names its parent among its refs (every `*_id` of the row, even on an update
   // that changed other columns); the GIN index on refs finds them.
@@ -148,4 +153,24 @@ export async function trailPeople(access: Access): Promise<{ id: string; name: s
     join membership m on m.user_id = u.id and m.company_id = ${access.company.id}
     order by u.name`);
   return rows.rows;
+}
+
+const COMPANY_WIDE: ReadonlySet<TrailRecordTable> = new Set(["part", "tolerance_rule"]);
+
+/** The record lives on the vessel now, or its own trail says it did (a removed one). */
+async function belongsToVessel(
+  companyId: string,
+  vesselId: string,
+  table: TrailRecordTable,
+  record: string,
+): Promise<boolean> {
+  if (COMPANY_WIDE.has(table)) return true;
+  if (table === "vessel") return record === vesselId;
+  const { rows } = await getDb().execute<{ found: boolean }>(sql`
+    select exists (select 1 from ${sql.identifier(table)} t
+                    where t.id = ${record} and t.company_id = ${companyId} and t.vessel_id = ${vesselId})
+        or exists (select 1 from audit_entry a
+                    where a.company_id = ${companyId} and a.table_name = ${table} and a.record_id = ${record}
+                      and a.vessel_id = ${vesselId}) as found`);
+  return rows[0]?.found === true;
 }

@@ -79,7 +79,8 @@ export async function listClassItems(access: Access, vesselIds: string[] | null,
          order by ow.occurrence desc limit 1) w on true
       left join lateral (
         select df.status, df.proposed_due_day, df.proposed_due_hours from deferral df
-         where df.company_id = ${access.company.id} and df.work_order_id = w.id and df.status in ('pending', 'approved')
+         where df.company_id = ${access.company.id} and df.vessel_id = r.vessel_id and df.work_order_id = w.id
+           and df.status in ('pending', 'approved')
          order by df.requested_at desc limit 1) d on true
      where r.company_id = ${access.company.id} and r.class_related and r.retired_at is null
        ${vesselIds ? sql`and r.vessel_id in (${sql.join(vesselIds.map((id) => sql`${id}`), sql`, `)})` : sql``}

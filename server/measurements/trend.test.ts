@@ -112,6 +112,18 @@ describe("measurementTrends, by running hours", () => {
     }
   });
 
+  it("has no date for a meeting point further than a century ahead at a slow counter's rate", () => {
+    // 3,341 h to go at 0.003 h/day (an emergency generator's hour a year) is some 3,000 years: no
+    // date a Date can hold, and no date worth giving. The hours still stand.
+    const [trend] = measurementTrends({
+      measurements: [WEAR],
+      basis: "hours",
+      completions: HOURS_SERIES,
+      counter: { ...COUNTER, hoursPerDay: 0.003 },
+    });
+    expect(trend!.projection).toMatchObject({ kind: "reaches", atDate: null });
+  });
+
   it("leaves out completions without counter hours or without this measurement", () => {
     const completions = [
       ...HOURS_SERIES,

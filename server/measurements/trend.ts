@@ -150,8 +150,12 @@ function project(
   if (x - last.x > HORIZON[basis]) return none("flat", limit, limitValue);
   if (basis === "days") return { kind: "reaches", limit, limitValue, x, atHours: null, atDate: new Date(x * DAY_MS).toISOString() };
   const rate = counter?.hoursPerDay ?? 0;
-  const atDate =
-    counter && rate > 0 ? new Date(counter.readAt.getTime() + ((x - counter.totalHours) / rate) * DAY_MS).toISOString() : null;
+  const atMs = counter && rate > 0 ? counter.readAt.getTime() + ((x - counter.totalHours) / rate) * DAY_MS : null;
+  // A slow counter (an emergency generator's hour a month) puts a far limit past any date a Date
+  // holds: beyond a century ahead there is no date to give, only the hours.
+  const atDate = atMs !== null && Number.isFinite(atMs) && atMs - counter!.readAt.getTime() <= 100 * 365.25 * DAY_MS
+    ? new Date(atMs).toISOString()
+    : null;
   return { kind: "reaches", limit, limitValue, x, atHours: x, atDate };
 }
 

@@ -102,12 +102,14 @@ async function dueDigestsOf(tx: Tx, co: ReminderCompany, v: ReminderVessel, memb
   if (!occasion || people.length === 0) return 0;
   const { changes, workOrders } = await loadDigestInputs(tx, co.id, v, occasion);
   const selection = selectDigest({ occasion, timeZone: v.timeZone, changes, workOrders });
-  // Nothing changed and nothing falls due this week: no message rather than an empty one.
-  if (isEmptyDigest(selection)) return 0;
-  const totals = await loadStandingTotals(tx, co.id, v.id);
-  const lowSpares = await lowCriticalSpares(tx, co.id, v.id);
+  // Work that cannot be dated (a counter never read) and measurements heading for their limit are
+  // news of their own: they never enter the selection, which needs a due date.
   const trendWarnings = await loadTrendWarnings(tx, co.id, v);
   const firstReadings = await awaitingFirstReading(tx, co.id, v.id);
+  // Nothing changed, nothing falls due this week and nothing waits: no message rather than an empty one.
+  if (isEmptyDigest(selection) && trendWarnings.length === 0 && firstReadings.length === 0) return 0;
+  const totals = await loadStandingTotals(tx, co.id, v.id);
+  const lowSpares = await lowCriticalSpares(tx, co.id, v.id);
   return queue(
     tx,
     co.id,

@@ -89,11 +89,12 @@ describe("deferral", () => {
     expect(state(at(2026, 8, 1))).toBe("out-of-tolerance");
   });
 
-  it("under a class rule, the deferral shows until its new due point, then the grace is on time", () => {
-    // HSSC, IMO Res. A.1104(29) 4.2.1: the 3 months after the anniversary still count as on time.
+  it("under a class rule, the deferral's date is a hard limit: late after it, not on time", () => {
+    // The window around the anniversary (HSSC, IMO Res. A.1104(29) 4.2.1) is what a deferral spends;
+    // the date agreed in it is not another anniversary (Keelson's reading, common practice).
     const state = (now: Date) => workOrderState({ now, currentHours: null, calendar: survey, deferred: true });
     expect(state(at(2026, 4, 1))).toBe("deferred");
-    expect(state(at(2026, 5, 1))).toBe("window-open");
+    expect(state(at(2026, 5, 1))).toBe("late");
     expect(state(at(2026, 7, 16))).toBe("out-of-tolerance");
   });
 });

@@ -57,7 +57,9 @@ export function workOrderState(input: WorkOrderStateInput): ToleranceState | "de
   // Past due, before any grace counts as on time: a deferral shows only until its new due point.
   const pastDue: ToleranceState[] = [];
   if (input.calendar) {
-    states.push(calendarState(input.now, input.calendar));
+    // A date agreed in a deferral is a hard limit: past it the work is late even under a rule that
+    // counts its grace on time (that is class's window around the anniversary, spent by the deferral).
+    states.push(input.deferred ? calendarLimitState(input.now, input.calendar) : calendarState(input.now, input.calendar));
     pastDue.push(calendarLimitState(input.now, input.calendar));
   }
   if (input.hours && input.currentHours !== null) {

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, lte, sql } from "drizzle-orm";
+import { and, desc, eq, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { getDb } from "@/db/client";
 import { user, vessel, vesselClockChange } from "@/db/schema";
@@ -60,27 +60,25 @@ export async function addClockChange(
       .where(and(eq(vessel.companyId, access.company.id), eq(vessel.id, target.id)))
       .for("update");
     if (!v) throw new AppError("not-found", "No such vessel.");
-    const [pending] = await tx
-      .select({ timeZone: vesselClockChange.timeZone })
+    // The day and time are read on the clock kept at that moment, from the history: a change entered
+    // between two others, or after one still to come, is read on the clock that one sets.
+    const history = await tx
+      .select({
+        effectiveAt: vesselClockChange.effectiveAt,
+        fromTimeZone: vesselClockChange.fromTimeZone,
+        timeZone: vesselClockChange.timeZone,
+      })
       .from(vesselClockChange)
-      .where(and(eq(vesselClockChange.vesselId, target.id), sql`${vesselClockChange.effectiveAt} > ${now}`))
-      .orderBy(desc(vesselClockChange.effectiveAt))
-      .limit(1);
-    // A change entered after another still to come is read on the clock that one sets.
-    const fromZone = pending?.timeZone ?? v.timeZone;
-    const effectiveAt = instantOfShipTime(input.shipDay, input.time, fromZone);
+      .where(and(eq(vesselClockChange.companyId, access.company.id), eq(vesselClockChange.vesselId, target.id)));
+    const zoneAt = zoneAtFrom(history, v.timeZone);
+    const firstGuess = instantOfShipTime(input.shipDay, input.time, zoneAt(now));
+    const effectiveAt = instantOfShipTime(input.shipDay, input.time, zoneAt(firstGuess));
     if (Math.abs(effectiveAt.getTime() - now.getTime()) > WEEK_MS) {
       throw invalidInput([
         { field: "shipDay", message: "Enter a change of the clock within a week before or after today." },
       ]);
     }
-    const [before] = await tx
-      .select({ timeZone: vesselClockChange.timeZone })
-      .from(vesselClockChange)
-      .where(and(eq(vesselClockChange.vesselId, target.id), lte(vesselClockChange.effectiveAt, effectiveAt)))
-      .orderBy(desc(vesselClockChange.effectiveAt))
-      .limit(1);
-    const zoneBefore = before?.timeZone ?? fromZone;
+    const zoneBefore = zoneAt(effectiveAt);
     if (zoneBefore === input.zone) {
       throw invalidInput([{ field: "zone", message: `The ship already keeps ${zoneWords(input.zone)} then: pick another zone.` }]);
     }
@@ -100,6 +98,12 @@ export async function addClockChange(
     if (inserted.length === 0) {
       throw new AppError("conflict", `A change of the clock is already entered for ${formatShipTime(effectiveAt, zoneBefore)}.`);
     }
+    // The next change, if one comes later, now starts from this zone.
+    await tx.execute(sql`
+      update vessel_clock_change set from_time_zone = ${input.zone}
+       where id = (select id from vessel_clock_change
+                    where company_id = ${access.company.id} and vessel_id = ${target.id} and effective_at > ${effectiveAt}
+                    order by effective_at limit 1)`);
     if (effectiveAt <= now) {
       await moveToZoneInForce(tx, target.id, now);
       await requestRecompute(tx, access.company.id, target.id);

@@ -17,6 +17,7 @@ let other: Fixture;
 let chief: Session;
 let engineer: Session;
 let otherChief: Session;
+let admin: Session;
 /** The fixture's reading: 1,000 h on the main engine at L, four days ago (Asia/Singapore, UTC+8). */
 let L: Date;
 
@@ -27,10 +28,11 @@ beforeAll(async () => {
   f = await createCompany("ship-clock", new Date(Date.now() - 3 * 24 * HOUR));
   other = await createCompany("ship-clock-other");
   L = f.lastReadAt;
-  [chief, engineer, otherChief] = await Promise.all([
+  [chief, engineer, otherChief, admin] = await Promise.all([
     signIn(f.users["chief-engineer"].email, PASSWORD),
     signIn(f.users.engineer.email, PASSWORD),
     signIn(other.users["chief-engineer"].email, PASSWORD),
+    signIn(f.users.admin.email, PASSWORD),
   ]);
 });
 afterAll(closeTestDb);
@@ -95,5 +97,19 @@ describe("a change of the ship's clock", () => {
     expect(await zoneOf(f.vesselA.id)).toBe("Etc/GMT-7");
     await applyDueClockChanges(testDb(), new Date(Date.now() + 3 * HOUR));
     expect(await zoneOf(f.vesselA.id)).toBe("Etc/GMT-6");
+  });
+
+  it("a zone the administrator sets under Company → Vessels is kept: the worker's step follows the history", async () => {
+    // Bravo keeps UTC; a change to UTC+1 an hour ago, then the administrator sets Europe/Oslo.
+    const hourAgo = new Date(Date.now() - HOUR);
+    const change = await api(admin, "POST", `/api/vessels/${f.vesselB.id}/clock`, {
+      shipDay: shipDay(hourAgo, "UTC"),
+      time: shipClock(hourAgo, "UTC"),
+      zone: "UTC+1",
+    });
+    expect(change.status).toBe(201);
+    expect((await api(admin, "PATCH", `/api/admin/vessels/${f.vesselB.id}`, { timeZone: "Europe/Oslo" })).status).toBe(200);
+    await applyDueClockChanges(testDb(), new Date(Date.now() + HOUR));
+    expect(await zoneOf(f.vesselB.id)).toBe("Europe/Oslo");
   });
 });
