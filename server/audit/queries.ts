@@ -17,7 +17,7 @@ import {
   type TrailRecordTable,
 } from "./kinds";
 
-export const SEARCH_PAGE = 100;
+export const SEARCH_PAGE = 50;
 /** The CSV's bound: a year of a large fleet's changes; the file says when it was reached. */
 export const EXPORT_LIMIT = 50_000;
 export const RECORD_TRAIL_LIMIT = 200;

@@ -65,3 +65,27 @@ describe("the class items", () => {
     await screenshot(page, "class-items-by-state");
   });
 });
+
+describe("the ship's clock", () => {
+  it("lets the chief engineer enter the clocks going back an hour six days from now, and says so", async () => {
+    await signInAs("chief@brightwater.example");
+    await page.getByRole("link", { name: "Aster Gale" }).first().click();
+    await page.getByRole("navigation", { name: "Vessel sections" }).getByRole("link", { name: "Hour log" }).click();
+    await page.getByText(/Ship’s clock: Asia\/Singapore/).click();
+    const form = page.getByRole("form", { name: "Enter a change of the clock" });
+    await form.waitFor();
+    // Nothing picked: the server names the field.
+    await form.getByRole("button", { name: "Enter the change" }).click();
+    await form.getByRole("alert").filter({ hasText: /zone/ }).waitFor();
+    // Six days ahead (inside the week the form allows), so the demo keeps its zone meanwhile.
+    const day = new Intl.DateTimeFormat("en-CA", { timeZone: "Asia/Singapore" }).format(new Date(Date.now() + 6 * 86_400_000));
+    await form.getByLabel("Ship’s day").fill(day);
+    await form.getByLabel("Time").fill("00:00");
+    await form.getByLabel("New zone").selectOption("UTC+7");
+    await form.getByLabel("Note (optional)").fill("Westbound, browser test");
+    await form.getByRole("button", { name: "Enter the change" }).click();
+    await form.getByRole("status").filter({ hasText: "Clocks go back 1 h" }).waitFor({ timeout: 15_000 });
+    expect(await page.getByText(/Asia\/Singapore → UTC\+7 \(to come\)/).count()).toBe(1);
+    await screenshot(page, "ship-clock-entered");
+  });
+});

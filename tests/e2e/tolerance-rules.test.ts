@@ -196,7 +196,7 @@ describe("the demo administrator keeps the tolerance rules", () => {
     // Class counts the whole window on time (HSSC, IMO Res. A.1104(29) 4.2.1): no late under it.
     expect(await panel(`Edit “${ANNUAL}”`).getByLabel("The whole window counts as on time (class surveys)").isChecked()).toBe(true);
     expect(await states(panel(`Edit “${ANNUAL}”`)).textContent()).toBe(
-      "States: scheduled until the window opens; window open — on time — from 3 months before the due date to 3 months after the due date; out of tolerance from the day after. Nothing is ever late under this rule.",
+      "States: scheduled until the window opens; window open — on time — from 3 months before the due date to 3 months after the due date; out of tolerance from the day after. Late only past a date agreed in a deferral.",
     );
     await screenshot(page, "tolerance-rules-edit-night-tablet");
     await panel(`Edit “${ANNUAL}”`).getByRole("button", { name: "Close" }).click();

@@ -12,7 +12,7 @@ export function AuditChanges({ item }: { item: AuditItem }) {
       )}
       {item.lines.length > 0 && (
         <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 text-xs">
-          {item.lines.slice(0, 12).map((l) => (
+          {item.lines.slice(0, 8).map((l) => (
             <div key={l.label} className="contents">
               <dt className="text-ink-500 dark:text-ink-400">{l.label}</dt>
               <dd className="break-words">
@@ -28,8 +28,8 @@ export function AuditChanges({ item }: { item: AuditItem }) {
           ))}
         </dl>
       )}
-      {item.lines.length > 12 && (
-        <p className="text-xs text-ink-500">and {item.lines.length - 12} more values (in the CSV)</p>
+      {item.lines.length > 8 && (
+        <p className="text-xs text-ink-500">and {item.lines.length - 8} more values (in the CSV)</p>
       )}
     </div>
   );

@@ -73,7 +73,7 @@ export function stateWords(rule: RuleWords): string {
   }
   const grace = spanWords(rule.graceAfter, cap);
   if (rule.graceOnTime && rule.kind === "calendar") {
-    return `States: scheduled until the window opens; window open — on time — from ${opens} to ${grace} after ${due}; out of tolerance from the day after. Nothing is ever late under this rule.`;
+    return `States: scheduled until the window opens; window open — on time — from ${opens} to ${grace} after ${due}; out of tolerance from the day after. Late only past a date agreed in a deferral.`;
   }
   return `States: scheduled until the window opens; window open from ${opens} to ${due}; late for ${grace} after it; out of tolerance ${rule.kind === "hours" ? "past that" : "from the day after"}.`;
 }
