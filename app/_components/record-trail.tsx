@@ -15,12 +15,21 @@ type Trail = { items: AuditItem[]; more: boolean };
  * A record's audit trail at the foot of its page: closed at first, loaded when opened (nothing is
  * fetched for the many visits that never look), newest first.
  */
-export function RecordTrail({ vesselId, table, record }: { vesselId: string; table: TrailRecordTable; record: string }) {
+export function RecordTrail({
+  vesselId,
+  table,
+  record,
+}: {
+  /** The vessel whose record it is; null for a company-wide one (a part, a tolerance rule). */
+  vesselId: string | null;
+  table: TrailRecordTable;
+  record: string;
+}) {
   const [open, setOpen] = useState(false);
+  const search = `table=${table}&record=${encodeURIComponent(record)}`;
   const trail = useQuery({
-    queryKey: queryKeys.trail(vesselId, table, record),
-    queryFn: () =>
-      fetchJson<Trail>(`/api/vessels/${vesselId}/trail?table=${table}&record=${encodeURIComponent(record)}`),
+    queryKey: queryKeys.trail(vesselId ?? "company", table, record),
+    queryFn: () => fetchJson<Trail>(vesselId ? `/api/vessels/${vesselId}/trail?${search}` : `/api/trail?${search}`),
     enabled: open,
   });
   return (

@@ -47,6 +47,13 @@ export const RecordTrailQuery = z.object({
 });
 export type RecordTrailRequest = z.output<typeof RecordTrailQuery>;
 
+/** The trail of a company-wide record (a part of the catalogue, a tolerance rule): no vessel's door. */
+export const COMPANY_TRAIL_TABLES = ["part", "tolerance_rule"] as const;
+export const CompanyTrailQuery = z.object({
+  table: z.enum(COMPANY_TRAIL_TABLES, { message: `table: one of ${COMPANY_TRAIL_TABLES.join(", ")}.` }),
+  record: z.uuid({ message: "record: the record's id." }),
+});
+
 export type AuditLine = { label: string; before: string | null; after: string | null };
 
 export type AuditItem = {

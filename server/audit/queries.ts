@@ -123,13 +123,14 @@ export async function trailCsv(access: Access, search: AuditSearch): Promise<Res
  */
 export async function recordTrail(
   access: Access,
-  target: VesselRef,
+  target: VesselRef | null,
   { table, record }: RecordTrailRequest,
 ): Promise<{ items: AuditItem[]; more: boolean }> {
   // The record must be this vessel's (the company's parts and tolerance rules are everyone's): some
   // of its family's rows (a meter, a routine's parts) carry no vessel of their own, so without this
   // another vessel's record could be read through this vessel's door.
-  if (!(await belongsToVessel(access.company.id, target.id, table, record))) return { items: [], more: false };
+  if (!target && !COMPANY_WIDE.has(table)) return { items: [], more: false };
+  if (target && !(await belongsToVessel(access.company.id, target.id, table, record))) return { items: [], more: false };
   const family = RECORD_FAMILIES[table] as readonly (readonly [string, string])[];
   // An entry of a child names its parent among its refs (every `*_id` of the row, even on an update
   // that changed other columns); the GIN index on refs finds them.
@@ -139,7 +140,12 @@ export async function recordTrail(
     : [];
   const where = and(
     eq(auditEntry.companyId, access.company.id),
-    or(eq(auditEntry.vesselId, target.id), isNull(auditEntry.vesselId)),
+    // A company-wide record's family lies on the vessels the person may open (a part's stock on board).
+    target
+      ? or(eq(auditEntry.vesselId, target.id), isNull(auditEntry.vesselId))
+      : access.assignedVesselIds === null
+        ? undefined
+        : or(isNull(auditEntry.vesselId), access.assignedVesselIds.length ? inArray(auditEntry.vesselId, access.assignedVesselIds) : undefined),
     or(and(eq(auditEntry.tableName, table), eq(auditEntry.recordId, record)), ...belongs),
   )!;
   const items = await loadItems(access.company.id, where, RECORD_TRAIL_LIMIT + 1);

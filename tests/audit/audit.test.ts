@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as s from "@/db/schema";
 import type { AuditItem } from "@/server/audit/contract";
 import { AUDIT_EXEMPT } from "@/server/audit/exempt";
+import { presetRow } from "@/server/tolerance/rows";
 import { closeTestDb, createCompany, type Fixture, PASSWORD, testDb } from "../support/fixtures";
 import { api, type Session, signIn } from "../support/http";
 
@@ -178,6 +179,27 @@ describe("a reading corrected by the engineer", () => {
     const [removal] = (await entriesOf("reading", readingId)).filter((e) => e.action === "delete");
     expect(removal).toMatchObject({ actor: `user:${f.users.engineer.id}`, reason: "Entered twice: the same round", after: null });
     expect(removal!.before).toMatchObject({ meter_value: 1012, counter_id: f.counters.main.id });
+  });
+});
+
+describe("a company-wide record's trail", () => {
+  it("shows a tolerance rule's change by the administrator, and nothing of it to another company", async () => {
+    const [rule] = await testDb().insert(s.toleranceRule).values(presetRow(f.companyId, 6)).returning();
+    const res = await api(admin, "PATCH", `/api/admin/tolerance-rules/${rule!.id}`, { name: "Annual, as agreed with class" });
+    expect(res.status).toBe(200);
+    const trail = await api<{ items: AuditItem[] }>(engineer, "GET", `/api/trail?table=tolerance_rule&record=${rule!.id}`);
+    expect(trail.status).toBe(200);
+    const change = trail.body.items.find((i) => i.action === "changed");
+    expect(change).toMatchObject({ byPerson: true, by: expect.stringMatching(/^admin audit-/) });
+    expect(change!.lines).toContainEqual({
+      label: "Name",
+      before: "Annual: 3 months either side of the anniversary",
+      after: "Annual, as agreed with class",
+    });
+    const foreign = await api<{ items: AuditItem[] }>(otherAdmin, "GET", `/api/trail?table=tolerance_rule&record=${rule!.id}`);
+    expect(foreign.body.items).toEqual([]);
+    const bad = await api(admin, "GET", `/api/trail?table=reading&record=${rule!.id}`);
+    expect(bad.status).toBe(422);
   });
 });
 

@@ -11,6 +11,7 @@ import { fetchJson } from "@/app/_components/fetch-json";
 import { describedBy, Field } from "@/app/_components/forms/field";
 import { FormActions } from "@/app/_components/forms/form-actions";
 import { SidePanel } from "@/app/_components/forms/side-panel";
+import { RecordTrail } from "@/app/_components/record-trail";
 import { useSendForm } from "@/app/_components/forms/use-send-form";
 import { LoadProblem, Notice } from "@/app/_components/notice";
 import { queryKeys } from "@/app/_components/query-keys";
@@ -113,6 +114,11 @@ export function PartsCatalogue({ vessels }: { vessels: Vessels }) {
             }}
             onCancel={() => setEditing(null)}
           />
+          {editing !== "new" && (
+            <div className="mt-4">
+              <RecordTrail vesselId={null} table="part" record={editing.id} />
+            </div>
+          )}
         </SidePanel>
       )}
     </div>

@@ -9,6 +9,7 @@ import type { ToleranceKind } from "@/server/scheduling/tolerance";
 import type { AdminToleranceRule } from "@/server/tolerance/contract";
 import { ConfirmPanel } from "../../_components/confirm-panel";
 import { RowButton } from "../../_components/row-button";
+import { RecordTrail } from "@/app/_components/record-trail";
 import { ToleranceRuleForm } from "./tolerance-rule-form";
 import { matchesWords, spanWords } from "./tolerance-words";
 import { useDeleteToleranceRule, useRestorePresets, useToleranceRules } from "./use-tolerance-rules";
@@ -104,6 +105,11 @@ export function ToleranceRulesAdmin() {
             kind={open.kind === "edit" ? open.rule.kind : open.ruleKind}
             onDone={done}
           />
+          {open.kind === "edit" && (
+            <div className="mt-4">
+              <RecordTrail vesselId={null} table="tolerance_rule" record={open.rule.id} />
+            </div>
+          )}
         </SidePanel>
       )}
       {open?.kind === "delete" && (
