@@ -3,7 +3,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { useState } from "react";
 import type { AuditItem } from "@/server/audit/contract";
-import type { TrailRecordTable } from "@/server/audit/kinds";
+import { lineValueWords, type TrailRecordTable } from "@/server/audit/kinds";
 import { formatUtcTime } from "@/server/format/dates";
 import { fetchJson } from "./fetch-json";
 import { LoadProblem } from "./notice";
@@ -56,7 +56,7 @@ export function RecordTrail({
                     {item.lines.slice(0, 8).map((l) => (
                       <li key={l.label}>
                         {l.label}:{" "}
-                        {item.action === "changed" ? `${l.before ?? "—"} → ${l.after ?? "—"}` : (l.after ?? l.before)}
+                        {lineValueWords(item.action, l)}
                       </li>
                     ))}
                   </ul>

@@ -147,6 +147,11 @@ export function changeLines(
   return lines;
 }
 
+/** One line's values in words: "1020 → 1012" for a change, the value for an addition or a removal. */
+export function lineValueWords(action: string, line: { before: string | null; after: string | null }): string {
+  return action === actionWord("update") ? `${line.before ?? "—"} → ${line.after ?? "—"}` : (line.after ?? line.before ?? "");
+}
+
 /** A name for the record an entry is about, from its own values: number, title, name or code. */
 export function recordLabel(
   table: string,

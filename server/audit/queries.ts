@@ -11,6 +11,7 @@ import {
   actorUserId,
   changeLines,
   kindOfTable,
+  lineValueWords,
   RECORD_FAMILIES,
   recordLabel,
   systemActorWords,
@@ -86,11 +87,7 @@ export async function searchTrail(access: Access, search: AuditSearch, limit = S
 }
 
 function changesText(item: AuditItem): string {
-  return item.lines
-    .map((l) =>
-      item.action === "changed" ? `${l.label}: ${l.before ?? "—"} → ${l.after ?? "—"}` : `${l.label}: ${l.after ?? l.before}`,
-    )
-    .join("; ");
+  return item.lines.map((l) => `${l.label}: ${lineValueWords(item.action, l)}`).join("; ");
 }
 
 export async function trailCsv(access: Access, search: AuditSearch): Promise<Response> {

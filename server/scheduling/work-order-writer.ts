@@ -167,13 +167,13 @@ export async function writeWorkOrders(tx: Tx, ctx: Context): Promise<WorkOrderRu
 
   // Hours limits the counters have already passed are dated by the readings around them, not
   // projected back at today's rate: a passed due date stays put as new readings arrive.
-  const passed = await passedLookup(tx, companyId, entries.flatMap((e) => passedHours(e.plan, e.counterId, e.counterNow)));
+  const questions = entries.map((e) => passedHours(e.plan, e.counterId, e.counterNow));
+  const passed = await passedLookup(tx, companyId, questions.flat());
   const planned: PlannedWorkOrder[] = [];
-  for (const e of entries) {
+  for (const [i, e] of entries.entries()) {
     const { r, counterId, done, existing } = e;
-    const needs = passedHours(e.plan, counterId, e.counterNow);
     const plan =
-      needs.length > 0 && e.replan && e.counterNow && counterId
+      questions[i]!.length > 0 && e.replan && e.counterNow && counterId
         ? e.replan({ ...e.counterNow, passedAt: (hours) => passed.get(passedKey(counterId, hours)) ?? null })
         : e.plan;
     const fields = routineFields(r, counterId, plan);

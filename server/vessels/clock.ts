@@ -1,14 +1,13 @@
 import "server-only";
 import { and, desc, eq, sql } from "drizzle-orm";
-import type { Db } from "@/db/client";
-import { getDb } from "@/db/client";
+import { type Db, getDb, type Tx } from "@/db/client";
 import { user, vessel, vesselClockChange } from "@/db/schema";
 import type { Access, VesselRef } from "@/server/auth/access";
 import { can } from "@/server/auth/roles";
 import { formatShipTime, instantOfShipTime } from "@/server/format/hours";
 import { AppError, invalidInput } from "@/server/http/problem";
 import { requestRecompute } from "@/server/jobs/recompute-vessel";
-import { clockMoveWords, zoneAtFrom, zoneWords } from "./clock-rules";
+import { type ClockChangePoint, clockMoveWords, zoneAtFrom, zoneWords } from "./clock-rules";
 import type { ClockChangeValues, ShipClockView } from "./clock-contract";
 
 const WEEK_MS = 7 * 86_400_000;
@@ -52,7 +51,7 @@ export async function addClockChange(
   input: ClockChangeValues,
   now = new Date(),
 ): Promise<ShipClockView> {
-  await getDb().transaction(async (tx) => {
+  const zoneAfter = await getDb().transaction(async (tx) => {
     // One change at a time per vessel: the zone before it must not move under us.
     const [v] = await tx
       .select({ timeZone: vessel.timeZone })
@@ -62,15 +61,7 @@ export async function addClockChange(
     if (!v) throw new AppError("not-found", "No such vessel.");
     // The day and time are read on the clock kept at that moment, from the history: a change entered
     // between two others, or after one still to come, is read on the clock that one sets.
-    const history = await tx
-      .select({
-        effectiveAt: vesselClockChange.effectiveAt,
-        fromTimeZone: vesselClockChange.fromTimeZone,
-        timeZone: vesselClockChange.timeZone,
-      })
-      .from(vesselClockChange)
-      .where(and(eq(vesselClockChange.companyId, access.company.id), eq(vesselClockChange.vesselId, target.id)));
-    const zoneAt = zoneAtFrom(history, v.timeZone);
+    const zoneAt = zoneAtFrom(await clockHistory(tx, access.company.id, target.id), v.timeZone);
     const firstGuess = instantOfShipTime(input.shipDay, input.time, zoneAt(now));
     const effectiveAt = instantOfShipTime(input.shipDay, input.time, zoneAt(firstGuess));
     if (Math.abs(effectiveAt.getTime() - now.getTime()) > WEEK_MS) {
@@ -104,60 +95,45 @@ export async function addClockChange(
        where id = (select id from vessel_clock_change
                     where company_id = ${access.company.id} and vessel_id = ${target.id} and effective_at > ${effectiveAt}
                     order by effective_at limit 1)`);
-    if (effectiveAt <= now) {
-      await moveToZoneInForce(tx, target.id, now);
-      await requestRecompute(tx, access.company.id, target.id);
-    }
+    const moved = effectiveAt <= now ? await moveToZonesInForce(tx, now, target.id) : [];
+    return moved[0]?.time_zone ?? v.timeZone;
   });
-  return loadShipClock(access, { ...target, timeZone: (await zoneNow(target.id)) ?? target.timeZone }, now);
-}
-
-async function zoneNow(vesselId: string): Promise<string | null> {
-  const [v] = await getDb().select({ timeZone: vessel.timeZone }).from(vessel).where(eq(vessel.id, vesselId));
-  return v?.timeZone ?? null;
-}
-
-type Connection = Pick<Db, "execute">;
-
-/** Sets the vessel's zone to the one of its latest change in force; true when it moved. */
-async function moveToZoneInForce(db: Connection, vesselId: string, now: Date): Promise<boolean> {
-  const { rows } = await db.execute<{ id: string }>(sql`
-    update vessel v set time_zone = c.time_zone
-      from (select time_zone from vessel_clock_change
-             where vessel_id = ${vesselId} and effective_at <= ${now}
-             order by effective_at desc limit 1) c
-     where v.id = ${vesselId} and v.time_zone <> c.time_zone
-     returning v.id`);
-  return rows.length > 0;
+  return loadShipClock(access, { ...target, timeZone: zoneAfter }, now);
 }
 
 /**
- * The worker's step (every five minutes): every vessel whose latest change in force names another
- * zone than it keeps moves to it, and is recomputed (its ship's days changed).
+ * Moves every vessel (or the one given) whose latest clock change in force names another zone than
+ * it keeps to that zone, and asks for its recompute (its ship's days changed).
  */
-export async function applyDueClockChanges(db: Db, now = new Date()): Promise<number> {
-  return db.transaction(async (tx) => {
-    const { rows } = await tx.execute<{ id: string; company_id: string }>(sql`
-      update vessel v set time_zone = c.time_zone
-        from (select distinct on (vessel_id) vessel_id, time_zone from vessel_clock_change
-               where effective_at <= ${now}
-               order by vessel_id, effective_at desc) c
-       where v.id = c.vessel_id and v.time_zone <> c.time_zone
-       returning v.id, v.company_id`);
-    for (const r of rows) await requestRecompute(tx, r.company_id, r.id);
-    return rows.length;
-  });
+async function moveToZonesInForce(tx: Tx, now: Date, vesselId?: string) {
+  const { rows } = await tx.execute<{ id: string; company_id: string; time_zone: string }>(sql`
+    update vessel v set time_zone = c.time_zone
+      from (select distinct on (vessel_id) vessel_id, time_zone from vessel_clock_change
+             where effective_at <= ${now} ${vesselId ? sql`and vessel_id = ${vesselId}` : sql``}
+             order by vessel_id, effective_at desc) c
+     where v.id = c.vessel_id and v.time_zone <> c.time_zone
+     returning v.id, v.company_id, v.time_zone`);
+  for (const r of rows) await requestRecompute(tx, r.company_id, r.id);
+  return rows;
 }
 
-/** The zone the vessel kept at each instant (its clock changes; `zoneAtFrom`). */
-export async function vesselZoneAt(companyId: string, target: VesselRef): Promise<(at: Date) => string> {
-  const changes = await getDb()
+/** The worker's step (every five minutes): a change entered ahead takes effect when it falls due. */
+export async function applyDueClockChanges(db: Db, now = new Date()): Promise<number> {
+  return (await db.transaction((tx) => moveToZonesInForce(tx, now))).length;
+}
+
+function clockHistory(db: Db | Tx, companyId: string, vesselId: string): Promise<ClockChangePoint[]> {
+  return db
     .select({
       effectiveAt: vesselClockChange.effectiveAt,
       fromTimeZone: vesselClockChange.fromTimeZone,
       timeZone: vesselClockChange.timeZone,
     })
     .from(vesselClockChange)
-    .where(and(eq(vesselClockChange.companyId, companyId), eq(vesselClockChange.vesselId, target.id)));
-  return zoneAtFrom(changes, target.timeZone);
+    .where(and(eq(vesselClockChange.companyId, companyId), eq(vesselClockChange.vesselId, vesselId)));
+}
+
+/** The zone the vessel kept at each instant (its clock changes; `zoneAtFrom`). */
+export async function vesselZoneAt(companyId: string, target: VesselRef): Promise<(at: Date) => string> {
+  return zoneAtFrom(await clockHistory(getDb(), companyId, target.id), target.timeZone);
 }

@@ -4,8 +4,9 @@
 import { useState } from "react";
 import { ProblemError } from "@/app/_components/fetch-json";
 import { Field } from "@/app/_components/forms/field";
+import { FormActions } from "@/app/_components/forms/form-actions";
 import { problemSentence } from "@/app/_components/forms/form-problem";
-import { LoadProblem, Notice } from "@/app/_components/notice";
+import { LoadProblem } from "@/app/_components/notice";
 import { useRankWords } from "@/app/_components/rank-words-provider";
 import type { DefectView } from "@/server/defects/contract";
 import { UNIT_LABEL } from "@/server/parts/contract";
@@ -99,15 +100,7 @@ export function PlanForm({ vesselId, defect, today, onDone, onCancel }: Props) {
         </div>
         {errors.parts && <p className="field-error">{errors.parts}</p>}
       </fieldset>
-      <Notice tone="problem" message={problem} />
-      <div className="flex gap-2">
-        <button type="submit" className="btn-primary" disabled={plan.isPending}>
-          {plan.isPending ? "Saving…" : "Plan the repair"}
-        </button>
-        <button type="button" className="btn-quiet" onClick={onCancel}>
-          Cancel
-        </button>
-      </div>
+      <FormActions submitLabel="Plan the repair" busy={plan.isPending} problem={problem} onCancel={onCancel} />
     </form>
   );
 }

@@ -3,6 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { type FormEvent, useState } from "react";
 import { fetchJson, ProblemError } from "@/app/_components/fetch-json";
+import { FormActions } from "@/app/_components/forms/form-actions";
 import { queryKeys } from "@/app/_components/query-keys";
 import { shipClock, shipDay } from "@/server/format/hours";
 import type { ShipClockView } from "@/server/vessels/clock-contract";
@@ -114,21 +115,19 @@ export function ShipClock({ vesselId }: { vesselId: string }) {
               <span className="label">Note (optional)</span>
               <input className="field" value={note} maxLength={300} onChange={(e) => setNote(e.target.value)} placeholder="e.g. Westbound, Indian Ocean" />
             </label>
-            {Object.entries(errors).map(([field, message]) => (
-              <p key={field} id={`clock-${field}-error`} className="field-error" role="alert">
-                {message}
-              </p>
-            ))}
+            {Object.entries(errors)
+              .filter(([field]) => field !== "form")
+              .map(([field, message]) => (
+                <p key={field} id={`clock-${field}-error`} className="field-error" role="alert">
+                  {message}
+                </p>
+              ))}
             {done && (
               <p role="status" className="text-go-700 dark:text-go-300">
                 {done}
               </p>
             )}
-            <div>
-              <button type="submit" className="btn-primary" disabled={add.isPending}>
-                {add.isPending ? "Saving…" : "Enter the change"}
-              </button>
-            </div>
+            <FormActions submitLabel="Enter the change" busy={add.isPending} problem={errors.form ?? null} />
           </form>
         )}
       </div>

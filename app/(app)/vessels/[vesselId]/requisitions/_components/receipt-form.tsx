@@ -3,8 +3,8 @@
 // where it is kept. Received in full (or closed with what came), the requisition is delivered.
 import { useState } from "react";
 import { ProblemError } from "@/app/_components/fetch-json";
+import { FormActions } from "@/app/_components/forms/form-actions";
 import { problemSentence } from "@/app/_components/forms/form-problem";
-import { Notice } from "@/app/_components/notice";
 import { type RequisitionView, UNIT_LABEL } from "@/server/parts/contract";
 import { useReceiveRequisition } from "./use-requisitions";
 
@@ -104,15 +104,7 @@ export function ReceiptForm({ vesselId, requisition, locations, onDone, onCancel
         <input type="checkbox" className="accent-tide-600" checked={complete} onChange={(e) => setComplete(e.target.checked)} />
         Nothing more will come: close it as delivered with what was received
       </label>
-      <Notice tone="problem" message={problem} />
-      <div className="flex gap-2">
-        <button type="submit" className="btn-primary" disabled={receive.isPending}>
-          {receive.isPending ? "Receiving…" : "Receive into the stores"}
-        </button>
-        <button type="button" className="btn-quiet" onClick={onCancel}>
-          Cancel
-        </button>
-      </div>
+      <FormActions submitLabel="Receive into the stores" busyLabel="Receiving…" busy={receive.isPending} problem={problem} onCancel={onCancel} />
     </form>
   );
 }

@@ -4,6 +4,7 @@
 // into the stores, and a requisition received in full is delivered.
 import { useSearchParams } from "next/navigation";
 import { useState } from "react";
+import { FormActions } from "@/app/_components/forms/form-actions";
 import { problemSentence } from "@/app/_components/forms/form-problem";
 import { SidePanel } from "@/app/_components/forms/side-panel";
 import { LoadProblem, Notice } from "@/app/_components/notice";
@@ -236,15 +237,7 @@ function OrderForm({ vesselId, requisition, onDone, onCancel }: { vesselId: stri
         <span className="label">Your order reference (optional)</span>
         <input className="field" maxLength={60} value={orderRef} onChange={(e) => setOrderRef(e.target.value)} placeholder="e.g. PO-7781" autoComplete="off" />
       </label>
-      <Notice tone="problem" message={problem} />
-      <div className="flex gap-2">
-        <button type="submit" className="btn-primary" disabled={move.isPending}>
-          {move.isPending ? "Saving…" : "Mark ordered"}
-        </button>
-        <button type="button" className="btn-quiet" onClick={onCancel}>
-          Cancel
-        </button>
-      </div>
+      <FormActions submitLabel="Mark ordered" busy={move.isPending} problem={problem} onCancel={onCancel} />
     </form>
   );
 }
